@@ -1,0 +1,2 @@
+/** Thermal structure of the lithosphere and mantle: pressure with depth, geotherms, adiabats. */
+package org.tectomelt.engine.thermal;

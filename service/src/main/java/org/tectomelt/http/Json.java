@@ -1,0 +1,219 @@
+package org.tectomelt.http;
+
+import com.fasterxml.jackson.core.JsonGenerator;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.StreamReadConstraints;
+import com.fasterxml.jackson.core.StreamReadFeature;
+import com.fasterxml.jackson.core.exc.StreamReadException;
+import com.fasterxml.jackson.core.exc.StreamConstraintsException;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.JsonMappingException;
+import com.fasterxml.jackson.databind.MapperFeature;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.SerializerProvider;
+import com.fasterxml.jackson.databind.cfg.CoercionAction;
+import com.fasterxml.jackson.databind.cfg.CoercionInputShape;
+import com.fasterxml.jackson.databind.exc.InvalidFormatException;
+import com.fasterxml.jackson.databind.exc.MismatchedInputException;
+import com.fasterxml.jackson.databind.exc.UnrecognizedPropertyException;
+import com.fasterxml.jackson.databind.json.JsonMapper;
+import com.fasterxml.jackson.databind.module.SimpleModule;
+import com.fasterxml.jackson.databind.ser.std.StdSerializer;
+import com.fasterxml.jackson.databind.type.LogicalType;
+import com.fasterxml.jackson.annotation.JsonInclude;
+import java.io.IOException;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * The one JSON configuration of the service: strict on the way in (unknown fields, wrong types,
+ * strings where numbers belong, trailing garbage and deep nesting are all rejected with the
+ * offending field named), and on the way out it refuses NaN and Infinity, so no response can
+ * carry them.
+ */
+public final class Json {
+
+    /** Deepest nesting accepted in a request body. */
+    public static final int MAX_NESTING_DEPTH = 32;
+
+    private static final ObjectMapper MAPPER = build();
+
+    private Json() {
+    }
+
+    /** The shared mapper (thread-safe once configured). */
+    public static ObjectMapper mapper() {
+        return MAPPER;
+    }
+
+    private static ObjectMapper build() {
+        SimpleModule finiteOnly = new SimpleModule("finite-numbers");
+        finiteOnly.addSerializer(Double.class, new FiniteDoubleSerializer());
+        finiteOnly.addSerializer(double.class, new FiniteDoubleSerializer());
+        JsonMapper mapper = JsonMapper.builder()
+                .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
+                .enable(DeserializationFeature.FAIL_ON_NULL_FOR_PRIMITIVES)
+                .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+                .enable(DeserializationFeature.FAIL_ON_READING_DUP_TREE_KEY)
+                .disable(DeserializationFeature.ACCEPT_FLOAT_AS_INT)
+                .disable(MapperFeature.ALLOW_COERCION_OF_SCALARS)
+                .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+                .disable(SerializationFeature.FAIL_ON_EMPTY_BEANS)
+                .serializationInclusion(JsonInclude.Include.NON_NULL)
+                .addModule(finiteOnly)
+                .build();
+        mapper.getFactory().setStreamReadConstraints(StreamReadConstraints.builder()
+                .maxNestingDepth(MAX_NESTING_DEPTH)
+                .maxNumberLength(64)
+                .maxStringLength(100_000)
+                .build());
+        for (LogicalType t : List.of(LogicalType.Float, LogicalType.Integer, LogicalType.Boolean)) {
+            mapper.coercionConfigFor(t).setCoercion(CoercionInputShape.String, CoercionAction.Fail);
+            mapper.coercionConfigFor(t).setCoercion(CoercionInputShape.EmptyString, CoercionAction.Fail);
+        }
+        mapper.coercionConfigFor(LogicalType.Textual).setCoercion(CoercionInputShape.Integer, CoercionAction.Fail);
+        mapper.coercionConfigFor(LogicalType.Textual).setCoercion(CoercionInputShape.Float, CoercionAction.Fail);
+        mapper.coercionConfigFor(LogicalType.Textual).setCoercion(CoercionInputShape.Boolean, CoercionAction.Fail);
+        return mapper;
+    }
+
+    /**
+     * Reads a request body into {@code type}, turning every Jackson failure into a 400 problem
+     * that names the field at fault.
+     */
+    public static <T> T read(byte[] body, Class<T> type) {
+        if (body == null || body.length == 0) {
+            throw ApiProblem.malformed("The request body is empty; a JSON object is expected");
+        }
+        T value;
+        try {
+            value = MAPPER.readValue(body, type);
+        } catch (IOException e) {
+            throw translate(e);
+        }
+        if (value == null) {
+            throw ApiProblem.malformed("The request body is JSON null; a JSON object is expected");
+        }
+        return value;
+    }
+
+    /** Turns a Jackson failure into the problem the caller should see. */
+    private static ApiProblem translate(IOException e) {
+        if (e instanceof StreamConstraintsException c) {
+            return ApiProblem.malformed("The request body exceeds a parser limit (nesting depth "
+                    + MAX_NESTING_DEPTH + ", number length 64): " + firstLine(c.getOriginalMessage()));
+        }
+        if (e instanceof JsonMappingException m && m.getCause() instanceof StreamReadException parse) {
+            return translate(parse);
+        }
+        if (e instanceof UnrecognizedPropertyException u) {
+            List<String> known = u.getKnownPropertyIds() == null ? List.of()
+                    : u.getKnownPropertyIds().stream().map(String::valueOf).sorted().toList();
+            return ApiProblem.invalid(path(u), "is not a known field here; known fields: " + known);
+        }
+        if (e instanceof InvalidFormatException f) {
+            return ApiProblem.invalid(path(f), "has the wrong type or format; expected " + describe(f.getTargetType()));
+        }
+        if (e instanceof MismatchedInputException mi) {
+            String field = path(mi);
+            return field.isEmpty()
+                    ? ApiProblem.malformed("The request body must be a JSON object")
+                    : ApiProblem.invalid(field, "has the wrong JSON type; expected " + describe(mi.getTargetType()));
+        }
+        if (e instanceof JsonMappingException m) {
+            String field = path(m);
+            return field.isEmpty()
+                    ? ApiProblem.malformed("The request body could not be mapped: " + firstLine(m.getOriginalMessage()))
+                    : ApiProblem.invalid(field, "is invalid: " + firstLine(m.getOriginalMessage()));
+        }
+        if (e instanceof JsonProcessingException p) {
+            return malformed(p);
+        }
+        return ApiProblem.malformed("The request body could not be read");
+    }
+
+    private static ApiProblem malformed(JsonProcessingException e) {
+        String what = firstLine(e.getOriginalMessage()).replaceAll("\\s*\\(start marker at \\[Source.*$", "");
+        return ApiProblem.malformed("The request body is not valid JSON: " + what + locationOf(e));
+    }
+
+    /** Serialises a response value. */
+    public static byte[] write(Object value) {
+        try {
+            return MAPPER.writeValueAsBytes(value);
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException("response could not be serialised: " + e.getOriginalMessage(), e);
+        }
+    }
+
+    /** The JSON path of a mapping failure: {@code lithosphere.ageMyr}, {@code points[2].depthKm}. */
+    static String path(JsonMappingException e) {
+        StringBuilder sb = new StringBuilder();
+        for (JsonMappingException.Reference r : e.getPath()) {
+            if (r.getFieldName() != null) {
+                if (sb.length() > 0) {
+                    sb.append('.');
+                }
+                sb.append(r.getFieldName());
+            } else if (r.getIndex() >= 0) {
+                sb.append('[').append(r.getIndex()).append(']');
+            }
+        }
+        return sb.toString();
+    }
+
+    private static String describe(Class<?> type) {
+        if (type == null) {
+            return "another type";
+        }
+        if (Number.class.isAssignableFrom(type) || (type.isPrimitive() && type != boolean.class)) {
+            return "a number";
+        }
+        if (type == Boolean.class || type == boolean.class) {
+            return "true or false";
+        }
+        if (type == String.class || type.isEnum()) {
+            return "a string";
+        }
+        if (List.class.isAssignableFrom(type) || type.isArray()) {
+            return "an array";
+        }
+        if (Map.class.isAssignableFrom(type) || type.isRecord()) {
+            return "an object";
+        }
+        return "another type";
+    }
+
+    private static String locationOf(JsonProcessingException e) {
+        return e.getLocation() == null ? ""
+                : " (line " + e.getLocation().getLineNr() + ", column " + e.getLocation().getColumnNr() + ")";
+    }
+
+    private static String firstLine(String s) {
+        if (s == null) {
+            return "";
+        }
+        int nl = s.indexOf('\n');
+        String line = nl < 0 ? s : s.substring(0, nl);
+        return line.length() > 200 ? line.substring(0, 200) + "…" : line;
+    }
+
+    /** Writes finite doubles; a NaN or Infinity in a response is a bug and fails the request. */
+    private static final class FiniteDoubleSerializer extends StdSerializer<Double> {
+        private static final long serialVersionUID = 1L;
+
+        FiniteDoubleSerializer() {
+            super(Double.class);
+        }
+
+        @Override
+        public void serialize(Double value, JsonGenerator gen, SerializerProvider provider) throws IOException {
+            if (!Double.isFinite(value)) {
+                throw JsonMappingException.from(gen, "non-finite number in response at "
+                        + gen.getOutputContext().pathAsPointer());
+            }
+            gen.writeNumber(value);
+        }
+    }
+}

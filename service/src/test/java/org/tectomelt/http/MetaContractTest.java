@@ -1,0 +1,53 @@
+package org.tectomelt.http;
+
+import static org.hamcrest.Matchers.containsString;
+import static org.hamcrest.Matchers.equalTo;
+import static org.hamcrest.Matchers.matchesPattern;
+import static org.hamcrest.Matchers.startsWith;
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+
+/** Health, the packaged spec, the page and the request id. */
+class MetaContractTest {
+
+    @Test
+    void healthSaysUpWithTheBuildVersion() {
+        TestServer.given().get("/v1/health").then()
+                .statusCode(200)
+                .contentType(startsWith("application/json"))
+                .body("status", equalTo("up"))
+                .body("version", equalTo(App.VERSION))
+                .body("version", matchesPattern("\\d+\\.\\d+\\.\\d+.*"));
+    }
+
+    @Test
+    void openApiYamlIsTheSameBytesAsTheFileInApiSpec() throws Exception {
+        byte[] served = TestServer.given().get("/openapi.yaml").then()
+                .statusCode(200)
+                .contentType(startsWith("application/yaml"))
+                .extract().asByteArray();
+        byte[] onDisk = Files.readAllBytes(Path.of("..", "api-spec", "openapi.yaml"));
+        assertArrayEquals(onDisk, served);
+    }
+
+    @Test
+    void rootServesThePageWithTheCautionsAndSpecLink() {
+        TestServer.given().get("/").then()
+                .statusCode(200)
+                .contentType(startsWith("text/html"))
+                .body(containsString("research estimates"))
+                .body(containsString("licensed professional practice"))
+                .body(containsString("href=\"openapi.yaml\""));
+    }
+
+    @Test
+    void aSafeRequestIdIsEchoedAndAnUnsafeOneReplaced() {
+        TestServer.given().header("X-Request-Id", "nb-42.sweep_7").get("/v1/health").then()
+                .header("X-Request-Id", equalTo("nb-42.sweep_7"));
+        TestServer.given().header("X-Request-Id", "bad id <script>").get("/v1/health").then()
+                .header("X-Request-Id", matchesPattern("[0-9a-f-]{36}"));
+    }
+}
