@@ -68,6 +68,18 @@ public final class App {
         List<Route> all = new ArrayList<>();
         all.addAll(MetaRoutes.routes());
         all.addAll(PressureRoutes.routes());
+        // thermal: geotherm routes
+
+        // melting: lithologies, melt fraction, solidus crossings
+
+        // settings: decompression column, ridge, hotspot, rift
+
+        // settings: subduction
+
+        // crust: crustal heating budget and sill model
+
+        // operations: metrics and the like
+
         return List.copyOf(all);
     }
 
