@@ -1,0 +1,916 @@
+package org.tectomelt.engine.crust;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.tectomelt.engine.EngineException;
+import org.tectomelt.engine.ModelInfo;
+
+/**
+ * Transient 1-D vertical conduction with latent heat in a crustal column intruded by one sill or a
+ * stack of sills: temperature and melt fraction of the crust and the intrusions through time.
+ *
+ * <h2>Equation and discretisation</h2>
+ * Conservation of enthalpy per unit volume H = ρ c T + ρ L F(T) (the enthalpy formulation of
+ * conduction with phase change; Voller, Swaminathan &amp; Thomas 1990, Int. J. Numer. Methods Eng.
+ * 30, 875–898, doi:10.1002/nme.1620300419):
+ * <pre>
+ *   ∂H/∂t = ∂/∂z ( k(T) ∂T/∂z ) + A(z)
+ * </pre>
+ * on cell-centred finite volumes of uniform size Δz, with the face conductivity the harmonic mean
+ * of the two cells (exact flux continuity across a rock contact). Time stepping is backward Euler
+ * (fully implicit): H_i^{n+1} − H_i^n = Δt [fluxes and source at n+1]. Backward Euler is chosen over
+ * Crank–Nicolson because it is L-stable and, with the M-matrix of implicit conduction, obeys a
+ * discrete maximum principle: the sharp temperature step of a freshly emplaced sill and the kinks of
+ * the melt curve produce no spurious oscillations (Crank–Nicolson rings at such steps unless Δt is
+ * kept near the explicit limit, and a ringing temperature creates spurious melt). Its first-order
+ * time error is held in check by the adaptive step below.
+ *
+ * <h2>Nonlinear solve</h2>
+ * Each step solves the discrete balance for H by Newton's method on the piecewise-linear relation
+ * T(H) (see {@code EnthalpyCurve}): each iteration linearises T about the current segment of every
+ * cell (dT/dH = 1/(ρc) in solid or fully molten rock, smaller inside the melting interval, 0 on an
+ * isothermal jump), solves the tridiagonal system by the Thomas algorithm, and stops a cell that
+ * would leave its segment at the segment's end, so the next iteration uses the new slope (the
+ * source-update idea of Voller &amp; Swaminathan 1991, Numer. Heat Transfer B 19, 175–189,
+ * doi:10.1080/10407799108944962, DOI from memory). Iterations stop when every cell's residual is
+ * below {@link #NEWTON_TOLERANCE_K} (as a temperature); with constant conductivity an iteration in
+ * which no cell changes segment is exact and ends the step. A temperature-dependent conductivity is
+ * lagged one iteration (Picard) inside the same loop. Isothermal melting (equal solidus and
+ * liquidus) is handled exactly, which is what the Stefan check needs.
+ *
+ * <h2>Adaptive time step</h2>
+ * The local error of backward Euler is estimated from the change of the enthalpy temperature
+ * θ = H/(ρc) against the previous step's rate, e ≈ Δt_n/(Δt_n + Δt_{n−1}) · max|Δθ_n − (Δt_n/Δt_{n−1}) Δθ_{n−1}|,
+ * and the next step is Δt·min(2, max(0.2, 0.9 √(tol/e))); a step with e &gt; 4 tol or without Newton
+ * convergence is redone smaller. Steps land exactly on emplacement, output and profile times; after
+ * each emplacement the step restarts at 0.05 Δz²/κ.
+ *
+ * <h2>Boundary conditions and initial state</h2>
+ * The top of the column (z = 0) is held at the initial state's surface temperature; the base
+ * receives the initial state's basal heat flow, held fixed (0 for a uniform initial temperature, so
+ * the base is insulated). See {@link InitialState}.
+ *
+ * <h2>Intrusions</h2>
+ * Sills are emplaced instantaneously at their emplacement temperature and melt fraction F(T). A new
+ * sill of m cells is inserted at a cell face: everything below the face moves down by the sill's
+ * thickness, keeping its temperature (the column grows; the base and its boundary condition move
+ * down with it). {@link Stacking#UNDER} inserts each new sill beneath the previous ones (under-
+ * accretion, the roof stays at the first sill's top); {@link Stacking#OVER} inserts it at the top depth
+ * above the previous ones, pushing them down (over-accretion). These are the under- and over-accretion
+ * cases of Annen &amp; Sparks (2002). An insertion costs one array shift, O(cells); its real cost is that
+ * every later step works on a longer column.
+ *
+ * <h2>Cost</h2>
+ * Each Newton iteration is a few O(cells) passes, and a step takes one or two iterations unless the
+ * melting fronts cross cell segments, so a run costs O(cells × steps). The step count grows with the
+ * number of emplacements (each restarts the step) and only logarithmically with the duration.
+ *
+ * <h2>Energy check</h2>
+ * The run tracks the column's total enthalpy Σ H Δz, the heat through the top and base, the
+ * radiogenic heat and the enthalpy of each sill emplaced; their imbalance, divided by the heat moved
+ * (Σ |H − H_origin| Δz, with H_origin the enthalpy of each cell's rock when it entered the column),
+ * is reported as {@link SillResult.Summary#energyErrorFraction()}.
+ *
+ * <p>Limitations: conduction only (no convection in the magma, no melt extraction or advection of
+ * heat by melt), constant density (no thermal contraction or volume change on melting), constant
+ * heat capacity, and rock below the country rock's melt curve only (a mantle under the crust is not
+ * represented separately: give a column whose rock is what you want to melt).
+ */
+public final class SillModel {
+
+    /** Provenance of the incremental-emplacement setting. */
+    public static final ModelInfo ANNEN_SPARKS_2002 = new ModelInfo("sill-stacking-annen-sparks2002",
+            "Annen, C. & Sparks, R.S.J. (2002) Effects of repetitive emplacement of basaltic intrusions on thermal "
+                    + "evolution and melt generation in the crust. Earth and Planetary Science Letters 203, 937-955",
+            "10.1016/S0012-821X(02)00929-9");
+    /** Provenance of the enthalpy method. */
+    public static final ModelInfo ENTHALPY_METHOD = new ModelInfo("enthalpy-method-voller1990",
+            "Voller, V.R., Swaminathan, C.R. & Thomas, B.G. (1990) Fixed grid techniques for phase change "
+                    + "problems: a review. International Journal for Numerical Methods in Engineering 30, 875-898",
+            "10.1002/nme.1620300419");
+
+    /** Melt fraction from which rock counts as partially molten (and crustal melting as started). */
+    public static final double MELT_PRESENT = 1e-3;
+    /** Newton stops when every cell's residual, as a temperature H/(ρc), is below this (K). */
+    public static final double NEWTON_TOLERANCE_K = 1e-6;
+    /** Most Newton iterations in one step before the step is redone smaller. */
+    public static final int MAX_NEWTON_ITERATIONS = 40;
+    /** Fewer cells across a sill than this and the results carry a resolution warning. */
+    public static final int MIN_CELLS_PER_SILL_FOR_ACCURACY = 10;
+
+    private SillModel() {
+    }
+
+    /** Where each new sill of a stack goes. */
+    public enum Stacking {
+        /** Beneath the previous sills (under-accretion): the roof stays at the top depth. */
+        UNDER,
+        /** At the top depth, above the previous sills, which are pushed down (over-accretion). */
+        OVER
+    }
+
+    /**
+     * The intrusion schedule: {@code count} sills of equal thickness and temperature, the first at time 0,
+     * then one every {@code interval}.
+     *
+     * @param thickness   thickness of each sill (m)
+     * @param topDepth    depth of the first sill's top (m)
+     * @param temperature emplacement temperature (K)
+     * @param count       number of sills, at least 1
+     * @param interval    time between emplacements (s); ignored for a single sill
+     * @param stacking    where later sills go
+     */
+    public record Intrusions(double thickness, double topDepth, double temperature, int count, double interval,
+                             Stacking stacking) {
+
+        /** Validates the schedule. */
+        public Intrusions {
+            if (!(thickness > 0) || !(topDepth >= 0) || !(temperature > 0) || count < 1
+                    || (count > 1 && !(interval > 0)) || stacking == null) {
+                throw new EngineException("an intrusion needs a positive thickness and temperature, a top depth of at "
+                        + "least 0, at least one sill and, for several, a positive interval");
+            }
+        }
+
+        /** One sill. */
+        public static Intrusions single(double thickness, double topDepth, double temperature) {
+            return new Intrusions(thickness, topDepth, temperature, 1, 0.0, Stacking.UNDER);
+        }
+    }
+
+    /**
+     * Accuracy and work limits of a run.
+     *
+     * @param toleranceK    local time-error tolerance of the adaptive step, as a temperature (K)
+     * @param maxSteps      most accepted time steps before the run is refused
+     * @param maxCellSteps  most cell-steps (Σ cells over all steps) before the run is refused
+     */
+    public record Numerics(double toleranceK, int maxSteps, long maxCellSteps) {
+
+        /** Defaults: 0.5 K, 100,000 steps, 4·10⁸ cell-steps (a few seconds on one core). */
+        public static final Numerics DEFAULT = new Numerics(0.5, 100_000, 400_000_000L);
+
+        /** Validates the limits. */
+        public Numerics {
+            if (!(toleranceK > 0) || maxSteps < 1 || maxCellSteps < 1) {
+                throw new EngineException("numerics need a positive tolerance and positive limits");
+            }
+        }
+    }
+
+    /**
+     * Everything a run needs.
+     *
+     * @param crust           the country rock
+     * @param intrusion       the intruding magma
+     * @param initial         initial temperature, heat production and boundary values
+     * @param intrusions      the emplacement schedule
+     * @param columnDepth     depth of the base of the column before any emplacement (m)
+     * @param gridSpacing     cell size Δz (m)
+     * @param duration        simulated time from the first emplacement (s)
+     * @param outputEvery     spacing of the series (s)
+     * @param profileTimes    times (s) at which to return whole profiles (may be empty)
+     * @param profileSpacing  spacing of profile samples (m); rounded to whole cells, at least one cell
+     * @param numerics        tolerance and work limits
+     */
+    public record Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
+                        double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
+                        double profileSpacing, Numerics numerics) {
+
+        /** Validates the geometry and times. */
+        public Setup {
+            if (crust == null || intrusion == null || initial == null || intrusions == null || numerics == null) {
+                throw new EngineException("a sill model needs crust, intrusion, initial state, intrusions and numerics");
+            }
+            if (!(gridSpacing > 0) || !(columnDepth >= 2 * gridSpacing) || !(duration > 0) || !(outputEvery > 0)
+                    || !(profileSpacing > 0)) {
+                throw new EngineException("a sill model needs a positive grid spacing, duration, output spacing "
+                        + "and profile spacing, and a column of at least two cells");
+            }
+            if (!(intrusions.topDepth() + intrusions.thickness() <= columnDepth)) {
+                throw new EngineException("the first sill must lie within the column");
+            }
+            profileTimes = profileTimes == null ? List.of() : List.copyOf(profileTimes);
+            for (double t : profileTimes) {
+                if (!(t >= 0 && t <= duration)) {
+                    throw new EngineException("profile times must lie between 0 and the duration");
+                }
+            }
+        }
+
+        /** Cells of the column before any emplacement. */
+        public int initialCells() {
+            return (int) Math.round(columnDepth / gridSpacing);
+        }
+
+        /** Cells of one sill: its thickness rounded to whole cells, at least one. */
+        public int cellsPerSill() {
+            return Math.max(1, (int) Math.round(intrusions.thickness() / gridSpacing));
+        }
+
+        /** Sills actually emplaced: those whose emplacement time falls before the end of the run. */
+        public int sillsWithinDuration() {
+            if (intrusions.count() == 1) {
+                return 1;
+            }
+            long fit = (long) Math.ceil(duration / intrusions.interval() - 1e-9);
+            return (int) Math.max(1, Math.min(intrusions.count(), fit));
+        }
+
+        /** Cells at the end, when every sill within the duration is in place. */
+        public int finalCells() {
+            return initialCells() + sillsWithinDuration() * cellsPerSill();
+        }
+
+        /**
+         * The time step (s) each emplacement restarts from: 0.05 Δz²/κ with the largest diffusivity
+         * either rock reaches between 0 °C and the emplacement temperature.
+         */
+        public double restartStep() {
+            double kappa = 0;
+            for (Rock r : new Rock[] {crust, intrusion}) {
+                for (double t : new double[] {273.15, intrusions.temperature(), initial.surfaceTemperature()}) {
+                    kappa = Math.max(kappa, r.diffusivity(t));
+                }
+            }
+            return 0.05 * gridSpacing * gridSpacing / kappa;
+        }
+
+        /** The largest time step (s): the output spacing, and the emplacement interval when there are several sills. */
+        public double maxStep() {
+            double cap = Math.min(outputEvery, duration);
+            return sillsWithinDuration() > 1 ? Math.min(cap, intrusions.interval()) : cap;
+        }
+
+        /**
+         * A lower bound on the cell-steps (Σ cells over time steps) of the run, known before it starts:
+         * after each emplacement the step restarts at {@link #restartStep()} and at most doubles, and
+         * it never exceeds {@link #maxStep()}. Real runs take several times more.
+         */
+        public double minimumCellSteps() {
+            int sills = sillsWithinDuration();
+            double restart = restartStep();
+            double cap = maxStep();
+            double work = 0;
+            for (int k = 0; k < sills; k++) {
+                double span = k + 1 < sills ? intrusions.interval() : duration - k * intrusions.interval();
+                double steps = Math.max(Math.ceil(span / cap),
+                        Math.ceil(Math.log(Math.max(1.0, Math.min(span, cap) / restart)) / Math.log(2.0)));
+                work += steps * ((double) initialCells() + (k + 1) * (double) cellsPerSill());
+            }
+            return work;
+        }
+    }
+
+    /** Thrown when a run would exceed its work limits; the message says which and what to change. */
+    public static final class WorkLimitExceeded extends RuntimeException {
+
+        private static final long serialVersionUID = 1L;
+
+        WorkLimitExceeded(String message) {
+            super(message);
+        }
+    }
+
+    /** Runs the model. */
+    public static SillResult run(Setup setup) {
+        return run(setup, () -> { });
+    }
+
+    /**
+     * Runs the model, calling {@code checkpoint} before every time step (a caller's deadline or
+     * cancellation check may throw from it to abandon the run).
+     */
+    public static SillResult run(Setup setup, Runnable checkpoint) {
+        return new Run(setup, checkpoint).run();
+    }
+
+    /** The mutable state of one run. */
+    private static final class Run {
+
+        private final Setup s;
+        private final Runnable checkpoint;
+        private final double dz;
+        private final EnthalpyCurve[] rocks;
+        private final ConductivityLaw[] laws;
+        private final double[] constantK;
+        private final double[] invRhoC;
+        private final boolean constK;
+        private final double tolerance;
+        private final double tTop;
+        private final double qBase;
+        private final int topIndex;
+        private final int sillCells;
+        private final double sillEnthalpy;
+        private final int sillSegment;
+        private final double dtRestart;
+        private final double dtMax;
+        private final double[] emplacementTimes;
+
+        private int n;
+        private final double[] h;
+        private final double[] hOld;
+        private final double[] heat;
+        private final double[] hOrigin;
+        private final double[] temp;
+        private final double[] beta;
+        private final double[] kc;
+        private double[] dTheta;
+        private double[] dThetaPrev;
+        private final double[] g;
+        private final double[] lo;
+        private final double[] di;
+        private final double[] up;
+        private final double[] rhs;
+        private final double[] work;
+        private final int[] seg;
+        private final int[] segOld;
+        private final int[] sill;
+        private final byte[] rock;
+
+        private int emplaced;
+        private int emplacedCells;
+        private double energyStart;
+        private double energyIn;
+        private double energyInserted;
+        private double sourcePerArea;
+
+        private int steps;
+        private int rejected;
+        private long solves;
+        private long cellSteps;
+
+        // per-step measurements
+        private double crustMelt;
+        private double crustPartial;
+        private double maxCrustF;
+        private double intrusionMeltMean;
+        private double firstSillMelt;
+        private double contactT;
+        private double maxT;
+        private double maxTAll;
+        // accumulators of the measurement passes
+        private double mMelt;
+        private double mPartial;
+        private double mMaxF;
+        private double mIntrMelt;
+        private int mIntrCells;
+        private double mFirst;
+        private double mMaxT;
+        /** Δt_n/Δt_{n−1} of the step being taken (0 after an emplacement) and the largest |Δθ − ratio·Δθ_prev|. */
+        private double ratio;
+        private double errMax;
+
+        private Double solidification;
+        private Double firstCrustMelt;
+        private double peakMelt;
+        private double peakTime = Double.NaN;
+
+        private final List<SillResult.Sample> series = new ArrayList<>();
+        private final List<SillResult.Profile> profiles = new ArrayList<>();
+        private final List<String> warnings = new ArrayList<>();
+
+        Run(Setup setup, Runnable checkpoint) {
+            this.s = setup;
+            this.checkpoint = checkpoint;
+            this.dz = setup.gridSpacing();
+            this.rocks = new EnthalpyCurve[] {new EnthalpyCurve(setup.crust()), new EnthalpyCurve(setup.intrusion())};
+            this.laws = new ConductivityLaw[] {setup.crust().conductivity(), setup.intrusion().conductivity()};
+            this.constK = laws[0].isConstant() && laws[1].isConstant();
+            this.constantK = new double[] {laws[0].at(300), laws[1].at(300)};
+            this.invRhoC = new double[] {rocks[0].invRhoC(), rocks[1].invRhoC()};
+            this.tolerance = setup.numerics().toleranceK();
+            this.tTop = setup.initial().surfaceTemperature();
+            this.qBase = setup.initial().basalHeatFlow(setup.columnDepth());
+            this.topIndex = (int) Math.round(setup.intrusions().topDepth() / dz);
+            this.sillCells = setup.cellsPerSill();
+            this.sillEnthalpy = rocks[1].enthalpy(setup.intrusions().temperature());
+            this.sillSegment = rocks[1].segment(sillEnthalpy);
+
+            int sills = setup.sillsWithinDuration();
+            this.emplacementTimes = new double[sills];
+            for (int k = 0; k < sills; k++) {
+                emplacementTimes[k] = k * setup.intrusions().interval();
+            }
+            this.dtRestart = setup.restartStep();
+            this.dtMax = setup.maxStep();
+
+            int cap0 = setup.finalCells();
+            n = setup.initialCells();
+            h = new double[cap0];
+            hOld = new double[cap0];
+            heat = new double[cap0];
+            hOrigin = new double[cap0];
+            temp = new double[cap0];
+            beta = new double[cap0];
+            kc = new double[cap0];
+            dTheta = new double[cap0];
+            dThetaPrev = new double[cap0];
+            g = new double[cap0];
+            lo = new double[cap0];
+            di = new double[cap0];
+            up = new double[cap0];
+            rhs = new double[cap0];
+            work = new double[cap0];
+            seg = new int[cap0];
+            segOld = new int[cap0];
+            sill = new int[cap0];
+            rock = new byte[cap0];
+            for (int i = 0; i < n; i++) {
+                double z = (i + 0.5) * dz;
+                double t = setup.initial().temperature(z);
+                h[i] = rocks[0].enthalpy(t);
+                seg[i] = rocks[0].segment(h[i]);
+                heat[i] = setup.initial().heatProduction(z);
+                hOrigin[i] = h[i];
+                sourcePerArea += heat[i] * dz;
+            }
+            noteGeometry();
+        }
+
+        private void noteGeometry() {
+            Intrusions in = s.intrusions();
+            double thick = sillCells * dz;
+            if (Math.abs(thick - in.thickness()) > 1e-9 * in.thickness()) {
+                warnings.add(String.format(Locale.ROOT, "each sill is %.6g m thick (%d cells of %.6g m), not the "
+                        + "%.6g m asked for: sills are whole cells", thick, sillCells, dz, in.thickness()));
+            }
+            if (Math.abs(topIndex * dz - in.topDepth()) > 1e-6) {
+                warnings.add(String.format(Locale.ROOT, "the sill top is placed at %.6g m, the cell face nearest "
+                        + "the %.6g m asked for", topIndex * dz, in.topDepth()));
+            }
+            if (Math.abs(n * dz - s.columnDepth()) > 1e-6) {
+                warnings.add(String.format(Locale.ROOT, "the column is %.6g m deep (whole cells), not %.6g m",
+                        n * dz, s.columnDepth()));
+            }
+            if (sillCells < MIN_CELLS_PER_SILL_FOR_ACCURACY) {
+                warnings.add(String.format(Locale.ROOT, "a sill spans only %d cells: solidification times and "
+                        + "melt thicknesses are coarse; use a grid spacing of at most %.3g m", sillCells,
+                        in.thickness() / MIN_CELLS_PER_SILL_FOR_ACCURACY));
+            }
+            if (s.sillsWithinDuration() < in.count()) {
+                warnings.add(String.format(Locale.ROOT, "only %d of the %d sills fall within the duration and were "
+                        + "emplaced", s.sillsWithinDuration(), in.count()));
+            }
+        }
+
+        SillResult run() {
+            energyStart = totalEnergy();
+            double duration = s.duration();
+            double[] outputs = outputTimes();
+            double[] profileTimes = s.profileTimes().stream().mapToDouble(Double::doubleValue).sorted().toArray();
+            int nextEmplacement = 0;
+            int nextOutput = 0;
+            int nextProfile = 0;
+
+            double t = 0;
+            emplace();
+            nextEmplacement = 1;
+            System.arraycopy(h, 0, hOld, 0, n);
+            evaluate();
+            if (firstSillMelt <= 0) {
+                solidification = 0.0;
+                warnings.add("the sill is emplaced below its solidus: it holds no melt from the start");
+            }
+            boolean crustMoltenAtStart = maxCrustF >= MELT_PRESENT;
+            if (crustMoltenAtStart) {
+                firstCrustMelt = 0.0;
+                warnings.add("the crust holds melt from the start: its initial temperature is above its solidus");
+            }
+            peakMelt = crustMelt;
+            peakTime = 0;
+            while (nextOutput < outputs.length && outputs[nextOutput] <= 0) {
+                record(0);
+                nextOutput++;
+            }
+            while (nextProfile < profileTimes.length && profileTimes[nextProfile] <= 0) {
+                profile(0);
+                nextProfile++;
+            }
+
+            double dt = dtRestart;
+            double prevCrustF = maxCrustF;
+            double prevFirstSill = firstSillMelt;
+            double prevStep = 0;
+            boolean prevValid = false;
+            while (t < duration) {
+                checkpoint.run();
+                double tEvent = duration;
+                if (nextEmplacement < emplacementTimes.length) {
+                    tEvent = Math.min(tEvent, emplacementTimes[nextEmplacement]);
+                }
+                if (nextOutput < outputs.length) {
+                    tEvent = Math.min(tEvent, outputs[nextOutput]);
+                }
+                if (nextProfile < profileTimes.length) {
+                    tEvent = Math.min(tEvent, profileTimes[nextProfile]);
+                }
+                double step = dt;
+                boolean lands = false;
+                if (t + 1.2 * dt >= tEvent) {
+                    step = tEvent - t;
+                    lands = true;
+                }
+                System.arraycopy(h, 0, hOld, 0, n);
+                System.arraycopy(seg, 0, segOld, 0, n);
+                cellSteps += n;
+                if (cellSteps > s.numerics().maxCellSteps()) {
+                    throw new WorkLimitExceeded(String.format(Locale.ROOT, "the run needs more than %d cell-steps "
+                            + "(cells × time steps) and was stopped at %.3g of the duration", s.numerics().maxCellSteps(),
+                            t / duration));
+                }
+                ratio = prevValid ? step / prevStep : 0;
+                boolean converged = newton(step);
+                double err = converged && prevValid ? errMax * step / (step + prevStep) : 0;
+                if (!converged || (prevValid && err > 4 * tolerance)) {
+                    System.arraycopy(hOld, 0, h, 0, n);
+                    System.arraycopy(segOld, 0, seg, 0, n);
+                    ratio = 0;
+                    evaluate();
+                    rejected++;
+                    dt = converged ? step * Math.max(0.2, 0.9 * Math.sqrt(tolerance / err)) : step / 4;
+                    if (dt < 1e-9 * dtRestart) {
+                        throw new IllegalStateException("time step collapsed at t = " + t + " s");
+                    }
+                    continue;
+                }
+                // accepted
+                double tPrev = t;
+                t = lands ? tEvent : t + step;
+                steps++;
+                if (steps > s.numerics().maxSteps()) {
+                    throw new WorkLimitExceeded(String.format(Locale.ROOT, "the run needs more than %d time steps and "
+                            + "was stopped at %.3g of the duration", s.numerics().maxSteps(), t / duration));
+                }
+                energyIn += step * (2 * kc[0] / dz * (tTop - temp[0]) + qBase + sourcePerArea);
+                double[] swap = dThetaPrev;
+                dThetaPrev = dTheta;
+                dTheta = swap;
+                track(tPrev, t, prevCrustF, prevFirstSill);
+                prevCrustF = maxCrustF;
+                prevFirstSill = firstSillMelt;
+
+                double factor = !prevValid || err <= 0 ? 2.0 : Math.min(2.0, Math.max(0.2, 0.9 * Math.sqrt(tolerance / err)));
+                double next = step * factor;
+                dt = lands && step < dt && factor >= 1 ? Math.max(dt, next) : next;
+                dt = Math.min(dt, dtMax);
+                prevStep = step;
+                prevValid = true;
+
+                if (nextEmplacement < emplacementTimes.length && t >= emplacementTimes[nextEmplacement]) {
+                    emplace();
+                    nextEmplacement++;
+                    System.arraycopy(h, 0, hOld, 0, n);
+                    ratio = 0;
+                    evaluate();
+                    updatePeak(t);
+                    prevCrustF = maxCrustF;
+                    prevFirstSill = firstSillMelt;
+                    dt = dtRestart;
+                    prevValid = false;
+                }
+                while (nextOutput < outputs.length && outputs[nextOutput] <= t) {
+                    record(t);
+                    nextOutput++;
+                }
+                while (nextProfile < profileTimes.length && profileTimes[nextProfile] <= t) {
+                    profile(t);
+                    nextProfile++;
+                }
+            }
+            return finish();
+        }
+
+        private double[] outputTimes() {
+            double every = s.outputEvery();
+            double duration = s.duration();
+            int count = (int) Math.floor(duration / every + 1e-9);
+            List<Double> times = new ArrayList<>(count + 2);
+            for (int k = 0; k <= count; k++) {
+                times.add(Math.min(k * every, duration));
+            }
+            if (times.get(times.size() - 1) < duration * (1 - 1e-12)) {
+                times.add(duration);
+            } else {
+                times.set(times.size() - 1, duration);
+            }
+            return times.stream().mapToDouble(Double::doubleValue).toArray();
+        }
+
+        /** Inserts one sill and books its enthalpy. */
+        private void emplace() {
+            int m = sillCells;
+            int j = s.intrusions().stacking() == Stacking.OVER ? topIndex : topIndex + emplacedCells;
+            int tail = n - j;
+            System.arraycopy(h, j, h, j + m, tail);
+            System.arraycopy(seg, j, seg, j + m, tail);
+            System.arraycopy(rock, j, rock, j + m, tail);
+            System.arraycopy(sill, j, sill, j + m, tail);
+            System.arraycopy(heat, j, heat, j + m, tail);
+            System.arraycopy(hOrigin, j, hOrigin, j + m, tail);
+            emplaced++;
+            for (int i = j; i < j + m; i++) {
+                h[i] = sillEnthalpy;
+                seg[i] = sillSegment;
+                rock[i] = 1;
+                sill[i] = emplaced;
+                heat[i] = 0;
+                hOrigin[i] = sillEnthalpy;
+            }
+            n += m;
+            emplacedCells += m;
+            energyInserted += m * dz * sillEnthalpy;
+        }
+
+        /** Face conductances k_face/Δz² (W/m³/K): face i lies above cell i, face 0 is the surface. */
+        private void faces() {
+            double dz2 = dz * dz;
+            g[0] = 2 * kc[0] / dz2;
+            for (int i = 1; i < n; i++) {
+                double k1 = kc[i - 1];
+                double k2 = kc[i];
+                g[i] = 2 * k1 * k2 / ((k1 + k2) * dz2);
+            }
+        }
+
+        /**
+         * Temperature, slope dT/dH, conductivity and melt fraction of every cell from its enthalpy and
+         * segment, with the measurements (after emplacement, rejection and at the start).
+         */
+        private void evaluate() {
+            resetMeasurements();
+            double e = 0;
+            for (int i = 0; i < n; i++) {
+                if (constK) {
+                    kc[i] = constantK[rock[i]];
+                }
+                evaluateCell(i);
+                double d = (h[i] - hOld[i]) * rocks[rock[i]].invRhoC();
+                dTheta[i] = d;
+                e = Math.max(e, Math.abs(d - ratio * dThetaPrev[i]));
+            }
+            errMax = e;
+            faces();
+            finishMeasurements();
+        }
+
+        private void evaluateCell(int i) {
+            int r = rock[i];
+            EnthalpyCurve c = rocks[r];
+            int sg = seg[i];
+            double hi = h[i];
+            double t = c.temperature(hi, sg);
+            temp[i] = t;
+            beta[i] = c.slope(sg);
+            if (!constK) {
+                kc[i] = laws[r].at(t);
+            }
+            double f = c.fraction(hi, sg, t);
+            if (r == 0) {
+                mMelt += f;
+                if (f >= MELT_PRESENT) {
+                    mPartial++;
+                }
+                if (f > mMaxF) {
+                    mMaxF = f;
+                }
+            } else {
+                mIntrMelt += f;
+                mIntrCells++;
+                if (sill[i] == 1) {
+                    mFirst += f;
+                }
+            }
+            if (t > mMaxT) {
+                mMaxT = t;
+            }
+        }
+
+        private void resetMeasurements() {
+            mMelt = 0;
+            mPartial = 0;
+            mMaxF = 0;
+            mIntrMelt = 0;
+            mIntrCells = 0;
+            mFirst = 0;
+            mMaxT = Double.NEGATIVE_INFINITY;
+        }
+
+        private void finishMeasurements() {
+            crustMelt = mMelt * dz;
+            crustPartial = mPartial * dz;
+            maxCrustF = mMaxF;
+            intrusionMeltMean = mIntrCells == 0 ? 0 : mIntrMelt / mIntrCells;
+            firstSillMelt = mFirst * dz;
+            maxT = mMaxT;
+            maxTAll = Math.max(maxTAll, mMaxT);
+            int i = topIndex;
+            contactT = i == 0 ? tTop : (kc[i - 1] * temp[i - 1] + kc[i] * temp[i]) / (kc[i - 1] + kc[i]);
+        }
+
+        /**
+         * Newton iterations for one backward-Euler step of length {@code dt}, starting from the
+         * evaluated state in {@code h} (equal to {@code hOld}). Returns false when they do not
+         * converge. On success the cells are evaluated and measured, and {@code dTheta} holds the step's
+         * change of θ = H/(ρc).
+         */
+        private boolean newton(double dt) {
+            for (int it = 0; it <= MAX_NEWTON_ITERATIONS; it++) {
+                double maxResidual = assembleAndEliminate(dt);
+                if (maxResidual <= NEWTON_TOLERANCE_K) {
+                    if (it == 0) {
+                        evaluate();
+                    }
+                    return true;
+                }
+                if (it == MAX_NEWTON_ITERATIONS) {
+                    break;
+                }
+                solves++;
+                boolean clipped = substituteAndUpdate();
+                if (!clipped && constK) {
+                    return true;
+                }
+            }
+            return false;
+        }
+
+        /**
+         * One pass: builds row i of the residual and Jacobian and eliminates it at once (the forward
+         * sweep of the Thomas algorithm, Press et al., Numerical Recipes §2.4). Returns the largest
+         * residual as a temperature (K); the eliminated right-hand side is left in {@code rhs}, the
+         * sweep's factors in {@code work}.
+         */
+        private double assembleAndEliminate(double dt) {
+            if (!constK) {
+                faces();
+            }
+            double maxR = 0;
+            int last = n - 1;
+            double invBet = 1;
+            double upPrev = 0;
+            double xPrev = 0;
+            for (int i = 0; i <= last; i++) {
+                double ti = temp[i];
+                double gA = g[i];
+                double ta = i == 0 ? tTop : temp[i - 1];
+                double gB;
+                double fluxBelow;
+                double upper;
+                if (i < last) {
+                    gB = g[i + 1];
+                    fluxBelow = gB * (temp[i + 1] - ti);
+                    upper = -dt * gB * beta[i + 1];
+                } else {
+                    gB = 0;
+                    fluxBelow = qBase / dz;
+                    upper = 0;
+                }
+                double r = h[i] - hOld[i] - dt * (gA * (ta - ti) + fluxBelow + heat[i]);
+                double ar = Math.abs(r) * invRhoC[rock[i]];
+                if (ar > maxR) {
+                    maxR = ar;
+                }
+                double diag = 1 + dt * (gA + gB) * beta[i];
+                double x;
+                if (i == 0) {
+                    invBet = 1 / diag;
+                    x = -r * invBet;
+                } else {
+                    double lower = -dt * gA * beta[i - 1];
+                    double w = upPrev * invBet;
+                    work[i] = w;
+                    invBet = 1 / (diag - lower * w);
+                    x = (-r - lower * xPrev) * invBet;
+                }
+                rhs[i] = x;
+                xPrev = x;
+                upPrev = upper;
+            }
+            return maxR;
+        }
+
+        /**
+         * One pass: the back substitution of the Thomas algorithm, the Newton correction (each cell
+         * stopped at the end of its segment), and the evaluation and measurement of the new state.
+         * Returns true when some cell was stopped at a segment end.
+         */
+        private boolean substituteAndUpdate() {
+            boolean clipped = false;
+            resetMeasurements();
+            double xNext = 0;
+            double e = 0;
+            for (int i = n - 1; i >= 0; i--) {
+                double x = rhs[i];
+                if (i < n - 1) {
+                    x -= work[i + 1] * xNext;
+                }
+                xNext = x;
+                EnthalpyCurve c = rocks[rock[i]];
+                int sg = seg[i];
+                double hn = h[i] + x;
+                double upper = c.upper(sg);
+                double lower = c.lower(sg);
+                if (hn > upper) {
+                    hn = upper;
+                    seg[i] = sg + 1;
+                    clipped = true;
+                } else if (hn < lower) {
+                    hn = lower;
+                    seg[i] = sg - 1;
+                    clipped = true;
+                }
+                h[i] = hn;
+                evaluateCell(i);
+                double d = (hn - hOld[i]) * c.invRhoC();
+                dTheta[i] = d;
+                double diff = Math.abs(d - ratio * dThetaPrev[i]);
+                if (diff > e) {
+                    e = diff;
+                }
+            }
+            errMax = e;
+            finishMeasurements();
+            return clipped;
+        }
+
+        /** Solidification of the first sill, first crustal melt and the melt peak, interpolated within the step. */
+        private void track(double t0, double t1, double prevCrustF, double prevFirstSill) {
+            if (solidification == null && prevFirstSill > 0 && firstSillMelt <= 1e-12 * dz) {
+                solidification = t0 + (t1 - t0) * prevFirstSill / (prevFirstSill - firstSillMelt);
+            }
+            if (firstCrustMelt == null && maxCrustF >= MELT_PRESENT) {
+                double w = (MELT_PRESENT - prevCrustF) / (maxCrustF - prevCrustF);
+                firstCrustMelt = t0 + (t1 - t0) * Math.max(0, Math.min(1, w));
+            }
+            updatePeak(t1);
+        }
+
+        private void updatePeak(double t) {
+            if (crustMelt > peakMelt) {
+                peakMelt = crustMelt;
+                peakTime = t;
+            }
+        }
+
+        private void record(double t) {
+            series.add(new SillResult.Sample(t, crustMelt, crustPartial, maxCrustF, intrusionMeltMean, contactT, maxT));
+        }
+
+        private void profile(double t) {
+            int stride = Math.max(1, (int) Math.round(s.profileSpacing() / dz));
+            int count = (n + stride - 1) / stride;
+            double[] depth = new double[count];
+            double[] tt = new double[count];
+            double[] ff = new double[count];
+            boolean[] intr = new boolean[count];
+            for (int k = 0; k < count; k++) {
+                int i = k * stride;
+                depth[k] = (i + 0.5) * dz;
+                tt[k] = temp[i];
+                ff[k] = rocks[rock[i]].fraction(h[i], seg[i], temp[i]);
+                intr[k] = rock[i] == 1;
+            }
+            profiles.add(new SillResult.Profile(t, depth, tt, ff, intr));
+        }
+
+        private double totalEnergy() {
+            double e = 0;
+            for (int i = 0; i < n; i++) {
+                e += h[i];
+            }
+            return e * dz;
+        }
+
+        private SillResult finish() {
+            double moved = 0;
+            for (int i = 0; i < n; i++) {
+                moved += Math.abs(h[i] - hOrigin[i]);
+            }
+            moved *= dz;
+            double imbalance = totalEnergy() - energyStart - energyInserted - energyIn;
+            double errorFraction = moved > 0 ? Math.abs(imbalance) / moved : 0.0;
+            if (solidification == null) {
+                warnings.add("the first sill still holds melt at the end of the run: solidificationTime is null");
+            }
+            if (!laws[0].isConstant() || !laws[1].isConstant()) {
+                if (maxTAll > Miao2014Conductivity.MAX_MEASURED_K) {
+                    warnings.add(String.format(Locale.ROOT, "temperatures reach %.0f K: the conductivity law is "
+                            + "extrapolated above %.0f K, the top of its measurements", maxTAll,
+                            Miao2014Conductivity.MAX_MEASURED_K));
+                }
+            }
+            double baseChange = Math.abs(temp[n - 1] - s.initial().temperature(s.columnDepth() - 0.5 * dz));
+            if (baseChange > 1.0) {
+                warnings.add(String.format(Locale.ROOT, "the temperature at the base of the column changed by "
+                        + "%.0f K: the base is close enough to the intrusions to affect the results; deepen the column",
+                        baseChange));
+            }
+            SillResult.Summary summary = new SillResult.Summary(solidification, firstCrustMelt, peakMelt,
+                    peakMelt > 0 ? peakTime : null, errorFraction, emplaced, emplacedCells * dz, topIndex * dz);
+            SillResult.Numerics numbers = new SillResult.Numerics(n, steps, rejected, solves, cellSteps);
+            return new SillResult(series, summary, profiles, numbers, warnings);
+        }
+    }
+}

@@ -1,0 +1,86 @@
+package org.tectomelt.engine.crust;
+
+import java.util.List;
+
+/**
+ * What a {@link SillModel} run produced. SI units: s, m, K.
+ *
+ * @param series    the state at every output time, in time order (the first at t = 0, just after the
+ *                  first emplacement)
+ * @param summary   the run's key numbers
+ * @param profiles  temperature and melt-fraction profiles at the requested times
+ * @param numerics  cost and control figures of the run
+ * @param warnings  notes for the caller (rounding of the geometry, extrapolated laws, a sill that never
+ *                  solidified, ...)
+ */
+public record SillResult(List<Sample> series, Summary summary, List<Profile> profiles, Numerics numerics,
+                         List<String> warnings) {
+
+    /** Defensive copies. */
+    public SillResult {
+        series = List.copyOf(series);
+        profiles = List.copyOf(profiles);
+        warnings = List.copyOf(warnings);
+    }
+
+    /**
+     * The column at one time.
+     *
+     * @param time                          time since the first emplacement (s)
+     * @param crustMeltThickness            ∫ F dz over the crust (m): the thickness of crustal melt if it were segregated
+     * @param crustPartiallyMoltenThickness thickness of crust holding at least {@link SillModel#MELT_PRESENT} melt (m)
+     * @param maxCrustMeltFraction          largest melt fraction in the crust
+     * @param intrusionMeltFraction         mean melt fraction of all intrusion material emplaced so far
+     * @param contactTemperature            temperature at the roof of the intrusions (K)
+     * @param maxTemperature                highest temperature in the column (K)
+     */
+    public record Sample(double time, double crustMeltThickness, double crustPartiallyMoltenThickness,
+                         double maxCrustMeltFraction, double intrusionMeltFraction, double contactTemperature,
+                         double maxTemperature) {
+    }
+
+    /**
+     * Key numbers of the run.
+     *
+     * @param solidificationTime        time (s) at which the first sill held no melt any more; {@code null} if it
+     *                                  still held melt at the end
+     * @param timeToFirstCrustMelt      first time (s) any crust held at least {@link SillModel#MELT_PRESENT}
+     *                                  melt; {@code null} if never
+     * @param peakCrustMeltThickness    largest crust melt thickness (m) over all time steps
+     * @param peakTime                  when it occurred (s); {@code null} when the crust never melted
+     * @param energyErrorFraction       |enthalpy change − (boundary and source heat + emplaced enthalpy)| divided by
+     *                                  the heat moved, Σ |ΔH| over the column: the discrete energy-conservation error
+     * @param sillsEmplaced             number of sills emplaced within the run
+     * @param emplacedThickness         total thickness of intrusion emplaced (m), after rounding to whole cells
+     * @param topDepth                  depth of the roof of the intrusions (m), after rounding to a cell face
+     */
+    public record Summary(Double solidificationTime, Double timeToFirstCrustMelt, double peakCrustMeltThickness,
+                          Double peakTime, double energyErrorFraction, int sillsEmplaced, double emplacedThickness,
+                          double topDepth) {
+    }
+
+    /**
+     * Temperature and melt fraction with depth at one time, sampled at cell centres.
+     *
+     * @param time         time (s)
+     * @param depth        depths (m)
+     * @param temperature  temperatures (K)
+     * @param meltFraction melt fractions
+     * @param intrusion    true where the cell is intrusion, false where it is crust
+     */
+    public record Profile(double time, double[] depth, double[] temperature, double[] meltFraction,
+                          boolean[] intrusion) {
+    }
+
+    /**
+     * Cost and control of the run.
+     *
+     * @param cells            cells at the end (the column grows by each sill)
+     * @param timeSteps        accepted time steps
+     * @param rejectedSteps    steps redone with a smaller time step
+     * @param linearSolves     tridiagonal solves (Newton iterations) in all
+     * @param cellSteps        Σ cells over accepted and rejected steps: the work measure the limits apply to
+     */
+    public record Numerics(int cells, int timeSteps, int rejectedSteps, long linearSolves, long cellSteps) {
+    }
+}
