@@ -77,6 +77,7 @@ public final class App {
         // settings: subduction
 
         // crust: crustal heating budget and sill model
+        all.addAll(CrustalHeatingRoutes.routes());
 
         // operations: metrics and the like
 

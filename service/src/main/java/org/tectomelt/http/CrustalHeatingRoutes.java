@@ -1,0 +1,488 @@
+package org.tectomelt.http;
+
+import io.javalin.http.Context;
+import java.util.ArrayList;
+import java.util.List;
+import org.tectomelt.engine.ModelInfo;
+import org.tectomelt.engine.crust.ConductivityLaw;
+import org.tectomelt.engine.crust.HeatBudget;
+import org.tectomelt.engine.crust.InitialState;
+import org.tectomelt.engine.crust.MeltingIntervals;
+import org.tectomelt.engine.crust.Miao2014Conductivity;
+import org.tectomelt.engine.crust.Rock;
+import org.tectomelt.engine.crust.SillModel;
+import org.tectomelt.engine.crust.SillResult;
+import org.tectomelt.engine.melting.MeltCurve;
+import org.tectomelt.engine.units.Units;
+
+/**
+ * {@code POST /v1/crustal-heating/budget} (the no-loss energy balance) and
+ * {@code POST /v1/crustal-heating/sill} (the transient sill model).
+ */
+final class CrustalHeatingRoutes {
+
+    /** Most cells a sill run may have at its end (column plus emplaced sills). */
+    static final int MAX_CELLS = 20_000;
+    /** Longest simulated time (kyr). */
+    static final double MAX_DURATION_KYR = 10_000;
+    /** Most series entries a run may return. */
+    static final int MAX_OUTPUTS = 5_000;
+    /** Most accepted time steps of one run. */
+    static final int MAX_TIME_STEPS = 100_000;
+    /** Most cell-steps (Σ cells over all time steps) of one run: one to a few seconds of one core. */
+    static final long MAX_CELL_STEPS = 200_000_000L;
+    /** Most profiles per request. */
+    static final int MAX_PROFILES = 20;
+    /** Most points per profile when the spacing is left to the default. */
+    static final int DEFAULT_PROFILE_POINTS = 2_000;
+    /** Most points in a user melt curve. */
+    static final int MAX_CURVE_POINTS = 50;
+    /** Fewest cells across one sill. */
+    static final int MIN_CELLS_PER_SILL = 2;
+    /** Most sills in one request. */
+    static final int MAX_SILLS = 1_000;
+
+    static final String LAW_CONSTANT = "constant";
+    static final String LAW_GRANITE = "miao2014-granite";
+    static final String LAW_GABBRO = "miao2014-gabbro";
+    static final List<String> LAWS = List.of(LAW_CONSTANT, LAW_GRANITE, LAW_GABBRO);
+    static final List<String> STACKINGS = List.of("under", "over");
+
+    static final String LOWER_BOUND_NOTE = "No-loss lower bound: every joule the intrusion gives up is assumed to heat "
+            + "this crustal layer, none is lost to the surface, to rock beyond the layer or to melt that leaves. "
+            + "Real intrusions lose much of their heat, so the intrusion thickness is a lower bound and the crust "
+            + "thickness an upper bound; use /v1/crustal-heating/sill for the transient, lossy case.";
+
+    private CrustalHeatingRoutes() {
+    }
+
+    static List<Route> routes() {
+        return List.of(Route.post("/v1/crustal-heating/budget", CrustalHeatingRoutes::budget),
+                Route.post("/v1/crustal-heating/sill", CrustalHeatingRoutes::sill));
+    }
+
+    // ---------------------------------------------------------------------------------------
+    // shared request parts
+
+    /** One point of a user melt curve. */
+    record MeltPoint(Double temperatureC, Double meltFraction) {
+    }
+
+    /** Solidus and liquidus of a linear (or, when equal, isothermal) melting interval. */
+    record MeltingInterval(Double solidusC, Double liquidusC) {
+    }
+
+    /** Reads {@code meltCurve} or {@code meltingInterval} of one rock (at most one of them); null when neither. */
+    static MeltCurve meltCurve(Validation v, List<MeltPoint> points, MeltingInterval interval) {
+        if (points != null && interval != null) {
+            v.error("meltingInterval", "give meltCurve or meltingInterval, not both");
+            return null;
+        }
+        if (interval != null) {
+            Validation iv = v.at("meltingInterval");
+            double ts = iv.required("solidusC", interval.solidusC(), 0, 2000);
+            double tl = iv.required("liquidusC", interval.liquidusC(), 0, 2000);
+            if (!Double.isNaN(ts) && !Double.isNaN(tl) && tl < ts) {
+                iv.error("liquidusC", "must not be below solidusC (" + Validation.format(ts) + ")");
+            }
+            if (!v.ok()) {
+                return null;
+            }
+            return MeltingIntervals.linear(Units.celsiusToKelvin(ts), Units.celsiusToKelvin(tl));
+        }
+        if (points == null) {
+            return null;
+        }
+        List<MeltPoint> list = v.list("meltCurve", points, 2, MAX_CURVE_POINTS);
+        double[] t = new double[list.size()];
+        double[] f = new double[list.size()];
+        boolean good = list.size() >= 2 && list.size() <= MAX_CURVE_POINTS;
+        for (int i = 0; i < list.size(); i++) {
+            MeltPoint p = list.get(i);
+            Validation pv = v.at("meltCurve", i);
+            if (p == null) {
+                v.error("meltCurve[" + i + "]", "must be an object {temperatureC, meltFraction}");
+                good = false;
+                continue;
+            }
+            t[i] = pv.required("temperatureC", p.temperatureC(), 0, 2000);
+            f[i] = pv.required("meltFraction", p.meltFraction(), 0, 1);
+            if (Double.isNaN(t[i]) || Double.isNaN(f[i])) {
+                good = false;
+                continue;
+            }
+            if (i > 0 && !Double.isNaN(t[i - 1]) && !(t[i] > t[i - 1])) {
+                pv.error("temperatureC", "temperatures must increase strictly along the curve");
+                good = false;
+            }
+            if (i > 0 && !Double.isNaN(f[i - 1]) && f[i] < f[i - 1]) {
+                pv.error("meltFraction", "melt fraction must not decrease with temperature");
+                good = false;
+            }
+        }
+        if (!good || !v.ok()) {
+            return null;
+        }
+        double[] tk = new double[t.length];
+        for (int i = 0; i < t.length; i++) {
+            tk[i] = Units.celsiusToKelvin(t[i]);
+        }
+        return new MeltCurve(tk, f);
+    }
+
+    // ---------------------------------------------------------------------------------------
+    // budget
+
+    /** The crust in a budget request. */
+    record BudgetCrust(Double initialTemperatureC, Double densityKgPerM3, Double heatCapacityJPerKgK,
+                       Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
+                       Double targetMeltFraction, Double thicknessM) {
+    }
+
+    /** The intrusion in a budget request. */
+    record BudgetIntrusion(Double temperatureC, Double densityKgPerM3, Double heatCapacityJPerKgK,
+                           Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
+                           Double crystallizedFraction, Double thicknessM) {
+    }
+
+    /** Budget request body. */
+    record BudgetRequest(BudgetCrust crust, BudgetIntrusion intrusion, Double finalTemperatureC) {
+    }
+
+    /** Budget response body. */
+    record BudgetResponse(double finalTemperatureC, double crustMeltFraction, double intrusionCrystallizedFraction,
+                          double heatReleasedJPerM3, double heatRequiredJPerM3, double basaltToCrustThicknessRatio,
+                          Double heatReleasedJPerM2, Double crustThicknessBroughtToTargetM, Double heatRequiredJPerM2,
+                          Double intrusionThicknessNeededM, String note, List<String> warnings,
+                          List<ModelInfo> models) {
+    }
+
+    static void budget(Context ctx) {
+        BudgetRequest req = Json.read(ctx.bodyAsBytes(), BudgetRequest.class);
+        Validation v = new Validation();
+        boolean haveCrust = v.present("crust", req.crust());
+        boolean haveIntrusion = v.present("intrusion", req.intrusion());
+        v.throwIfInvalid();
+
+        BudgetCrust c = req.crust();
+        Validation cv = v.at("crust");
+        double tc0 = cv.required("initialTemperatureC", c.initialTemperatureC(), 0, 1500);
+        double rhoC = cv.required("densityKgPerM3", c.densityKgPerM3(), 1500, 4000);
+        double cpC = cv.required("heatCapacityJPerKgK", c.heatCapacityJPerKgK(), 500, 2500);
+        double lC = cv.required("latentHeatJPerKg", c.latentHeatJPerKg(), 0, 1_000_000);
+        MeltCurve crustCurve = meltCurve(cv, c.meltCurve(), c.meltingInterval());
+        Double targetF = c.targetMeltFraction() == null ? null
+                : cv.optional("targetMeltFraction", c.targetMeltFraction(), 0, 0, 1);
+        Double hc = c.thicknessM() == null ? null : cv.optional("thicknessM", c.thicknessM(), 0, 1, 100_000);
+
+        BudgetIntrusion b = req.intrusion();
+        Validation bv = v.at("intrusion");
+        double tb0 = bv.required("temperatureC", b.temperatureC(), 500, 1600);
+        double rhoB = bv.required("densityKgPerM3", b.densityKgPerM3(), 1500, 4000);
+        double cpB = bv.required("heatCapacityJPerKgK", b.heatCapacityJPerKgK(), 500, 2500);
+        double lB = bv.required("latentHeatJPerKg", b.latentHeatJPerKg(), 0, 1_000_000);
+        MeltCurve intrusionCurve = meltCurve(bv, b.meltCurve(), b.meltingInterval());
+        Double xb = b.crystallizedFraction() == null ? null
+                : bv.optional("crystallizedFraction", b.crystallizedFraction(), 0, 0, 1);
+        Double hb = b.thicknessM() == null ? null : bv.optional("thicknessM", b.thicknessM(), 0, 0.01, 100_000);
+
+        Double tf = req.finalTemperatureC() == null ? null
+                : v.optional("finalTemperatureC", req.finalTemperatureC(), 0, 0, 1600);
+        v.throwIfInvalid();
+        if (tf == null && targetF == null) {
+            v.error("finalTemperatureC", "give finalTemperatureC, crust.targetMeltFraction, or both");
+        }
+        if (tf == null && targetF != null && crustCurve == null) {
+            v.error("crust.meltCurve", "a target melt fraction without finalTemperatureC needs the crust's meltCurve "
+                    + "or meltingInterval to find the final temperature");
+        }
+        if (tf != null && targetF == null && crustCurve == null) {
+            v.error("crust.targetMeltFraction", "give it, or the crust's meltCurve or meltingInterval, to know how "
+                    + "much the crust melts at finalTemperatureC");
+        }
+        if (tf != null && (tf < tc0 || tf > tb0)) {
+            v.error("finalTemperatureC", "must lie between crust.initialTemperatureC (" + Validation.format(tc0)
+                    + ") and intrusion.temperatureC (" + Validation.format(tb0) + "), got " + Validation.format(tf));
+        }
+        if (targetF != null && crustCurve != null && tf == null && targetF > crustCurve.maxFraction()) {
+            v.error("crust.targetMeltFraction", "the crust's melt curve reaches at most "
+                    + Validation.format(crustCurve.maxFraction()) + ", got " + Validation.format(targetF));
+        }
+        v.throwIfInvalid();
+
+        HeatBudget budget = new HeatBudget(
+                new HeatBudget.Layer(rhoB, cpB, lB, Units.celsiusToKelvin(tb0), intrusionCurve),
+                new HeatBudget.Layer(rhoC, cpC, lC, Units.celsiusToKelvin(tc0), crustCurve));
+        HeatBudget.Result r;
+        if (tf != null) {
+            r = budget.atFinalTemperature(Units.celsiusToKelvin(tf), targetF, xb);
+        } else {
+            double tFound = targetF <= 0 ? crustCurve.solidus() : crustCurve.temperatureAt(targetF);
+            if (tFound < Units.celsiusToKelvin(tc0) || tFound > Units.celsiusToKelvin(tb0)) {
+                v.error("crust.targetMeltFraction", "is reached at " + Validation.format(
+                        Math.rint(Units.kelvinToCelsius(tFound) * 100) / 100) + " °C on the crust's melt curve, outside "
+                        + "crust.initialTemperatureC to intrusion.temperatureC");
+                v.throwIfInvalid();
+            }
+            r = budget.atCrustMeltFraction(targetF, xb);
+        }
+        Responses.json(ctx, new BudgetResponse(Units.kelvinToCelsius(r.finalTemperature()), r.crustMeltFraction(),
+                r.crystallizedFraction(), r.heatReleased(), r.heatRequired(), r.thicknessRatio(),
+                hb == null ? null : r.heatReleased() * hb, hb == null ? null : r.crustThicknessFor(hb),
+                hc == null ? null : r.heatRequired() * hc, hc == null ? null : r.intrusionThicknessFor(hc),
+                LOWER_BOUND_NOTE, r.warnings(), List.of(HeatBudget.INFO)));
+    }
+
+    // ---------------------------------------------------------------------------------------
+    // sill
+
+    /** The crust in a sill request. */
+    record SillCrust(Double initialTemperatureC, Double conductivityWPerMK, String conductivityLaw,
+                     Double densityKgPerM3, Double heatCapacityJPerKgK, Double latentHeatJPerKg,
+                     List<MeltPoint> meltCurve, MeltingInterval meltingInterval) {
+    }
+
+    /** Repeated emplacement. */
+    record Repeat(Integer count, Double intervalKyr, Double rateMmPerYr, String stacking) {
+    }
+
+    /** The intrusion in a sill request. */
+    record SillIntrusion(Double temperatureC, Double thicknessM, Double topDepthKm, Double conductivityWPerMK,
+                         String conductivityLaw, Double densityKgPerM3, Double heatCapacityJPerKgK,
+                         Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
+                         Repeat repeat) {
+    }
+
+    /** Sill request body. */
+    record SillRequest(SillCrust crust, SillIntrusion intrusion, Double columnDepthKm, Double durationKyr,
+                       Double gridSpacingM, Double outputEveryKyr, List<Double> profileTimesKyr,
+                       Double profileSpacingM) {
+    }
+
+    /** One entry of the time series. */
+    record SillSample(double timeKyr, double crustMeltThicknessM, double crustPartiallyMoltenThicknessM,
+                      double maxCrustMeltFraction, double intrusionMeltFraction, double contactTemperatureC,
+                      double maxTemperatureC) {
+    }
+
+    /** Key numbers of the run. */
+    record SillSummary(Double solidificationTimeKyr, Double timeToFirstCrustMeltKyr, double peakCrustMeltThicknessM,
+                       Double peakTimeKyr, double energyErrorFraction, int sillsEmplaced, double emplacedThicknessM,
+                       double intrusionTopDepthKm) {
+    }
+
+    /** One point of a profile. */
+    record ProfilePoint(double depthKm, double temperatureC, double meltFraction, String rock) {
+    }
+
+    /** A profile at one time. */
+    record SillProfile(double timeKyr, List<ProfilePoint> points) {
+    }
+
+    /** The boundary conditions the run used. */
+    record Boundaries(double surfaceTemperatureC, double basalHeatFlowMWPerM2) {
+    }
+
+    /** Cost figures of the run. */
+    record SillNumerics(int cells, double gridSpacingM, int timeSteps, int rejectedSteps, long linearSolves) {
+    }
+
+    /** Sill response body. */
+    record SillResponse(List<SillSample> series, SillSummary summary, List<SillProfile> profiles,
+                        Boundaries boundaryConditions, SillNumerics numerics, List<String> warnings,
+                        List<ModelInfo> models) {
+    }
+
+    /** Conductivity law of a rock from its request fields. */
+    private static ConductivityLaw law(Validation v, String lawName, Double conductivity) {
+        String law = v.optionalChoice("conductivityLaw", lawName, LAW_CONSTANT, LAWS);
+        if (!LAWS.contains(law)) {
+            return null;
+        }
+        if (!LAW_CONSTANT.equals(law) && conductivity != null) {
+            v.error("conductivityWPerMK", "give it only with conductivityLaw 'constant'; the law '" + law
+                    + "' sets the conductivity");
+            return null;
+        }
+        if (LAW_GRANITE.equals(law)) {
+            return Miao2014Conductivity.GRANITE;
+        }
+        if (LAW_GABBRO.equals(law)) {
+            return Miao2014Conductivity.GABBRO;
+        }
+        double k = v.required("conductivityWPerMK", conductivity, 0.5, 10);
+        return Double.isNaN(k) ? null : ConductivityLaw.constant(k);
+    }
+
+    static void sill(Context ctx) {
+        SillRequest req = Json.read(ctx.bodyAsBytes(), SillRequest.class);
+        Validation v = new Validation();
+        v.present("crust", req.crust());
+        v.present("intrusion", req.intrusion());
+        double durationKyr = v.required("durationKyr", req.durationKyr(), 0.001, MAX_DURATION_KYR);
+        double dz = v.optional("gridSpacingM", req.gridSpacingM(), 10, 0.01, 1000);
+        double columnKm = v.optional("columnDepthKm", req.columnDepthKm(), 60, 0.01, 150);
+        v.throwIfInvalid();
+
+        SillCrust c = req.crust();
+        Validation cv = v.at("crust");
+        double tc0 = cv.required("initialTemperatureC", c.initialTemperatureC(), 0, 1200);
+        ConductivityLaw kC = law(cv, c.conductivityLaw(), c.conductivityWPerMK());
+        double rhoC = cv.required("densityKgPerM3", c.densityKgPerM3(), 1500, 4000);
+        double cpC = cv.required("heatCapacityJPerKgK", c.heatCapacityJPerKgK(), 500, 2500);
+        double lC = cv.required("latentHeatJPerKg", c.latentHeatJPerKg(), 0, 1_000_000);
+        MeltCurve crustCurve = meltCurve(cv, c.meltCurve(), c.meltingInterval());
+        if (crustCurve == null && c.meltCurve() == null && c.meltingInterval() == null) {
+            cv.error("meltCurve", "the crust needs a meltCurve or a meltingInterval");
+        }
+
+        SillIntrusion b = req.intrusion();
+        Validation bv = v.at("intrusion");
+        double tb0 = bv.required("temperatureC", b.temperatureC(), 500, 1600);
+        double thickness = bv.required("thicknessM", b.thicknessM(), 0.01, 5000);
+        double topKm = bv.required("topDepthKm", b.topDepthKm(), 0, 100);
+        ConductivityLaw kB = law(bv, b.conductivityLaw(), b.conductivityWPerMK());
+        double rhoB = bv.required("densityKgPerM3", b.densityKgPerM3(), 1500, 4000);
+        double cpB = bv.required("heatCapacityJPerKgK", b.heatCapacityJPerKgK(), 500, 2500);
+        double lB = bv.required("latentHeatJPerKg", b.latentHeatJPerKg(), 0, 1_000_000);
+        MeltCurve intrusionCurve = meltCurve(bv, b.meltCurve(), b.meltingInterval());
+        if (intrusionCurve == null && b.meltCurve() == null && b.meltingInterval() == null) {
+            bv.error("meltingInterval", "the intrusion needs a meltingInterval or a meltCurve");
+        }
+
+        int count = 1;
+        double intervalKyr = 0;
+        SillModel.Stacking stacking = SillModel.Stacking.UNDER;
+        if (b.repeat() != null) {
+            Validation rv = bv.at("repeat");
+            Repeat rep = b.repeat();
+            String st = rv.optionalChoice("stacking", rep.stacking(), "under", STACKINGS);
+            stacking = "over".equals(st) ? SillModel.Stacking.OVER : SillModel.Stacking.UNDER;
+            if ((rep.intervalKyr() == null) == (rep.rateMmPerYr() == null)) {
+                rv.error("intervalKyr", "give exactly one of intervalKyr or rateMmPerYr");
+            } else if (rep.intervalKyr() != null) {
+                intervalKyr = rv.required("intervalKyr", rep.intervalKyr(), 0.001, MAX_DURATION_KYR);
+            } else {
+                double rate = rv.required("rateMmPerYr", rep.rateMmPerYr(), 0.001, 1000);
+                if (!Double.isNaN(rate) && !Double.isNaN(thickness)) {
+                    // a sill every thickness / rate
+                    intervalKyr = Units.sToKyr(thickness / Units.mmPerYrToMPerS(rate));
+                }
+            }
+            if (rep.count() != null) {
+                count = rv.optionalInt("count", rep.count(), 1, 1, MAX_SILLS);
+            } else if (intervalKyr > 0 && !Double.isNaN(durationKyr)) {
+                count = (int) Math.min(MAX_SILLS, Math.ceil(durationKyr / intervalKyr - 1e-9));
+            }
+        }
+
+        Double outputEvery = req.outputEveryKyr();
+        double every = Double.isNaN(durationKyr) ? Double.NaN
+                : v.optional("outputEveryKyr", outputEvery, durationKyr / 100, durationKyr / MAX_OUTPUTS, durationKyr);
+        List<Double> profileKyr = v.list("profileTimesKyr", req.profileTimesKyr(), 0, MAX_PROFILES);
+        for (int i = 0; i < profileKyr.size(); i++) {
+            Double x = profileKyr.get(i);
+            String field = "profileTimesKyr[" + i + "]";
+            if (x == null) {
+                v.error(field, "must be a number between 0 and durationKyr");
+            } else if (!Double.isNaN(durationKyr)) {
+                v.required(field, x, 0, durationKyr);
+            }
+        }
+        Double profileSpacing = req.profileSpacingM() == null ? null
+                : v.optional("profileSpacingM", req.profileSpacingM(), dz, 0.01, 100_000);
+        v.throwIfInvalid();
+
+        // geometry and work limits, each naming the field to change
+        double columnM = Units.kmToM(columnKm);
+        double topM = Units.kmToM(topKm);
+        if (topM + thickness > columnM) {
+            v.error("columnDepthKm", "must reach below the first sill (intrusion.topDepthKm + thicknessM = "
+                    + Validation.format(Units.mToKm(topM + thickness)) + " km), got " + Validation.format(columnKm));
+        }
+        if (thickness / dz < MIN_CELLS_PER_SILL - 1e-9) {
+            v.error("gridSpacingM", "must be at most half the sill thickness (" + Validation.format(thickness / 2)
+                    + " m) so that a sill spans at least " + MIN_CELLS_PER_SILL + " cells, got " + Validation.format(dz));
+        }
+        if (columnM / dz < 2) {
+            v.error("gridSpacingM", "the column must span at least two cells");
+        }
+        v.throwIfInvalid();
+
+        SillModel.Intrusions intrusions = new SillModel.Intrusions(thickness, topM, Units.celsiusToKelvin(tb0), count,
+                Units.kyrToS(intervalKyr), stacking);
+        double profileM = profileSpacing != null ? profileSpacing : dz;
+        SillModel.Setup probe = new SillModel.Setup(
+                new Rock(rhoC, cpC, lC, kC, crustCurve), new Rock(rhoB, cpB, lB, kB, intrusionCurve),
+                new InitialState.Uniform(Units.celsiusToKelvin(tc0)), intrusions, columnM, dz,
+                Units.kyrToS(durationKyr), Units.kyrToS(every),
+                profileKyr.stream().map(Units::kyrToS).toList(), profileM,
+                new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS, MAX_CELL_STEPS));
+        long cells = (long) probe.initialCells() + (long) probe.sillsWithinDuration() * probe.cellsPerSill();
+        if (cells > MAX_CELLS) {
+            v.error("gridSpacingM", "the column would grow to " + cells + " cells (column plus emplaced sills); at most "
+                    + MAX_CELLS + ": coarsen gridSpacingM, shorten columnDepthKm or emplace less intrusion");
+            v.throwIfInvalid();
+        }
+        if (probe.minimumCellSteps() > MAX_CELL_STEPS) {
+            v.error("durationKyr", String.format(java.util.Locale.ROOT, "this run would need at least %.3g cell-steps "
+                    + "(cells × time steps), more than the %d allowed: shorten durationKyr, coarsen gridSpacingM, "
+                    + "shorten columnDepthKm or emplace fewer sills", probe.minimumCellSteps(), MAX_CELL_STEPS));
+            v.throwIfInvalid();
+        }
+        SillModel.Setup setup = probe;
+        if (profileSpacing == null) {
+            int stride = (int) Math.max(1, (cells + DEFAULT_PROFILE_POINTS - 1) / DEFAULT_PROFILE_POINTS);
+            setup = new SillModel.Setup(probe.crust(), probe.intrusion(), probe.initial(), intrusions, columnM, dz,
+                    probe.duration(), probe.outputEvery(), probe.profileTimes(), stride * dz, probe.numerics());
+        }
+
+        SillResult r;
+        try {
+            r = SillModel.run(setup);
+        } catch (SillModel.WorkLimitExceeded e) {
+            throw ApiProblem.invalid("durationKyr", e.getMessage() + "; shorten durationKyr, coarsen gridSpacingM or "
+                    + "emplace fewer sills");
+        }
+        Responses.json(ctx, response(setup, r));
+    }
+
+    private static SillResponse response(SillModel.Setup setup, SillResult r) {
+        List<SillSample> series = new ArrayList<>(r.series().size());
+        for (SillResult.Sample s : r.series()) {
+            series.add(new SillSample(Units.sToKyr(s.time()), s.crustMeltThickness(), s.crustPartiallyMoltenThickness(),
+                    s.maxCrustMeltFraction(), s.intrusionMeltFraction(), Units.kelvinToCelsius(s.contactTemperature()),
+                    Units.kelvinToCelsius(s.maxTemperature())));
+        }
+        SillResult.Summary sm = r.summary();
+        SillSummary summary = new SillSummary(kyrOrNull(sm.solidificationTime()), kyrOrNull(sm.timeToFirstCrustMelt()),
+                sm.peakCrustMeltThickness(), kyrOrNull(sm.peakTime()), sm.energyErrorFraction(), sm.sillsEmplaced(),
+                sm.emplacedThickness(), Units.mToKm(sm.topDepth()));
+        List<SillProfile> profiles = new ArrayList<>(r.profiles().size());
+        for (SillResult.Profile p : r.profiles()) {
+            List<ProfilePoint> points = new ArrayList<>(p.depth().length);
+            for (int i = 0; i < p.depth().length; i++) {
+                points.add(new ProfilePoint(Units.mToKm(p.depth()[i]), Units.kelvinToCelsius(p.temperature()[i]),
+                        p.meltFraction()[i], p.intrusion()[i] ? "intrusion" : "crust"));
+            }
+            profiles.add(new SillProfile(Units.sToKyr(p.time()), points));
+        }
+        Boundaries bc = new Boundaries(Units.kelvinToCelsius(setup.initial().surfaceTemperature()),
+                Units.wPerM2ToMwPerM2(setup.initial().basalHeatFlow(setup.columnDepth())));
+        SillResult.Numerics nm = r.numerics();
+        SillNumerics numerics = new SillNumerics(nm.cells(), setup.gridSpacing(), nm.timeSteps(), nm.rejectedSteps(),
+                nm.linearSolves());
+        List<ModelInfo> models = new ArrayList<>(List.of(SillModel.ENTHALPY_METHOD));
+        if (setup.intrusions().count() > 1) {
+            models.add(SillModel.ANNEN_SPARKS_2002);
+        }
+        if (!setup.crust().conductivity().isConstant() || !setup.intrusion().conductivity().isConstant()) {
+            models.add(Miao2014Conductivity.INFO);
+        }
+        return new SillResponse(series, summary, profiles, bc, numerics, r.warnings(), models);
+    }
+
+    private static Double kyrOrNull(Double seconds) {
+        return seconds == null ? null : Units.sToKyr(seconds);
+    }
+}

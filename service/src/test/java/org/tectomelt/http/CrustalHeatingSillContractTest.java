@@ -1,0 +1,173 @@
+package org.tectomelt.http;
+
+import static org.hamcrest.Matchers.closeTo;
+import static org.hamcrest.Matchers.containsString;
+import static org.hamcrest.Matchers.equalTo;
+import static org.hamcrest.Matchers.everyItem;
+import static org.hamcrest.Matchers.greaterThan;
+import static org.hamcrest.Matchers.hasItem;
+import static org.hamcrest.Matchers.hasSize;
+import static org.hamcrest.Matchers.lessThan;
+import static org.hamcrest.Matchers.notNullValue;
+import static org.tectomelt.http.Problem.assertInvalidField;
+import static org.tectomelt.http.Problem.assertProblem;
+
+import io.restassured.http.ContentType;
+import org.junit.jupiter.api.Test;
+import org.tectomelt.Config;
+
+/** {@code POST /v1/crustal-heating/sill}. */
+class CrustalHeatingSillContractTest {
+
+    private static final String PATH = "/v1/crustal-heating/sill";
+
+    /** An invented pelitic crust at 450 °C (melt curve approximating REFERENCES §3.4, for the demo). */
+    static final String CRUST = "\"crust\": {\"initialTemperatureC\": 450, \"conductivityWPerMK\": 2.5, "
+            + "\"densityKgPerM3\": 2750, \"heatCapacityJPerKgK\": 1050, \"latentHeatJPerKg\": 280000, "
+            + "\"meltCurve\": [{\"temperatureC\": 750, \"meltFraction\": 0}, {\"temperatureC\": 800, \"meltFraction\": 0.05}, "
+            + "{\"temperatureC\": 850, \"meltFraction\": 0.25}, {\"temperatureC\": 900, \"meltFraction\": 0.45}, "
+            + "{\"temperatureC\": 1000, \"meltFraction\": 0.6}]}";
+    /** Basalt crystallising over 1200 → 1000 °C (REFERENCES §3.4, common practice). */
+    static final String BASALT = "\"temperatureC\": 1230, \"conductivityWPerMK\": 2.5, \"densityKgPerM3\": 2900, "
+            + "\"heatCapacityJPerKgK\": 1100, \"latentHeatJPerKg\": 400000, "
+            + "\"meltingInterval\": {\"solidusC\": 1000, \"liquidusC\": 1200}";
+
+    private static String body(String intrusionExtra, String rest) {
+        return "{" + CRUST + ", \"intrusion\": {" + BASALT + intrusionExtra + "}" + rest + "}";
+    }
+
+    @Test
+    void aSingleSillReturnsTheSeriesTheSummaryAndTheBoundaryConditions() {
+        TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
+                        ", \"columnDepthKm\": 20, \"durationKyr\": 20, \"gridSpacingM\": 10, \"outputEveryKyr\": 1"))
+                .post(PATH).then()
+                .statusCode(200)
+                .body("series", hasSize(21))
+                .body("series[0].timeKyr", closeTo(0, 0))
+                .body("series[0].intrusionMeltFraction", closeTo(1, 1e-12))
+                .body("series[0].maxTemperatureC", closeTo(1230, 1e-9))
+                .body("series[20].timeKyr", closeTo(20, 1e-9))
+                .body("series.maxTemperatureC", everyItem(lessThan(1230.000001)))
+                .body("summary.solidificationTimeKyr", greaterThan(0.5))
+                .body("summary.solidificationTimeKyr", lessThan(20.0))
+                .body("summary.energyErrorFraction", lessThan(1e-3))
+                .body("summary.sillsEmplaced", equalTo(1))
+                .body("summary.emplacedThicknessM", closeTo(250, 1e-9))
+                .body("summary.intrusionTopDepthKm", closeTo(10, 1e-12))
+                .body("boundaryConditions.surfaceTemperatureC", closeTo(450, 1e-9))
+                .body("boundaryConditions.basalHeatFlowMWPerM2", closeTo(0, 0))
+                .body("numerics.cells", equalTo(2025))
+                .body("models.id", hasItem("enthalpy-method-voller1990"));
+    }
+
+    @Test
+    void theIssuesExampleWithRepeatedSillsStacksThemAndMeltsTheCrust() {
+        // the field layout of the issue's example, with explicit thermal properties
+        TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 28, \"repeat\": {\"count\": 10, "
+                        + "\"intervalKyr\": 20}", ", \"columnDepthKm\": 40, \"durationKyr\": 500, \"gridSpacingM\": 5, "
+                        + "\"outputEveryKyr\": 5"))
+                .post(PATH).then()
+                .statusCode(200)
+                .body("series", hasSize(101))
+                .body("summary.sillsEmplaced", equalTo(10))
+                .body("summary.emplacedThicknessM", closeTo(2500, 1e-9))
+                .body("summary.timeToFirstCrustMeltKyr", notNullValue())
+                .body("summary.peakCrustMeltThicknessM", greaterThan(1.0))
+                .body("summary.peakTimeKyr", greaterThan(0.0))
+                .body("summary.energyErrorFraction", lessThan(1e-3))
+                .body("numerics.cells", equalTo(8500))
+                .body("models.id", hasItem("sill-stacking-annen-sparks2002"));
+    }
+
+    @Test
+    void aRateInMillimetresPerYearSetsTheIntervalAndProfilesComeAtTheirTimes() {
+        // 100 m sills at 2 mm/yr: one every 50 kyr, so 0, 50 and 100 kyr within 120 kyr
+        TestServer.json(body(", \"thicknessM\": 100, \"topDepthKm\": 8, \"repeat\": {\"rateMmPerYr\": 2, "
+                        + "\"stacking\": \"over\"}", ", \"columnDepthKm\": 16, \"durationKyr\": 120, "
+                        + "\"gridSpacingM\": 10, \"profileTimesKyr\": [100, 0], \"profileSpacingM\": 100"))
+                .post(PATH).then()
+                .statusCode(200)
+                .body("summary.sillsEmplaced", equalTo(3))
+                .body("series", hasSize(101))
+                .body("profiles", hasSize(2))
+                .body("profiles[0].timeKyr", closeTo(0, 0))
+                .body("profiles[1].timeKyr", closeTo(100, 1e-9))
+                .body("profiles[0].points", hasSize(161))
+                .body("profiles[1].points", hasSize(163))
+                .body("profiles[1].points.rock", hasItem("intrusion"))
+                .body("profiles[1].points[80].depthKm", closeTo(8.005, 1e-9))
+                .body("profiles[1].points[80].temperatureC", closeTo(1230, 1e-9));
+    }
+
+    @Test
+    void temperatureDependentConductivityIsCitedAndItsExtrapolationFlagged() {
+        String crust = CRUST.replace("\"conductivityWPerMK\": 2.5", "\"conductivityLaw\": \"miao2014-granite\"");
+        TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT.replace("\"conductivityWPerMK\": 2.5",
+                        "\"conductivityLaw\": \"miao2014-gabbro\"") + ", \"thicknessM\": 100, \"topDepthKm\": 5}, "
+                        + "\"columnDepthKm\": 10, \"durationKyr\": 5}")
+                .post(PATH).then()
+                .statusCode(200)
+                .body("models.id", hasItem("conductivity-miao2014"))
+                .body("warnings", hasItem(containsString("extrapolated")))
+                .body("summary.energyErrorFraction", lessThan(1e-3));
+    }
+
+    @Test
+    void missingAndOutOfRangeFieldsAreNamed() {
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10", "")).post(PATH),
+                "durationKyr");
+        assertInvalidField(TestServer.json("{\"intrusion\": {}, \"durationKyr\": 10}").post(PATH), "crust");
+        assertInvalidField(TestServer.json(body(", \"topDepthKm\": 10", ", \"durationKyr\": 10")).post(PATH),
+                "intrusion.thicknessM");
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"conductivityLaw\": "
+                + "\"copper\"", ", \"durationKyr\": 10")).post(PATH), "intrusion.conductivityLaw");
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"conductivityLaw\": "
+                + "\"miao2014-gabbro\"", ", \"durationKyr\": 10")).post(PATH), "intrusion.conductivityWPerMK");
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 59.9", ", \"durationKyr\": 10"))
+                .post(PATH), "columnDepthKm");
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"repeat\": {\"count\": 3, "
+                + "\"intervalKyr\": 5, \"rateMmPerYr\": 2}", ", \"durationKyr\": 10")).post(PATH),
+                "intrusion.repeat.intervalKyr");
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10", ", \"durationKyr\": 10, "
+                + "\"profileTimesKyr\": [11]")).post(PATH), "profileTimesKyr[0]");
+        String noCurve = CRUST.substring(0, CRUST.indexOf(", \"meltCurve\"")) + "}";
+        assertInvalidField(TestServer.json("{" + noCurve + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 250, "
+                + "\"topDepthKm\": 10}, \"durationKyr\": 10}").post(PATH), "crust.meltCurve");
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"lithology\": \"basalt\"",
+                ", \"durationKyr\": 10")).post(PATH), "intrusion.lithology");
+    }
+
+    @Test
+    void runawayRequestsAreRefusedNamingTheFieldToChange() {
+        // grid cells: 60 km at 1 m would be 60,000 cells
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
+                ", \"durationKyr\": 10, \"gridSpacingM\": 1")).post(PATH), "gridSpacingM")
+                .body("errors[0].message", containsString("20000"));
+        // a sill must span at least two cells
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 15, \"topDepthKm\": 10",
+                ", \"durationKyr\": 10, \"gridSpacingM\": 10")).post(PATH), "gridSpacingM");
+        // duration
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
+                ", \"durationKyr\": 20000")).post(PATH), "durationKyr");
+        // series length
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
+                ", \"durationKyr\": 1000, \"outputEveryKyr\": 0.1")).post(PATH), "outputEveryKyr");
+        // time steps × cells: 1000 sills into a 150 km column need at least ~2.6e8 cell-steps
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 20, \"topDepthKm\": 10, \"repeat\": "
+                + "{\"count\": 1000, \"intervalKyr\": 10}", ", \"columnDepthKm\": 150, \"durationKyr\": 10000"))
+                .post(PATH), "durationKyr")
+                .body("errors[0].message", containsString("cell-steps"));
+    }
+
+    @Test
+    void wrongMediaTypeAndOversizedBodiesAreRefused() {
+        assertProblem(TestServer.given().contentType(ContentType.TEXT).body("{}").post(PATH), 415,
+                "unsupported-media-type");
+        StringBuilder big = new StringBuilder("{\"profileTimesKyr\": [");
+        while (big.length() < Config.defaults().maxBodyBytes() + 10) {
+            big.append("1.0,");
+        }
+        big.append("1.0]}");
+        assertProblem(TestServer.json(big.toString()).post(PATH), 413, "body-too-large");
+    }
+}
