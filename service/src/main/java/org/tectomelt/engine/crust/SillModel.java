@@ -825,9 +825,11 @@ public final class SillModel {
                 evaluateCell(i);
                 double d = (hn - hOld[i]) * c.invRhoC();
                 dTheta[i] = d;
-                double diff = Math.abs(d - ratio * dThetaPrev[i]);
-                if (diff > e) {
-                    e = diff;
+                if (seg[i] == segOld[i]) {
+                    double diff = Math.abs(d - ratio * dThetaPrev[i]);
+                    if (diff > e) {
+                        e = diff;
+                    }
                 }
             }
             errMax = e;
