@@ -26,8 +26,13 @@ class KatzSpiegelmanLangmuir2003HydrousWedgeReferenceTest {
     private static final double C = 273.15;
     private final SubductionWedge wedge = SubductionWedge.katzPeridotite();
 
+    /** The response's default grid: {@value SubductionWedge#CURVE_POINTS} points from 0 to {@code max}. */
+    private static double[] grid(double max) {
+        return SubductionWedge.evenWaterGrid(max, SubductionWedge.CURVE_POINTS);
+    }
+
     private WedgeMelting at(double pGpa, double tC, double waterWtPct) {
-        return wedge.evaluate(pGpa * GPA, tC + C, waterWtPct / 100, 0.05, OptionalDouble.empty());
+        return wedge.evaluate(pGpa * GPA, tC + C, waterWtPct / 100, grid(0.05), OptionalDouble.empty());
     }
 
     @Test

@@ -21,19 +21,26 @@ class SubductionWedgeCommonPracticeTest {
     private static final double C = 273.15;
     private final SubductionWedge wedge = SubductionWedge.katzPeridotite();
 
+    /** The response's default grid: {@value SubductionWedge#CURVE_POINTS} points from 0 to {@code max}. */
+    private static double[] grid(double max) {
+        return SubductionWedge.evenWaterGrid(max, SubductionWedge.CURVE_POINTS);
+    }
+
     @Test
     void mantleAt100KmAnd1300CIsSolidDryAndWellInsideTheMeltingFieldWithSlabWater() {
         // common practice (REFERENCES §1.6 [trade]): rock near 100 km depth at about 1300 °C is solid when dry
         double p = LithostaticColumn.mantleOnly().pressureAt(100e3);
         double t = 1300 + C;
-        WedgeMelting dry = wedge.evaluate(p, t, 0.0, 0.02, OptionalDouble.empty());
+        WedgeMelting dry = wedge.evaluate(p, t, 0.0, grid(0.02), OptionalDouble.empty());
         assertEquals(0.0, dry.state().meltFraction(), 0.0);
-        assertTrue(dry.state().drySolidus() - t > 100, "dry solidus well above 1300 °C: " + (dry.state().drySolidus() - C));
+        assertTrue(dry.state().drySolidus() - t > 100,
+                "dry solidus well above 1300 °C: " + (dry.state().drySolidus() - C));
         // common practice: the same rock melts readily once slab water is added (arc sources carry some tenths of
         // a wt% of water and more, from memory); "well inside" = the wet solidus lies hundreds of kelvin below it
         for (double water : new double[] {0.002, 0.005, 0.01, 0.02}) {
-            WedgeMelting wet = wedge.evaluate(p, t, water, 0.02, OptionalDouble.empty());
-            assertTrue(wet.state().meltFraction() > 0, "melting at " + water * 100 + " wt%: " + wet.state().meltFraction());
+            WedgeMelting wet = wedge.evaluate(p, t, water, grid(0.02), OptionalDouble.empty());
+            assertTrue(wet.state().meltFraction() > 0,
+                    "melting at " + water * 100 + " wt%: " + wet.state().meltFraction());
             assertTrue(t - wet.state().solidus() > 200, "wet solidus far below 1300 °C at " + water * 100 + " wt%");
         }
         // and a few hundred ppm of water already suffice to start melting there
@@ -64,7 +71,7 @@ class SubductionWedgeCommonPracticeTest {
         double t = 1000 + C;
         double wSat = wedge.waterForSaturation(p, t).orElseThrow();
         double onset = wedge.waterForOnset(p, t).orElseThrow();
-        List<WedgeMelting.CurvePoint> curve = wedge.waterCurve(p, t, 0.04, 201);
+        List<WedgeMelting.CurvePoint> curve = wedge.waterCurve(p, t, SubductionWedge.evenWaterGrid(0.04, 201));
         double fSat = wedge.melt(p, t, wSat).meltFraction();
         for (int i = 1; i < curve.size(); i++) {
             WedgeMelting.CurvePoint a = curve.get(i - 1);
@@ -80,7 +87,7 @@ class SubductionWedgeCommonPracticeTest {
             }
         }
         // at 3.2 GPa and 1300 °C saturation lies beyond the 5 wt% the model accepts: rising throughout
-        List<WedgeMelting.CurvePoint> deep = wedge.waterCurve(3.2 * GPA, 1300 + C, 0.05, 101);
+        List<WedgeMelting.CurvePoint> deep = wedge.waterCurve(3.2 * GPA, 1300 + C, grid(0.05));
         double deepOnset = wedge.waterForOnset(3.2 * GPA, 1300 + C).orElseThrow();
         for (int i = 1; i < deep.size(); i++) {
             if (deep.get(i).bulkWater() > deepOnset) {

@@ -34,8 +34,8 @@ import org.tectomelt.engine.units.Units;
  *       there: any more water stays a free fluid);</li>
  *   <li>the least bulk water at which a free fluid appears (bisection on the lithology's saturation
  *       flag, which switches once as water increases);</li>
- *   <li>melt fraction against bulk water from 0 to a maximum ({@value #CURVE_POINTS} evenly spaced
- *       points) and its slope at the requested water (see {@link #meltPerWater}).</li>
+ *   <li>melt fraction against bulk water (by default {@value #CURVE_POINTS} evenly spaced points
+ *       from 0 to a maximum) and its slope at the requested water (see {@link #meltPerWater}).</li>
  * </ul>
  * The optional arc magma budget is {@link ArcMagmaBudget}.
  *
@@ -64,11 +64,11 @@ public final class SubductionWedge {
             + "added water at one pressure and temperature, by the lithology's hydrous law (Katz et al. 2003: the "
             + "solidus falls by K*X^gamma with X the water in the melt, capped at saturation); no hydrous minerals "
             + "(amphibole, chlorite, phlogopite) hold water, so water the melt and residue cannot dissolve is free "
-            + "fluid; the water-saturated solidus is the solidus at the largest accepted water; waterForOnset is "
-            + "the root of wet solidus = temperature found with a bracketing Brent solver";
+            + "fluid; the water-saturated solidus is the solidus at the largest accepted water; the water for onset "
+            + "is the root of wet solidus = temperature, found with a bracketing Brent solver";
     /** How the slope is computed, for responses and documentation. */
-    public static final String SLOPE_METHOD = "meltPerWater: one-sided three-point difference of the model's "
-            + "melt fraction in bulk water, step 1e-4 times the bulk water, taken forward (as water is added) "
+    public static final String SLOPE_METHOD = "slope of melt with water: one-sided three-point difference of "
+            + "the model's melt fraction in bulk water, step 1e-4 times the bulk water, taken forward (as water is added) "
             + "unless a regime change (onset, saturation, cpx exhaustion, complete melting) lies within two "
             + "steps ahead, then backward; 0 once the melt is water-saturated; null at zero water when the rock "
             + "already melts dry, where the Katz et al. (2003) lowering K*X^0.75 makes it unbounded";
@@ -210,19 +210,33 @@ public final class SubductionWedge {
         return OptionalDouble.of((3 * here.meltFraction() - 4 * f1 + f2) / (2 * h));
     }
 
-    /** Melt fraction at {@code points} evenly spaced bulk water contents from 0 to {@code maxWater}. */
-    public List<WedgeMelting.CurvePoint> waterCurve(double p, double t, double maxWater, int points) {
+    /**
+     * {@code points} evenly spaced bulk water contents from 0 to {@code maxWater} inclusive, each
+     * computed as maxWater · i / (points − 1) (the grid of the water curve).
+     */
+    public static double[] evenWaterGrid(double maxWater, int points) {
         if (points < 2) {
             throw new EngineException("a water curve needs at least two points");
         }
-        if (!(maxWater > 0 && maxWater <= lithology.maxBulkWater())) {
-            throw new EngineException(String.format(Locale.ROOT,
-                    "the water curve's maximum must be above 0 and at most %.3g wt%% for %s",
-                    lithology.maxBulkWater() * 100, lithology.id()));
-        }
-        List<WedgeMelting.CurvePoint> curve = new ArrayList<>(points);
+        double[] grid = new double[points];
         for (int i = 0; i < points; i++) {
-            double w = i == points - 1 ? maxWater : maxWater * i / (points - 1);
+            grid[i] = maxWater * i / (points - 1);
+        }
+        return grid;
+    }
+
+    /**
+     * Melt fraction at each of {@code bulkWaters} (mass fractions, each within the lithology's accepted
+     * range): the melt fraction against water curve.
+     */
+    public List<WedgeMelting.CurvePoint> waterCurve(double p, double t, double[] bulkWaters) {
+        List<WedgeMelting.CurvePoint> curve = new ArrayList<>(bulkWaters.length);
+        for (double w : bulkWaters) {
+            if (!(w >= 0 && w <= lithology.maxBulkWater())) {
+                throw new EngineException(String.format(Locale.ROOT,
+                        "water curve points must lie between 0 and %.3g wt%% for %s",
+                        lithology.maxBulkWater() * 100, lithology.id()));
+            }
             MeltState s = lithology.melt(p, t, w);
             curve.add(new WedgeMelting.CurvePoint(w, s.meltFraction(), s.waterSaturated()));
         }
@@ -236,11 +250,12 @@ public final class SubductionWedge {
      * @param p         pressure (Pa)
      * @param t         wedge temperature (K)
      * @param bulkWater bulk water added to the rock (mass fraction)
-     * @param maxWater  largest bulk water of the curve (mass fraction), within the lithology's range
+     * @param curveWaters bulk water contents of the curve (mass fractions), e.g. {@link #evenWaterGrid}
      * @param waterFlux slab water flux into the wedge (kg per m of arc per s), or empty for no budget
      * @throws EngineException when the lithology cannot give a number at these inputs
      */
-    public WedgeMelting evaluate(double p, double t, double bulkWater, double maxWater, OptionalDouble waterFlux) {
+    public WedgeMelting evaluate(double p, double t, double bulkWater, double[] curveWaters,
+                                 OptionalDouble waterFlux) {
         MeltState state = lithology.melt(p, t, bulkWater);
         List<String> warnings = new ArrayList<>(state.warnings());
         double tsat = saturatedSolidus(p);
@@ -249,30 +264,27 @@ public final class SubductionWedge {
         double freeFluid = state.waterSaturated() && saturation.isPresent()
                 ? Math.max(0.0, bulkWater - saturation.getAsDouble()) : 0.0;
         OptionalDouble slope = meltPerWater(p, t, bulkWater);
-        List<WedgeMelting.CurvePoint> curve = waterCurve(p, t, maxWater, CURVE_POINTS);
+        List<WedgeMelting.CurvePoint> curve = waterCurve(p, t, curveWaters);
 
         if (onset.isEmpty()) {
             warnings.add(String.format(Locale.ROOT, "no amount of water melts this rock: %.0f °C is at or below the "
-                    + "water-saturated solidus (%.0f °C) at %.2f GPa, so waterForOnset is null; added water stays "
-                    + "a free fluid", c(t), c(tsat), gpa(p)));
+                    + "water-saturated solidus (%.0f °C) at %.2f GPa, so the water for onset is null; added water "
+                    + "stays a free fluid", c(t), c(tsat), gpa(p)));
         } else if (onset.getAsDouble() == 0.0) {
             warnings.add(String.format(Locale.ROOT, "%.0f °C is at or above the dry solidus (%.0f °C) at %.2f GPa: "
-                    + "the rock melts without water, so waterForOnset is 0", c(t), c(state.drySolidus()), gpa(p)));
+                    + "the rock melts without water, so the water for onset is 0", c(t), c(state.drySolidus()),
+                    gpa(p)));
         }
         if (freeFluid > 0) {
             warnings.add(String.format(Locale.ROOT, "%.3g wt%% of the rock is free fluid: beyond %.3g wt%% bulk water "
-                    + "the melt (and residue) cannot dissolve more at this pressure and temperature; the excess "
-                    + "neither lowers the solidus further nor makes more melt", freeFluid * 100,
-                    saturation.getAsDouble() * 100));
-        }
-        if (bulkWater > 0 && state.solidus() <= tsat + 1e-9) {
-            warnings.add("the first drop of melt at this bulk water is already water-saturated, so the wet solidus "
-                    + "equals the water-saturated solidus");
+                    + "the rock (melt and residue) dissolves no more at this pressure and temperature; the excess "
+                    + "neither lowers the solidus further nor makes more melt", Units.fractionToWtPct(freeFluid),
+                    Units.fractionToWtPct(saturation.getAsDouble())));
         }
         if (slope.isEmpty()) {
-            warnings.add("meltPerWater is null: at zero water the rock already melts dry, and the solidus lowering "
-                    + "K*X^0.75 of Katz et al. (2003) rises infinitely steeply from zero water; ask at a small "
-                    + "positive water content");
+            warnings.add("the slope of melt with water is null: at zero water the rock already melts dry, and the "
+                    + "solidus lowering K*X^0.75 of Katz et al. (2003) rises infinitely steeply from zero water; ask "
+                    + "at a small positive water content");
         }
 
         Optional<ArcMagmaBudget> budget = Optional.empty();

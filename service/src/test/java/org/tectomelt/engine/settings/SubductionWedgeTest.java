@@ -20,6 +20,11 @@ class SubductionWedgeTest {
     private static final double GPA = 1e9;
     private static final double C = 273.15;
     private final SubductionWedge wedge = SubductionWedge.katzPeridotite();
+
+    /** The response's default grid: {@value SubductionWedge#CURVE_POINTS} points from 0 to {@code max}. */
+    private static double[] grid(double max) {
+        return SubductionWedge.evenWaterGrid(max, SubductionWedge.CURVE_POINTS);
+    }
     private final Katz2003Peridotite katz = Katz2003Peridotite.fertile();
 
     /** A rock that ignores water, standing in for the dry-only lithologies of the catalogue. */
@@ -119,7 +124,7 @@ class SubductionWedgeTest {
         double f = katz.meltFraction(p, t, wSat);
         assertEquals(wSat, katz.waterSaturation(p) * (0.01 + f * 0.99), 1e-12);
 
-        WedgeMelting m = wedge.evaluate(p, t, 0.03, 0.05, OptionalDouble.empty());
+        WedgeMelting m = wedge.evaluate(p, t, 0.03, grid(0.05), OptionalDouble.empty());
         assertTrue(m.state().waterSaturated());
         assertEquals(0.03 - wSat, m.freeFluid(), 1e-12);
         assertTrue(m.warnings().stream().anyMatch(s -> s.contains("free fluid")));
@@ -131,7 +136,7 @@ class SubductionWedgeTest {
     void saturationIsAbsentWhenTheAcceptedWaterCannotReachIt() {
         // 3 GPa, 1300 °C: F at saturation is about 0.7, so saturation needs ~19 wt% water, beyond the 5 wt% accepted
         assertTrue(wedge.waterForSaturation(3 * GPA, 1300 + C).isEmpty());
-        WedgeMelting m = wedge.evaluate(3 * GPA, 1300 + C, 0.05, 0.05, OptionalDouble.empty());
+        WedgeMelting m = wedge.evaluate(3 * GPA, 1300 + C, 0.05, grid(0.05), OptionalDouble.empty());
         assertFalse(m.state().waterSaturated());
         assertEquals(0.0, m.freeFluid(), 0.0);
     }
@@ -143,8 +148,8 @@ class SubductionWedgeTest {
      */
     @Test
     void theSlopeMatchesImplicitDifferentiationOfTheKatzRelations() {
-        double[][] states = {{1.0, 1100, 0.003}, {2.0, 1250, 0.005}, {3.2, 1300, 0.005}, {3.0, 1350, 0.02}, {1.0, 1300, 0.02},
-            {1.5, 1200, 0.0005}, {4.0, 1400, 0.01}};
+        double[][] states = {{1.0, 1100, 0.003}, {2.0, 1250, 0.005}, {3.2, 1300, 0.005}, {3.0, 1350, 0.02},
+            {1.0, 1300, 0.02}, {1.5, 1200, 0.0005}, {4.0, 1400, 0.01}};
         for (double[] s : states) {
             double p = s[0] * GPA;
             double t = s[1] + C;
@@ -199,36 +204,36 @@ class SubductionWedgeTest {
     void theCurveRunsFromZeroToTheMaximumAndAgreesWithTheModel() {
         double p = 3 * GPA;
         double t = 1300 + C;
-        List<WedgeMelting.CurvePoint> curve = wedge.waterCurve(p, t, 0.02, SubductionWedge.CURVE_POINTS);
+        List<WedgeMelting.CurvePoint> curve = wedge.waterCurve(p, t, grid(0.02));
         assertEquals(101, curve.size());
         assertEquals(0.0, curve.get(0).bulkWater(), 0.0);
         assertEquals(0.02, curve.get(100).bulkWater(), 0.0);
         for (WedgeMelting.CurvePoint c : curve) {
             assertEquals(katz.meltFraction(p, t, c.bulkWater()), c.meltFraction(), 0.0);
         }
-        assertThrows(EngineException.class, () -> wedge.waterCurve(p, t, 0.06, 11));
-        assertThrows(EngineException.class, () -> wedge.waterCurve(p, t, 0.0, 11));
+        assertThrows(EngineException.class, () -> wedge.waterCurve(p, t, SubductionWedge.evenWaterGrid(0.06, 11)));
+        assertThrows(EngineException.class, () -> wedge.waterCurve(p, t, new double[] {0.01, -0.001}));
     }
 
     @Test
     void theBudgetNeedsAFluxAndAMeltThatHoldsWater() {
         double flux = 1e4 / 3.15576e7;
-        WedgeMelting melting = wedge.evaluate(3 * GPA, 1300 + C, 0.005, 0.01, OptionalDouble.of(flux));
+        WedgeMelting melting = wedge.evaluate(3 * GPA, 1300 + C, 0.005, grid(0.01), OptionalDouble.of(flux));
         ArcMagmaBudget b = melting.budget().orElseThrow();
         assertEquals(melting.state().waterInMelt(), b.meltWater(), 0.0);
         assertEquals(2900.0, b.meltDensity(), 0.0);
 
-        assertTrue(wedge.evaluate(3 * GPA, 1300 + C, 0.005, 0.01, OptionalDouble.empty()).budget().isEmpty());
-        WedgeMelting solid = wedge.evaluate(3 * GPA, 900 + C, 0.005, 0.01, OptionalDouble.of(flux));
+        assertTrue(wedge.evaluate(3 * GPA, 1300 + C, 0.005, grid(0.01), OptionalDouble.empty()).budget().isEmpty());
+        WedgeMelting solid = wedge.evaluate(3 * GPA, 900 + C, 0.005, grid(0.01), OptionalDouble.of(flux));
         assertTrue(solid.budget().isEmpty());
         assertTrue(solid.warnings().stream().anyMatch(s -> s.contains("no magma budget")));
-        WedgeMelting dry = wedge.evaluate(1 * GPA, 1300 + C, 0.0, 0.01, OptionalDouble.of(flux));
+        WedgeMelting dry = wedge.evaluate(1 * GPA, 1300 + C, 0.0, grid(0.01), OptionalDouble.of(flux));
         assertTrue(dry.budget().isEmpty());
     }
 
     @Test
     void theSolidusDepressionIsDryMinusWet() {
-        WedgeMelting m = wedge.evaluate(2 * GPA, 1200 + C, 0.001, 0.01, OptionalDouble.empty());
+        WedgeMelting m = wedge.evaluate(2 * GPA, 1200 + C, 0.001, grid(0.01), OptionalDouble.empty());
         assertEquals(katz.drySolidus(2 * GPA) - katz.wetSolidus(2 * GPA, 0.001), m.solidusDepression(), 1e-9);
         assertTrue(m.solidusDepression() > 0);
     }
@@ -236,8 +241,8 @@ class SubductionWedgeTest {
     @Test
     void itRefusesWhatTheModelCannotCompute() {
         assertThrows(EngineException.class,
-                () -> wedge.evaluate(11 * GPA, 1500 + C, 0.01, 0.02, OptionalDouble.empty()));
+                () -> wedge.evaluate(11 * GPA, 1500 + C, 0.01, grid(0.02), OptionalDouble.empty()));
         assertThrows(EngineException.class,
-                () -> wedge.evaluate(3 * GPA, 1500 + C, 0.06, 0.05, OptionalDouble.empty()));
+                () -> wedge.evaluate(3 * GPA, 1500 + C, 0.06, grid(0.05), OptionalDouble.empty()));
     }
 }
