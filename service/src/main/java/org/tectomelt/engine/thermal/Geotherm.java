@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import java.util.function.DoubleFunction;
 import org.apache.commons.math3.analysis.UnivariateFunction;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
 import org.tectomelt.engine.EngineException;
@@ -101,6 +102,39 @@ public final class Geotherm {
             previous = z;
         }
         return OptionalDouble.empty();
+    }
+
+    /**
+     * The lowest value of one parameter for which a family of conductive geotherms meets the
+     * adiabat above {@link #MAX_DEPTH_M}, by bisection; for telling a caller how much hotter a
+     * lithosphere must be. Assumes that raising the parameter warms the profile at every depth.
+     *
+     * @param family    builds the geotherm for a parameter value
+     * @param adiabat   the adiabat to meet
+     * @param low       a value at which the family may fail to meet it
+     * @param high      the highest value worth considering
+     * @param tolerance width of the final bracket, in the parameter's unit
+     * @return the lowest meeting value (within {@code tolerance}, rounded up), or empty when even {@code high} fails
+     */
+    public static OptionalDouble lowestMeetingValue(DoubleFunction<ConductiveGeotherm> family, MantleAdiabat adiabat,
+                                                    double low, double high, double tolerance) {
+        if (lithosphereBase(family.apply(high), adiabat).isEmpty()) {
+            return OptionalDouble.empty();
+        }
+        if (lithosphereBase(family.apply(low), adiabat).isPresent()) {
+            return OptionalDouble.of(low);
+        }
+        double lo = low;
+        double hi = high;
+        while (hi - lo > tolerance) {
+            double mid = 0.5 * (lo + hi);
+            if (lithosphereBase(family.apply(mid), adiabat).isPresent()) {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        return OptionalDouble.of(hi);
     }
 
     /** Temperature (K) at depth {@code zMetres} (m). */

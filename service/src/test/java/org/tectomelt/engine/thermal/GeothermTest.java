@@ -60,6 +60,18 @@ class GeothermTest {
     }
 
     @Test
+    void theLowestMantleTemperatureThatMeetsTheAdiabatIsFoundByBisection() {
+        double age = Units.myrToS(60);
+        var lowest = Geotherm.lowestMeetingValue(tm -> new HalfSpaceCooling(age, 273.15, tm, 3.3, 1e-6),
+                adiabat, Units.celsiusToKelvin(1300), Units.celsiusToKelvin(2000), 0.1);
+        double tm = lowest.orElseThrow();
+        assertTrue(Geotherm.lithosphereBase(new HalfSpaceCooling(age, 273.15, tm, 3.3, 1e-6), adiabat).isPresent());
+        assertTrue(Geotherm.lithosphereBase(new HalfSpaceCooling(age, 273.15, tm - 0.2, 3.3, 1e-6), adiabat).isEmpty());
+        assertTrue(Geotherm.lowestMeetingValue(tm2 -> new HalfSpaceCooling(age, 273.15, tm2, 3.3, 1e-6),
+                adiabat, 1000, 1200, 1).isEmpty());
+    }
+
+    @Test
     void depthGridIncludesBothEnds() {
         assertEquals(301, Geotherm.pointCount(300e3, 1e3));
         assertArrayEquals(new double[] {0, 3e3, 6e3, 9e3, 10e3}, Geotherm.depths(10e3, 3e3), 1e-9);
