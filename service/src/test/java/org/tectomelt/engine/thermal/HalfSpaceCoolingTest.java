@@ -40,7 +40,8 @@ class HalfSpaceCoolingTest {
     void thermalThicknessIsThe09Isotherm() {
         double t0 = at60.surfaceTemperature();
         double expected = t0 + 0.9 * (at60.mantleTemperature() - t0);
-        assertEquals(expected, at60.temperatureAt(at60.thermalThickness()), 1e-9);
+        // the profile's erf is tabulated to 1e-10, i.e. 1.3e-7 K of ΔT
+        assertEquals(expected, at60.temperatureAt(at60.thermalThickness()), 2e-7);
     }
 
     @Test
