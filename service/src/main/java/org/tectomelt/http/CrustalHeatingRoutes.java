@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.crust.ConductivityLaw;
+import org.tectomelt.engine.crust.GeothermInitialState;
 import org.tectomelt.engine.crust.HeatBudget;
 import org.tectomelt.engine.crust.InitialState;
 import org.tectomelt.engine.crust.MeltingIntervals;
@@ -13,6 +14,7 @@ import org.tectomelt.engine.crust.Rock;
 import org.tectomelt.engine.crust.SillModel;
 import org.tectomelt.engine.crust.SillResult;
 import org.tectomelt.engine.melting.MeltCurve;
+import org.tectomelt.engine.thermal.ContinentalGeotherm;
 import org.tectomelt.engine.units.Units;
 
 /**
@@ -47,6 +49,7 @@ final class CrustalHeatingRoutes {
     static final String LAW_GABBRO = "miao2014-gabbro";
     static final List<String> LAWS = List.of(LAW_CONSTANT, LAW_GRANITE, LAW_GABBRO);
     static final List<String> STACKINGS = List.of("under", "over");
+    static final List<String> HEAT_PRODUCTIONS = List.of("exponential", "two-layer");
 
     static final String LOWER_BOUND_NOTE = "No-loss lower bound: every joule the intrusion gives up is assumed to heat "
             + "this crustal layer, none is lost to the surface, to rock beyond the layer or to melt that leaves. "
@@ -253,9 +256,14 @@ final class CrustalHeatingRoutes {
                          Repeat repeat) {
     }
 
+    /** A steady continental geotherm as the initial state (the fields of {@code /v1/geotherm}'s continental model). */
+    record SillGeotherm(Double surfaceHeatFlowMWPerM2, Double reducedHeatFlowFraction, Double heatProductionScaleKm,
+                        String heatProduction, Double surfaceTemperatureC) {
+    }
+
     /** Sill request body. */
-    record SillRequest(SillCrust crust, SillIntrusion intrusion, Double columnDepthKm, Double durationKyr,
-                       Double gridSpacingM, Double outputEveryKyr, List<Double> profileTimesKyr,
+    record SillRequest(SillCrust crust, SillIntrusion intrusion, SillGeotherm geotherm, Double columnDepthKm,
+                       Double durationKyr, Double gridSpacingM, Double outputEveryKyr, List<Double> profileTimesKyr,
                        Double profileSpacingM) {
     }
 
@@ -326,8 +334,33 @@ final class CrustalHeatingRoutes {
 
         SillCrust c = req.crust();
         Validation cv = v.at("crust");
-        double tc0 = cv.required("initialTemperatureC", c.initialTemperatureC(), 0, 1200);
         ConductivityLaw kC = law(cv, c.conductivityLaw(), c.conductivityWPerMK());
+        double tc0 = Double.NaN;
+        if (req.geotherm() == null) {
+            tc0 = cv.required("initialTemperatureC", c.initialTemperatureC(), 0, 1200);
+        } else if (c.initialTemperatureC() != null) {
+            cv.error("initialTemperatureC", "give crust.initialTemperatureC (a uniform column) or geotherm, not both");
+        }
+        SillGeotherm geo = req.geotherm();
+        double q0 = 0;
+        double f = 0;
+        double hrKm = 0;
+        double surfaceC = 0;
+        ContinentalGeotherm.HeatProduction distribution = ContinentalGeotherm.HeatProduction.EXPONENTIAL;
+        if (geo != null) {
+            Validation gv = v.at("geotherm");
+            q0 = Units.mwPerM2ToWPerM2(gv.required("surfaceHeatFlowMWPerM2", geo.surfaceHeatFlowMWPerM2(),
+                    Units.wPerM2ToMwPerM2(ContinentalGeotherm.MIN_SURFACE_HEAT_FLOW),
+                    Units.wPerM2ToMwPerM2(ContinentalGeotherm.MAX_SURFACE_HEAT_FLOW)));
+            f = gv.optional("reducedHeatFlowFraction", geo.reducedHeatFlowFraction(),
+                    ContinentalGeotherm.REDUCED_FRACTION, 0, 1);
+            hrKm = gv.optional("heatProductionScaleKm", geo.heatProductionScaleKm(),
+                    Units.mToKm(ContinentalGeotherm.HEAT_PRODUCTION_SCALE), 1, 50);
+            String mode = gv.optionalChoice("heatProduction", geo.heatProduction(), "exponential", HEAT_PRODUCTIONS);
+            distribution = "two-layer".equals(mode) ? ContinentalGeotherm.HeatProduction.TWO_LAYER
+                    : ContinentalGeotherm.HeatProduction.EXPONENTIAL;
+            surfaceC = gv.optional("surfaceTemperatureC", geo.surfaceTemperatureC(), 0, -50, 100);
+        }
         double rhoC = cv.required("densityKgPerM3", c.densityKgPerM3(), 1500, 4000);
         double cpC = cv.required("heatCapacityJPerKgK", c.heatCapacityJPerKgK(), 500, 2500);
         double lC = cv.required("latentHeatJPerKg", c.latentHeatJPerKg(), 0, 1_000_000);
@@ -412,9 +445,18 @@ final class CrustalHeatingRoutes {
         SillModel.Intrusions intrusions = new SillModel.Intrusions(thickness, topM, Units.celsiusToKelvin(tb0), count,
                 Units.kyrToS(intervalKyr), stacking);
         double profileM = profileSpacing != null ? profileSpacing : dz;
+        InitialState initial;
+        if (geo == null) {
+            initial = new InitialState.Uniform(Units.celsiusToKelvin(tc0));
+        } else {
+            // the geotherm's conductivity is the crust's, so that the column starts steady
+            double surfaceK = Units.celsiusToKelvin(surfaceC);
+            initial = new GeothermInitialState(ContinentalGeotherm.of(q0, f, Units.kmToM(hrKm), kC.at(surfaceK),
+                    surfaceK, columnM, distribution));
+        }
         SillModel.Setup probe = new SillModel.Setup(
                 new Rock(rhoC, cpC, lC, kC, crustCurve), new Rock(rhoB, cpB, lB, kB, intrusionCurve),
-                new InitialState.Uniform(Units.celsiusToKelvin(tc0)), intrusions, columnM, dz,
+                initial, intrusions, columnM, dz,
                 Units.kyrToS(durationKyr), Units.kyrToS(every),
                 profileKyr.stream().map(Units::kyrToS).toList(), profileM,
                 new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS, MAX_CELL_STEPS));
@@ -473,6 +515,9 @@ final class CrustalHeatingRoutes {
         SillNumerics numerics = new SillNumerics(nm.cells(), setup.gridSpacing(), nm.timeSteps(), nm.rejectedSteps(),
                 nm.linearSolves());
         List<ModelInfo> models = new ArrayList<>(List.of(SillModel.ENTHALPY_METHOD));
+        if (setup.initial() instanceof GeothermInitialState) {
+            models.add(ContinentalGeotherm.INFO);
+        }
         if (setup.intrusions().count() > 1) {
             models.add(SillModel.ANNEN_SPARKS_2002);
         }

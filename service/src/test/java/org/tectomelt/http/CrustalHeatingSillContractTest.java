@@ -100,6 +100,38 @@ class CrustalHeatingSillContractTest {
     }
 
     @Test
+    void aContinentalGeothermIsTheInitialStateWithItsHeatFlowHeldAtTheBase() {
+        // q0 = 60 mW/m², qm = 0.6 q0, hr = 10 km, k = 2.5: the flow at 40 km is
+        // 36 + 24·exp(−4) = 36.44 mW/m² (Turcotte & Schubert 2014 ch. 4, closed form)
+        String crust = CRUST.replace("\"initialTemperatureC\": 450, ", "");
+        TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, \"topDepthKm\": 30}, "
+                        + "\"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}, \"columnDepthKm\": 40, \"durationKyr\": 10, "
+                        + "\"gridSpacingM\": 10, \"profileTimesKyr\": [0], \"profileSpacingM\": 1000}")
+                .post(PATH).then()
+                .statusCode(200)
+                .body("boundaryConditions.surfaceTemperatureC", closeTo(0, 1e-9))
+                .body("boundaryConditions.basalHeatFlowMWPerM2", closeTo(36 + 24 * Math.exp(-4), 1e-9))
+                // T(10 km) = 0.036·10⁴/2.5 + 2.4e-6·10⁸/2.5·(1 − e⁻¹) = 144 + 60.68 °C
+                .body("profiles[0].points[10].depthKm", closeTo(10.005, 1e-9))
+                .body("profiles[0].points[10].temperatureC", closeTo(144 * 10.005 / 10 + 96 * (1 - Math.exp(-1.0005)), 0.05))
+                .body("models.id", hasItem("continental-steady-conductive"))
+                .body("summary.energyErrorFraction", lessThan(1e-3));
+    }
+
+    @Test
+    void aUniformTemperatureAndAGeothermTogetherAreRefused() {
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
+                ", \"durationKyr\": 10, \"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}")).post(PATH),
+                "crust.initialTemperatureC");
+        String crust = CRUST.replace("\"initialTemperatureC\": 450, ", "");
+        assertInvalidField(TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, "
+                + "\"topDepthKm\": 30}, \"geotherm\": {\"surfaceHeatFlowMWPerM2\": 5}, \"durationKyr\": 10}").post(PATH),
+                "geotherm.surfaceHeatFlowMWPerM2");
+        assertInvalidField(TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, "
+                + "\"topDepthKm\": 30}, \"durationKyr\": 10}").post(PATH), "crust.initialTemperatureC");
+    }
+
+    @Test
     void temperatureDependentConductivityIsCitedAndItsExtrapolationFlagged() {
         String crust = CRUST.replace("\"conductivityWPerMK\": 2.5", "\"conductivityLaw\": \"miao2014-granite\"");
         TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT.replace("\"conductivityWPerMK\": 2.5",

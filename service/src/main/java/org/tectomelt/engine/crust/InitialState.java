@@ -23,6 +23,16 @@ public interface InitialState {
     double basalHeatFlow(double z);
 
     /**
+     * True when the state is a steady geotherm: the sill model then starts from the discrete steady
+     * state of its own grid for the same surface temperature, heat production and basal heat flow
+     * (identical to the closed form to O(Δz²) with constant conductivity; the steady geotherm under
+     * the conductivity law otherwise), so that the column does not drift before the sills act.
+     */
+    default boolean steady() {
+        return false;
+    }
+
+    /**
      * A column at one temperature, without heat production: the top is held at that temperature and
      * the base is insulated. The textbook setting for a sill in country rock of uniform temperature.
      *
