@@ -13,8 +13,10 @@ import org.tectomelt.engine.crust.Miao2014Conductivity;
 import org.tectomelt.engine.crust.Rock;
 import org.tectomelt.engine.crust.SillModel;
 import org.tectomelt.engine.crust.SillResult;
+import org.tectomelt.engine.melting.Lithologies;
 import org.tectomelt.engine.melting.MeltCurve;
 import org.tectomelt.engine.thermal.ContinentalGeotherm;
+import org.tectomelt.engine.thermal.LithostaticColumn;
 import org.tectomelt.engine.units.Units;
 
 /**
@@ -242,7 +244,11 @@ final class CrustalHeatingRoutes {
     /** The crust in a sill request. */
     record SillCrust(Double initialTemperatureC, Double conductivityWPerMK, String conductivityLaw,
                      Double densityKgPerM3, Double heatCapacityJPerKgK, Double latentHeatJPerKg,
-                     List<MeltPoint> meltCurve, MeltingInterval meltingInterval) {
+                     List<MeltPoint> meltCurve, MeltingInterval meltingInterval, Double thicknessKm) {
+    }
+
+    /** The non-melting mantle below the Moho. */
+    record SillMantle(Double densityKgPerM3, Double heatCapacityJPerKgK, Double conductivityWPerMK) {
     }
 
     /** Repeated emplacement. */
@@ -262,7 +268,8 @@ final class CrustalHeatingRoutes {
     }
 
     /** Sill request body. */
-    record SillRequest(SillCrust crust, SillIntrusion intrusion, SillGeotherm geotherm, Double columnDepthKm,
+    record SillRequest(SillCrust crust, SillIntrusion intrusion, SillMantle mantle, SillGeotherm geotherm,
+                       Double columnDepthKm,
                        Double durationKyr, Double gridSpacingM, Double outputEveryKyr, List<Double> profileTimesKyr,
                        Double profileSpacingM) {
     }
@@ -276,7 +283,7 @@ final class CrustalHeatingRoutes {
     /** Key numbers of the run. */
     record SillSummary(Double solidificationTimeKyr, Double timeToFirstCrustMeltKyr, double peakCrustMeltThicknessM,
                        Double peakTimeKyr, double energyErrorFraction, int sillsEmplaced, double emplacedThicknessM,
-                       double intrusionTopDepthKm) {
+                       double intrusionTopDepthKm, Double maxMantleTemperatureC) {
     }
 
     /** One point of a profile. */
@@ -294,6 +301,11 @@ final class CrustalHeatingRoutes {
     /** Cost figures of the run. */
     record SillNumerics(int cells, double gridSpacingM, int timeSteps, int rejectedSteps, long linearSolves) {
     }
+
+    /** Default mantle density (kg/m³): common practice (REFERENCES §1.1). */
+    static final double MANTLE_DENSITY = 3300;
+    /** Default mantle heat capacity (J/kg/K): Katz et al. (2003) Table 2. */
+    static final double MANTLE_HEAT_CAPACITY = 1000;
 
     /** Sill response body. */
     record SillResponse(List<SillSample> series, SillSummary summary, List<SillProfile> profiles,
@@ -368,6 +380,21 @@ final class CrustalHeatingRoutes {
         if (crustCurve == null && c.meltCurve() == null && c.meltingInterval() == null) {
             cv.error("meltCurve", "the crust needs a meltCurve or a meltingInterval");
         }
+        double mohoKm = c.thicknessKm() == null ? Double.NaN : cv.required("thicknessKm", c.thicknessKm(), 1, 100);
+        Rock mantle = null;
+        if (c.thicknessKm() != null && kC != null) {
+            SillMantle m = req.mantle() == null ? new SillMantle(null, null, null) : req.mantle();
+            Validation mv = v.at("mantle");
+            double rhoM = mv.optional("densityKgPerM3", m.densityKgPerM3(), MANTLE_DENSITY, 2800, 4000);
+            double cpM = mv.optional("heatCapacityJPerKgK", m.heatCapacityJPerKgK(), MANTLE_HEAT_CAPACITY, 500, 2500);
+            ConductivityLaw kM = m.conductivityWPerMK() == null ? kC
+                    : ConductivityLaw.constant(mv.optional("conductivityWPerMK", m.conductivityWPerMK(), 3, 0.5, 10));
+            if (mv.ok()) {
+                mantle = new Rock(rhoM, cpM, 0, kM, null);
+            }
+        } else if (req.mantle() != null) {
+            v.error("mantle", "a mantle needs crust.thicknessKm, the depth of the Moho");
+        }
 
         SillIntrusion b = req.intrusion();
         Validation bv = v.at("intrusion");
@@ -429,6 +456,10 @@ final class CrustalHeatingRoutes {
         // geometry and work limits, each naming the field to change
         double columnM = Units.kmToM(columnKm);
         double topM = Units.kmToM(topKm);
+        if (!Double.isNaN(mohoKm) && mohoKm > columnKm) {
+            v.error("crust.thicknessKm", "must not exceed columnDepthKm (" + Validation.format(columnKm) + "), got "
+                    + Validation.format(mohoKm));
+        }
         if (topM + thickness > columnM) {
             v.error("columnDepthKm", "must reach below the first sill (intrusion.topDepthKm + thicknessM = "
                     + Validation.format(Units.mToKm(topM + thickness)) + " km), got " + Validation.format(columnKm));
@@ -452,14 +483,16 @@ final class CrustalHeatingRoutes {
             // the geotherm's conductivity is the crust's, so that the column starts steady
             double surfaceK = Units.celsiusToKelvin(surfaceC);
             initial = new GeothermInitialState(ContinentalGeotherm.of(q0, f, Units.kmToM(hrKm), kC.at(surfaceK),
-                    surfaceK, columnM, distribution));
+                    surfaceK, Double.isNaN(mohoKm) ? columnM : Units.kmToM(mohoKm), distribution));
         }
+        double mohoM = mantle == null ? Double.POSITIVE_INFINITY : Units.kmToM(mohoKm);
         SillModel.Setup probe = new SillModel.Setup(
                 new Rock(rhoC, cpC, lC, kC, crustCurve), new Rock(rhoB, cpB, lB, kB, intrusionCurve),
                 initial, intrusions, columnM, dz,
                 Units.kyrToS(durationKyr), Units.kyrToS(every),
                 profileKyr.stream().map(Units::kyrToS).toList(), profileM,
-                new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS, MAX_CELL_STEPS));
+                new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS, MAX_CELL_STEPS),
+                mantle, mohoM);
         long cells = (long) probe.initialCells() + (long) probe.sillsWithinDuration() * probe.cellsPerSill();
         if (cells > MAX_CELLS) {
             v.error("gridSpacingM", "the column would grow to " + cells + " cells (column plus emplaced sills); at most "
@@ -476,7 +509,8 @@ final class CrustalHeatingRoutes {
         if (profileSpacing == null) {
             int stride = (int) Math.max(1, (cells + DEFAULT_PROFILE_POINTS - 1) / DEFAULT_PROFILE_POINTS);
             setup = new SillModel.Setup(probe.crust(), probe.intrusion(), probe.initial(), intrusions, columnM, dz,
-                    probe.duration(), probe.outputEvery(), probe.profileTimes(), stride * dz, probe.numerics());
+                    probe.duration(), probe.outputEvery(), probe.profileTimes(), stride * dz, probe.numerics(),
+                    probe.mantle(), probe.mohoDepth());
         }
 
         SillResult r;
@@ -497,15 +531,31 @@ final class CrustalHeatingRoutes {
                     Units.kelvinToCelsius(s.maxTemperature())));
         }
         SillResult.Summary sm = r.summary();
+        Double mantleC = sm.maxMantleTemperature() == null ? null : Units.kelvinToCelsius(sm.maxMantleTemperature());
         SillSummary summary = new SillSummary(kyrOrNull(sm.solidificationTime()), kyrOrNull(sm.timeToFirstCrustMelt()),
                 sm.peakCrustMeltThickness(), kyrOrNull(sm.peakTime()), sm.energyErrorFraction(), sm.sillsEmplaced(),
-                sm.emplacedThickness(), Units.mToKm(sm.topDepth()));
+                sm.emplacedThickness(), Units.mToKm(sm.topDepth()), mantleC);
+        List<String> warnings = new ArrayList<>(r.warnings());
+        boolean mantleAboveSolidus = false;
+        if (setup.mantle() != null && sm.maxMantleTemperature() != null) {
+            // the dry peridotite solidus is lowest at the Moho, the top of the mantle
+            double moho = setup.mohoDepth();
+            double p = new LithostaticColumn(moho, setup.crust().density(), setup.mantle().density(), LithostaticColumn.G)
+                    .pressureAt(moho);
+            double solidus = Lithologies.defaultMantle().drySolidus(p);
+            if (sm.maxMantleTemperature() > solidus) {
+                mantleAboveSolidus = true;
+                warnings.add(String.format(java.util.Locale.ROOT, "the mantle below the Moho reached %.0f °C, above "
+                        + "the dry peridotite solidus at the Moho (%.0f °C, Katz et al. 2003), but it does not melt in "
+                        + "this model", Units.kelvinToCelsius(sm.maxMantleTemperature()), Units.kelvinToCelsius(solidus)));
+            }
+        }
         List<SillProfile> profiles = new ArrayList<>(r.profiles().size());
         for (SillResult.Profile p : r.profiles()) {
             List<ProfilePoint> points = new ArrayList<>(p.depth().length);
             for (int i = 0; i < p.depth().length; i++) {
                 points.add(new ProfilePoint(Units.mToKm(p.depth()[i]), Units.kelvinToCelsius(p.temperature()[i]),
-                        p.meltFraction()[i], p.intrusion()[i] ? "intrusion" : "crust"));
+                        p.meltFraction()[i], p.material()[i].name().toLowerCase(java.util.Locale.ROOT)));
             }
             profiles.add(new SillProfile(Units.sToKyr(p.time()), points));
         }
@@ -524,7 +574,10 @@ final class CrustalHeatingRoutes {
         if (!setup.crust().conductivity().isConstant() || !setup.intrusion().conductivity().isConstant()) {
             models.add(Miao2014Conductivity.INFO);
         }
-        return new SillResponse(series, summary, profiles, bc, numerics, r.warnings(), models);
+        if (mantleAboveSolidus) {
+            models.add(Lithologies.defaultMantle().info());
+        }
+        return new SillResponse(series, summary, profiles, bc, numerics, warnings, models);
     }
 
     private static Double kyrOrNull(Double seconds) {

@@ -119,6 +119,35 @@ class CrustalHeatingSillContractTest {
     }
 
     @Test
+    void underplatedSillsAtTheMohoHeatAMantleThatDoesNotMeltButIsFlagged() {
+        // a thin (invented) 10 km crust on a 60 mW/m² geotherm, six 500 m sills at 1350 °C at the Moho:
+        // the mantle right under the newest sill passes the dry solidus at the Moho (1121 °C at
+        // 0.27 GPa, Katz et al. 2003)
+        String crust = CRUST.replace("\"initialTemperatureC\": 450, ", "\"thicknessKm\": 10, ");
+        TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT.replace("1230", "1350") + ", \"thicknessM\": 500, "
+                        + "\"topDepthKm\": 10, \"repeat\": {\"count\": 6, \"intervalKyr\": 5}}, "
+                        + "\"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}, \"mantle\": {\"densityKgPerM3\": 3300}, "
+                        + "\"columnDepthKm\": 25, \"durationKyr\": 30, \"gridSpacingM\": 20, \"profileTimesKyr\": [30], "
+                        + "\"profileSpacingM\": 1000}")
+                .post(PATH).then()
+                .statusCode(200)
+                .body("summary.maxMantleTemperatureC", greaterThan(1121.0))
+                .body("profiles[0].points[9].rock", equalTo("crust"))
+                .body("profiles[0].points[10].rock", equalTo("intrusion"))
+                .body("profiles[0].points[12].rock", equalTo("intrusion"))
+                .body("profiles[0].points[13].rock", equalTo("mantle"))
+                .body("profiles[0].points[13].meltFraction", closeTo(0, 0))
+                .body("warnings", hasItem(containsString("dry peridotite solidus")))
+                .body("models.id", hasItem("peridotite-katz2003"))
+                .body("summary.energyErrorFraction", lessThan(1e-3));
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
+                ", \"durationKyr\": 10, \"mantle\": {}")).post(PATH), "mantle");
+        String deep = CRUST.replace("\"initialTemperatureC\": 450, ", "\"initialTemperatureC\": 450, \"thicknessKm\": 70, ");
+        assertInvalidField(TestServer.json("{" + deep + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 250, "
+                + "\"topDepthKm\": 10}, \"durationKyr\": 10}").post(PATH), "crust.thicknessKm");
+    }
+
+    @Test
     void aUniformTemperatureAndAGeothermTogetherAreRefused() {
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
                 ", \"durationKyr\": 10, \"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}")).post(PATH),

@@ -48,7 +48,7 @@ class LowerCrustHeatingCommonPracticeTest {
         double hottest = 0;
         for (int i = 0; i < start.depth().length; i++) {
             double z = start.depth()[i];
-            if (!start.intrusion()[i] && z >= 34e3 && z <= 40.5e3) {
+            if (!start.intrusion(i) && z >= 34e3 && z <= 40.5e3) {
                 coldest = Math.min(coldest, start.temperature()[i]);
                 hottest = Math.max(hottest, start.temperature()[i]);
             }
@@ -62,7 +62,7 @@ class LowerCrustHeatingCommonPracticeTest {
         for (SillResult.Profile p : r.profiles()) {
             assertEquals(start.depth().length, p.depth().length, "one sill: the cells stay in place");
             for (int i = 0; i < p.depth().length; i++) {
-                if (!p.intrusion()[i] && p.meltFraction()[i] > 0) {
+                if (!p.intrusion(i) && p.meltFraction()[i] > 0) {
                     leastHeatingOfMeltingRock = Math.min(leastHeatingOfMeltingRock,
                             p.temperature()[i] - start.temperature()[i]);
                 }

@@ -90,6 +90,12 @@ public final class SillModel {
                     + "problems: a review. International Journal for Numerical Methods in Engineering 30, 875-898",
             "10.1002/nme.1620300419");
 
+    private static final byte CRUST = 0;
+    private static final byte INTRUSION = 1;
+    private static final byte MANTLE = 2;
+    private static final SillResult.Material[] MATERIALS = {SillResult.Material.CRUST, SillResult.Material.INTRUSION,
+        SillResult.Material.MANTLE};
+
     /** Melt fraction from which rock counts as partially molten (and crustal melting as started). */
     public static final double MELT_PRESENT = 1e-3;
     /** Newton stops when every cell's residual, as a temperature H/(ρc), is below this (K). */
@@ -173,13 +179,29 @@ public final class SillModel {
      * @param profileTimes    times (s) at which to return whole profiles (may be empty)
      * @param profileSpacing  spacing of profile samples (m); rounded to whole cells, at least one cell
      * @param numerics        tolerance and work limits
+     * @param mantle          non-melting rock below the Moho, or {@code null} when the whole column is crust
+     * @param mohoDepth       depth of the crust's base (m); ignored without a mantle
      */
     public record Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
                         double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
-                        double profileSpacing, Numerics numerics) {
+                        double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth) {
+
+        /** A column of crust only, from the surface to its base. */
+        public Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
+                     double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
+                     double profileSpacing, Numerics numerics) {
+            this(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery, profileTimes,
+                    profileSpacing, numerics, null, Double.POSITIVE_INFINITY);
+        }
 
         /** Validates the geometry and times. */
         public Setup {
+            if (mantle != null && !(mohoDepth > 0)) {
+                throw new EngineException("a mantle needs a Moho deeper than the surface");
+            }
+            if (mantle != null && mantle.meltCurve() != null) {
+                throw new EngineException("the mantle below the Moho does not melt in this model");
+            }
             if (crust == null || intrusion == null || initial == null || intrusions == null || numerics == null) {
                 throw new EngineException("a sill model needs crust, intrusion, initial state, intrusions and numerics");
             }
@@ -229,7 +251,7 @@ public final class SillModel {
          */
         public double restartStep() {
             double kappa = 0;
-            for (Rock r : new Rock[] {crust, intrusion}) {
+            for (Rock r : mantle == null ? new Rock[] {crust, intrusion} : new Rock[] {crust, intrusion, mantle}) {
                 for (double t : new double[] {273.15, intrusions.temperature(), initial.surfaceTemperature()}) {
                     kappa = Math.max(kappa, r.diffusivity(t));
                 }
@@ -295,6 +317,7 @@ public final class SillModel {
         private final EnthalpyCurve[] rocks;
         private final ConductivityLaw[] laws;
         private final double[] constantK;
+        private final boolean hasMantle;
         private final double[] invRhoC;
         private final boolean constK;
         private final double tolerance;
@@ -359,6 +382,8 @@ public final class SillModel {
         private int mIntrCells;
         private double mFirst;
         private double mMaxT;
+        private double mMaxMantleT;
+        private double maxMantleAll = Double.NEGATIVE_INFINITY;
         /** Δt_n/Δt_{n−1} of the step being taken (0 after an emplacement) and the largest |Δθ − ratio·Δθ_prev|. */
         private double ratio;
         private double errMax;
@@ -376,11 +401,15 @@ public final class SillModel {
             this.s = setup;
             this.checkpoint = checkpoint;
             this.dz = setup.gridSpacing();
-            this.rocks = new EnthalpyCurve[] {new EnthalpyCurve(setup.crust()), new EnthalpyCurve(setup.intrusion())};
-            this.laws = new ConductivityLaw[] {setup.crust().conductivity(), setup.intrusion().conductivity()};
-            this.constK = laws[0].isConstant() && laws[1].isConstant();
-            this.constantK = new double[] {laws[0].at(300), laws[1].at(300)};
-            this.invRhoC = new double[] {rocks[0].invRhoC(), rocks[1].invRhoC()};
+            Rock mantle = setup.mantle() == null ? setup.crust() : setup.mantle();
+            this.hasMantle = setup.mantle() != null;
+            this.rocks = new EnthalpyCurve[] {new EnthalpyCurve(setup.crust()), new EnthalpyCurve(setup.intrusion()),
+                new EnthalpyCurve(mantle)};
+            this.laws = new ConductivityLaw[] {setup.crust().conductivity(), setup.intrusion().conductivity(),
+                mantle.conductivity()};
+            this.constK = laws[0].isConstant() && laws[1].isConstant() && laws[2].isConstant();
+            this.constantK = new double[] {laws[0].at(300), laws[1].at(300), laws[2].at(300)};
+            this.invRhoC = new double[] {rocks[0].invRhoC(), rocks[1].invRhoC(), rocks[2].invRhoC()};
             this.tolerance = setup.numerics().toleranceK();
             this.tTop = setup.initial().surfaceTemperature();
             this.qBase = setup.initial().basalHeatFlow(setup.columnDepth());
@@ -420,6 +449,7 @@ public final class SillModel {
             rock = new byte[cap0];
             for (int i = 0; i < n; i++) {
                 double z = (i + 0.5) * dz;
+                rock[i] = (byte) (hasMantle && z >= setup.mohoDepth() ? MANTLE : CRUST);
                 temp[i] = setup.initial().temperature(z);
                 heat[i] = setup.initial().heatProduction(z);
                 sourcePerArea += heat[i] * dz;
@@ -428,8 +458,8 @@ public final class SillModel {
                 relaxToSteadyState();
             }
             for (int i = 0; i < n; i++) {
-                h[i] = rocks[0].enthalpy(temp[i]);
-                seg[i] = rocks[0].segment(h[i]);
+                h[i] = rocks[rock[i]].enthalpy(temp[i]);
+                seg[i] = rocks[rock[i]].segment(h[i]);
                 hOrigin[i] = h[i];
             }
             baseInitial = temp[n - 1];
@@ -445,13 +475,12 @@ public final class SillModel {
         private void relaxToSteadyState() {
             double[] sampled = java.util.Arrays.copyOf(temp, n);
             double dz2 = dz * dz;
-            ConductivityLaw law = laws[0];
             double change = Double.POSITIVE_INFINITY;
             int iterations = 0;
             while (change > 1e-7 && iterations < 200) {
                 iterations++;
                 for (int i = 0; i < n; i++) {
-                    kc[i] = law.at(temp[i]);
+                    kc[i] = laws[rock[i]].at(temp[i]);
                 }
                 for (int i = 0; i < n; i++) {
                     double gA = i == 0 ? 2 * kc[0] / dz2 : 2 * kc[i - 1] * kc[i] / ((kc[i - 1] + kc[i]) * dz2);
@@ -467,7 +496,8 @@ public final class SillModel {
                     change = Math.max(change, Math.abs(rhs[i] - temp[i]));
                     temp[i] = rhs[i];
                 }
-                if (law.isConstant()) {
+                if (constK) {
+                    change = 0; // one solve is exact when no conductivity depends on temperature
                     break;
                 }
             }
@@ -483,8 +513,8 @@ public final class SillModel {
                 }
             }
             if (largest > 1.0) {
-                warnings.add(String.format(Locale.ROOT, "the initial state is the steady geotherm under the crust's "
-                        + "conductivity law, which differs from the constant-conductivity closed form by up to %.0f K "
+                warnings.add(String.format(Locale.ROOT, "the initial state is the steady geotherm under the rocks' "
+                        + "conductivities, which differs from the constant-conductivity closed form by up to %.0f K "
                         + "(%.1f km deep)", largest, (where + 0.5) * dz / 1e3));
             }
         }
@@ -673,7 +703,7 @@ public final class SillModel {
             for (int i = j; i < j + m; i++) {
                 h[i] = sillEnthalpy;
                 seg[i] = sillSegment;
-                rock[i] = 1;
+                rock[i] = INTRUSION;
                 sill[i] = emplaced;
                 heat[i] = 0;
                 hOrigin[i] = sillEnthalpy;
@@ -727,7 +757,11 @@ public final class SillModel {
                 kc[i] = laws[r].at(t);
             }
             double f = c.fraction(hi, sg, t);
-            if (r == 0) {
+            if (r == MANTLE) {
+                if (t > mMaxMantleT) {
+                    mMaxMantleT = t;
+                }
+            } else if (r == CRUST) {
                 mMelt += f;
                 if (f >= MELT_PRESENT) {
                     mPartial++;
@@ -755,6 +789,7 @@ public final class SillModel {
             mIntrCells = 0;
             mFirst = 0;
             mMaxT = Double.NEGATIVE_INFINITY;
+            mMaxMantleT = Double.NEGATIVE_INFINITY;
         }
 
         private void finishMeasurements() {
@@ -765,6 +800,7 @@ public final class SillModel {
             firstSillMelt = mFirst * dz;
             maxT = mMaxT;
             maxTAll = Math.max(maxTAll, mMaxT);
+            maxMantleAll = Math.max(maxMantleAll, mMaxMantleT);
             int i = topIndex;
             contactT = i == 0 ? tTop : (kc[i - 1] * temp[i - 1] + kc[i] * temp[i]) / (kc[i - 1] + kc[i]);
         }
@@ -926,13 +962,13 @@ public final class SillModel {
             double[] depth = new double[count];
             double[] tt = new double[count];
             double[] ff = new double[count];
-            boolean[] intr = new boolean[count];
+            SillResult.Material[] intr = new SillResult.Material[count];
             for (int k = 0; k < count; k++) {
                 int i = k * stride;
                 depth[k] = (i + 0.5) * dz;
                 tt[k] = temp[i];
                 ff[k] = rocks[rock[i]].fraction(h[i], seg[i], temp[i]);
-                intr[k] = rock[i] == 1;
+                intr[k] = MATERIALS[rock[i]];
             }
             profiles.add(new SillResult.Profile(t, depth, tt, ff, intr));
         }
@@ -956,7 +992,7 @@ public final class SillModel {
             if (solidification == null) {
                 warnings.add("the first sill still holds melt at the end of the run: solidificationTime is null");
             }
-            if (!laws[0].isConstant() || !laws[1].isConstant()) {
+            if (!constK) {
                 if (maxTAll > Miao2014Conductivity.MAX_MEASURED_K) {
                     warnings.add(String.format(Locale.ROOT, "temperatures reach %.0f K: the conductivity law is "
                             + "extrapolated above %.0f K, the top of its measurements", maxTAll,
@@ -970,7 +1006,8 @@ public final class SillModel {
                         baseChange));
             }
             SillResult.Summary summary = new SillResult.Summary(solidification, firstCrustMelt, peakMelt,
-                    peakMelt > 0 ? peakTime : null, errorFraction, emplaced, emplacedCells * dz, topIndex * dz);
+                    peakMelt > 0 ? peakTime : null, errorFraction, emplaced, emplacedCells * dz, topIndex * dz,
+                    hasMantle && maxMantleAll > 0 ? maxMantleAll : null);
             SillResult.Numerics numbers = new SillResult.Numerics(n, steps, rejected, solves, cellSteps);
             return new SillResult(series, summary, profiles, numbers, warnings);
         }

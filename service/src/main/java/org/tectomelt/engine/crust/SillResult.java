@@ -53,10 +53,22 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param sillsEmplaced             number of sills emplaced within the run
      * @param emplacedThickness         total thickness of intrusion emplaced (m), after rounding to whole cells
      * @param topDepth                  depth of the roof of the intrusions (m), after rounding to a cell face
+     * @param maxMantleTemperature      highest temperature (K) the mantle below the Moho reached; {@code null}
+     *                                  without a mantle
      */
     public record Summary(Double solidificationTime, Double timeToFirstCrustMelt, double peakCrustMeltThickness,
                           Double peakTime, double energyErrorFraction, int sillsEmplaced, double emplacedThickness,
-                          double topDepth) {
+                          double topDepth, Double maxMantleTemperature) {
+    }
+
+    /** What a cell holds. */
+    public enum Material {
+        /** Country rock above the Moho (the rock whose melting is tracked). */
+        CRUST,
+        /** Emplaced intrusion. */
+        INTRUSION,
+        /** Non-melting rock below the Moho. */
+        MANTLE
     }
 
     /**
@@ -66,10 +78,15 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param depth        depths (m)
      * @param temperature  temperatures (K)
      * @param meltFraction melt fractions
-     * @param intrusion    true where the cell is intrusion, false where it is crust
+     * @param material     what each sampled cell holds
      */
     public record Profile(double time, double[] depth, double[] temperature, double[] meltFraction,
-                          boolean[] intrusion) {
+                          Material[] material) {
+
+        /** True where the sample is intrusion. */
+        public boolean intrusion(int i) {
+            return material[i] == Material.INTRUSION;
+        }
     }
 
     /**

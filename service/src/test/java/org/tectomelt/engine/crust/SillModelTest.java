@@ -89,7 +89,7 @@ class SillModelTest {
         SillResult.Profile p = r.profiles().get(0);
         double after = 0;
         for (int i = 0; i < p.depth().length; i++) {
-            Rock rock = p.intrusion()[i] ? BASALT : CRUST;
+            Rock rock = p.intrusion(i) ? BASALT : CRUST;
             after += rock.enthalpy(p.temperature()[i]) * dz;
         }
         double before = CRUST.enthalpy(t0) * column + 3 * 100 * BASALT.enthalpy(C0 + 1230);
@@ -113,8 +113,8 @@ class SillModelTest {
             SillResult.Profile p = r.profiles().get(0); // just after the third emplacement
             int top = index(p, 1050);
             int bottom = index(p, 1250);
-            assertTrue(p.intrusion()[index(p, 1005)] && p.intrusion()[index(p, 1295)] && !p.intrusion()[index(p, 1305)]
-                    && !p.intrusion()[index(p, 995)], "the stack fills 1000-1300 m");
+            assertTrue(p.intrusion(index(p, 1005)) && p.intrusion(index(p, 1295)) && !p.intrusion(index(p, 1305))
+                    && !p.intrusion(index(p, 995)), "the stack fills 1000-1300 m");
             double fresh = C0 + 1230;
             if (stacking == SillModel.Stacking.UNDER) {
                 assertEquals(fresh, p.temperature()[bottom], 1e-9);
@@ -136,6 +136,33 @@ class SillModelTest {
             }
         }
         return best;
+    }
+
+    @Test
+    void belowTheMohoTheMantleNeitherMeltsNorCountsAsCrustAndSillsAtTheMohoPushItDown() {
+        Rock mantle = new Rock(3300, 1000, 0, ConductivityLaw.constant(3.0), null);
+        SillModel.Setup s = new SillModel.Setup(CRUST, BASALT, new InitialState.Uniform(C0 + 700),
+                new SillModel.Intrusions(100, 3000, C0 + 1230, 2, 1 * KYR, SillModel.Stacking.UNDER), 5000, 10,
+                3 * KYR, 1 * KYR, List.of(0.0, 3 * KYR), 10, SillModel.Numerics.DEFAULT, mantle, 3000);
+        SillResult r = SillModel.run(s);
+        SillResult.Profile end = r.profiles().get(1);
+        for (int i = 0; i < end.depth().length; i++) {
+            double z = end.depth()[i];
+            SillResult.Material expected = z < 3000 ? SillResult.Material.CRUST
+                    : z < 3200 ? SillResult.Material.INTRUSION : SillResult.Material.MANTLE;
+            assertEquals(expected, end.material()[i], "at " + z + " m");
+            if (expected == SillResult.Material.MANTLE) {
+                assertEquals(0, end.meltFraction()[i], 0);
+            }
+        }
+        // the mantle right under the sills is heated far above its 700 °C start but holds no melt, while the
+        // crust above them melts
+        assertTrue(r.summary().maxMantleTemperature() > C0 + 900, "mantle " + (r.summary().maxMantleTemperature() - C0));
+        assertTrue(r.summary().peakCrustMeltThickness() > 0);
+        assertTrue(r.summary().energyErrorFraction() < 1e-9);
+        assertNull(SillModel.run(setup(CRUST, BASALT, new InitialState.Uniform(C0 + 700),
+                SillModel.Intrusions.single(100, 1000, C0 + 1230), 3000, 10, 1 * KYR, 1 * KYR, List.of()))
+                .summary().maxMantleTemperature());
     }
 
     @Test
