@@ -183,6 +183,18 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         return drySolidus(p) - solidusDepression(waterInMelt(p, 0.0, bulkWater));
     }
 
+    /** Same as {@link #wetSolidus}. */
+    @Override
+    public double solidus(double p, double bulkWater) {
+        return wetSolidus(p, bulkWater);
+    }
+
+    /** Same as {@link #wetLiquidus}. */
+    @Override
+    public double liquidus(double p, double bulkWater) {
+        return wetLiquidus(p, bulkWater);
+    }
+
     /** Liquidus (K) at bulk water: the melt carries all the water, capped at saturation. */
     public double wetLiquidus(double p, double bulkWater) {
         return dryLiquidus(p) - solidusDepression(waterInMelt(p, 1.0, bulkWater));
@@ -229,7 +241,8 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
                 saturated, cpxOut, warnings);
     }
 
-    /** Melt fraction only (the hot path of columns and batches). */
+    /** Melt fraction only (the hot path of columns and batches); no range check. */
+    @Override
     public double meltFraction(double p, double t, double bulkWater) {
         if (bulkWater <= 0) {
             return dryMeltFraction(p, t);
