@@ -71,6 +71,7 @@ public final class App {
         // thermal: geotherm routes
 
         // melting: lithologies, melt fraction, solidus crossings
+        all.addAll(MeltingRoutes.routes());
 
         // settings: decompression column, ridge, hotspot, rift
 
