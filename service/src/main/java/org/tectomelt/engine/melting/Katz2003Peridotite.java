@@ -217,10 +217,17 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         double tl = lherzoliteLiquidus(p);
         double fCpx = cpxExhaustionFraction(p);
         double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
+        return dryMeltFraction(t, ts, tl, dryLiquidus(p), fCpx, tCpx);
+    }
+
+    /** The dry melt-fraction law with the curves at one pressure already evaluated (all K). */
+    private static double dryMeltFraction(double t, double ts, double tl, double tq, double fCpx, double tCpx) {
+        if (t <= ts) {
+            return 0.0;
+        }
         if (t < tCpx) {
             return Math.pow((t - ts) / (tl - ts), BETA1);
         }
-        double tq = dryLiquidus(p);
         if (t >= tq) {
             return 1.0;
         }
@@ -247,15 +254,23 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         if (bulkWater <= 0) {
             return dryMeltFraction(p, t);
         }
-        if (dryMeltFraction(p, t + solidusDepression(waterInMelt(p, 0.0, bulkWater))) <= 0) {
+        // the curves depend on pressure only: evaluate them once, outside the root finding
+        double ts = drySolidus(p);
+        double tl = lherzoliteLiquidus(p);
+        double tq = dryLiquidus(p);
+        double fCpx = cpxExhaustionFraction(p);
+        double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
+        double xSat = waterSaturation(p);
+        if (dryMeltFraction(t + solidusDepression(Math.min(bulkWater / D_WATER, xSat)), ts, tl, tq, fCpx, tCpx) <= 0) {
             return 0.0;
         }
-        if (dryMeltFraction(p, t + solidusDepression(waterInMelt(p, 1.0, bulkWater))) >= 1.0) {
+        if (dryMeltFraction(t + solidusDepression(Math.min(bulkWater, xSat)), ts, tl, tq, fCpx, tCpx) >= 1.0) {
             return 1.0;
         }
         BrentSolver solver = new BrentSolver(ROOT_ACCURACY);
-        return solver.solve(MAX_EVALUATIONS,
-                f -> f - dryMeltFraction(p, t + solidusDepression(waterInMelt(p, f, bulkWater))), 0.0, 1.0);
+        return solver.solve(MAX_EVALUATIONS, f -> f - dryMeltFraction(
+                t + solidusDepression(Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), xSat)),
+                ts, tl, tq, fCpx, tCpx), 0.0, 1.0);
     }
 
     @Override
