@@ -146,10 +146,14 @@ public record McKenzieBickle1988Peridotite() implements MantleLithology {
     @Override
     public double meltFraction(double p, double t, double bulkWater) {
         double ts = drySolidus(p);
+        return t <= ts ? 0.0 : fractionBetween(t, ts, dryLiquidus(p));
+    }
+
+    /** X at temperature t between the solidus ts and liquidus tl (all K). */
+    private static double fractionBetween(double t, double ts, double tl) {
         if (t <= ts) {
             return 0.0;
         }
-        double tl = dryLiquidus(p);
         if (t >= tl) {
             return 1.0;
         }
@@ -160,7 +164,8 @@ public record McKenzieBickle1988Peridotite() implements MantleLithology {
     public MeltState melt(double p, double t, double bulkWater) {
         List<String> warnings = check(p, bulkWater);
         double ts = drySolidus(p);
-        return new MeltState(meltFraction(p, t, bulkWater), ts, ts, dryLiquidus(p), 0.0, false, false, warnings);
+        double tl = dryLiquidus(p);
+        return new MeltState(fractionBetween(t, ts, tl), ts, ts, tl, 0.0, false, false, warnings);
     }
 
     /** Temperature (K) at which the melt fraction is {@code f}: X(T′) inverted by Brent's method. */
@@ -185,20 +190,22 @@ public record McKenzieBickle1988Peridotite() implements MantleLithology {
 
     /**
      * Principal branch of the Lambert W function, w·e^w = x, for x ≥ 0: Winitzki's (2003)
-     * approximation refined by Halley steps to machine precision.
+     * approximation (relative error below about 1e-2) refined by Halley steps. Halley's method
+     * converges cubically, so once a step is below 1e-6 of w the remaining error is below about
+     * 1e-18 and the loop stops; two steps are the usual count.
      */
     static double lambertW(double x) {
         if (x == 0) {
             return 0.0;
         }
-        double l = Math.log1p(x);
-        double w = l * (1.0 - Math.log1p(l) / (2.0 + l));
-        for (int i = 0; i < 8; i++) {
+        double l = Math.log(1.0 + x);
+        double w = l * (1.0 - Math.log(1.0 + l) / (2.0 + l));
+        for (int i = 0; i < 6; i++) {
             double ew = Math.exp(w);
             double fw = w * ew - x;
             double step = fw / (ew * (w + 1.0) - (w + 2.0) * fw / (2.0 * w + 2.0));
             w -= step;
-            if (Math.abs(step) <= 1e-15 * Math.max(1.0, Math.abs(w))) {
+            if (Math.abs(step) <= 1e-6 * Math.abs(w)) {
                 break;
             }
         }
