@@ -97,8 +97,8 @@ final class MeltingRoutes {
     record PathSample(Double depthKm, Double temperatureC) {
     }
 
-    /** One of the path forms. */
-    record PathSpec(AdiabatPath adiabat, List<PathSample> points) {
+    /** One of the path forms; {@code geotherm} is a {@code POST /v1/geotherm} request body. */
+    record PathSpec(GeothermRoutes.GeothermRequest geotherm, AdiabatPath adiabat, List<PathSample> points) {
     }
 
     /** Request body of {@code /v1/solidus-crossings}. */
@@ -197,9 +197,21 @@ final class MeltingRoutes {
         if (!v.present("path", path)) {
             v.throwIfInvalid();
         }
-        int forms = (path.adiabat() != null ? 1 : 0) + (path.points() != null ? 1 : 0);
+        int forms = (path.geotherm() != null ? 1 : 0) + (path.adiabat() != null ? 1 : 0)
+                + (path.points() != null ? 1 : 0);
         if (forms != 1) {
-            v.error("path", "give exactly one of path.adiabat or path.points");
+            v.error("path", "give exactly one of path.geotherm, path.adiabat or path.points");
+        }
+        if (path.geotherm() != null) {
+            // generated clients send documented defaults; only a value that would change the column is refused
+            String[] fields = {"crustThicknessKm", "crustDensityKgPerM3", "mantleDensityKgPerM3"};
+            Double[] given = {req.crustThicknessKm(), req.crustDensityKgPerM3(), req.mantleDensityKgPerM3()};
+            double[] defaults = {0, LithostaticColumn.CRUST_DENSITY, LithostaticColumn.MANTLE_DENSITY};
+            for (int i = 0; i < fields.length; i++) {
+                v.check(given[i] == null || given[i] == defaults[i], fields[i], "does not apply with path.geotherm: "
+                        + "the geotherm brings its own pressure column (path.geotherm.lithosphere.crustThicknessKm for "
+                        + "a continental one); leave it out");
+            }
         }
         v.throwIfInvalid();
         LithostaticColumn column = new LithostaticColumn(Units.kmToM(crustKm), rhoC, rhoM, LithostaticColumn.G);
@@ -208,7 +220,34 @@ final class MeltingRoutes {
         List<ModelInfo> models = new ArrayList<>(lithology.citations());
         models.add(LithostaticColumn.INFO);
         SolidusCrossings.Result result;
-        if (path.adiabat() != null) {
+        if (path.geotherm() != null) {
+            Validation vg = v.at("path").at("geotherm");
+            GeothermRoutes.BuiltGeotherm g = GeothermRoutes.build(vg, path.geotherm());
+            double[] depths = g.depths();
+            double deepest = depths[depths.length - 1];
+            if (g.column().pressureAt(deepest) > lithology.hardMaxPressure()) {
+                double limitKm = Math.floor(Units.mToKm(g.column().depthAt(lithology.hardMaxPressure())) * 10) / 10;
+                vg.error("maxDepthKm", String.format(Locale.ROOT, "reaches %.2f GPa at %s km, beyond the %s GPa up to "
+                        + "which '%s' gives a number: give maxDepthKm of at most %s km",
+                        Units.paToGpa(g.column().pressureAt(deepest)), Validation.format(Units.mToKm(deepest)),
+                        Validation.format(Units.paToGpa(lithology.hardMaxPressure())), lithology.id(),
+                        Validation.format(limitKm)));
+                v.throwIfInvalid();
+            }
+            double[] temperatures = new double[depths.length];
+            List<PathPoint> points = new ArrayList<>(depths.length);
+            for (int i = 0; i < depths.length; i++) {
+                temperatures[i] = g.geotherm().temperatureAt(depths[i]);
+                points.add(new PathPoint(depths[i], temperatures[i]));
+            }
+            SolidusCrossings.Result r = SolidusCrossings.along(lithology, water, g.column(), points);
+            List<String> warnings = new ArrayList<>(g.allWarnings(temperatures));
+            warnings.addAll(r.warnings());
+            result = new SolidusCrossings.Result(r.crossings(), r.profile(), r.meltPresent(), r.maxMeltFraction(),
+                    warnings);
+            models = new ArrayList<>(lithology.citations());
+            models.addAll(g.models());
+        } else if (path.adiabat() != null) {
             AdiabatPath a = path.adiabat();
             Validation va = v.at("path").at("adiabat");
             if (!(lithology instanceof MantleLithology mantle)) {

@@ -279,6 +279,68 @@ class MeltingContractTest {
     }
 
     @Test
+    void aGeothermPathIsSampledFromTheSurfaceDownWithItsOwnColumn() {
+        // an invented 25 Myr plate over a 1380 °C adiabat, sampled every 20 km on purpose
+        JsonPath r = TestServer.json("{\"lithology\": \"peridotite-katz2003\", \"path\": {\"geotherm\": {\"lithosphere\":"
+                + " {\"type\": \"oceanic-plate\", \"ageMyr\": 25}, \"potentialTemperatureC\": 1380, \"maxDepthKm\": 160,"
+                + " \"stepKm\": 20}}}").post(CROSSINGS).then()
+                .statusCode(200)
+                .body("profile", hasSize(9))
+                .body("profile[0].depthKm", closeTo(0, 0))
+                .body("crossings.curve", equalTo(List.of("solidus", "solidus")))
+                .body("crossings.direction", equalTo(List.of("into-melt", "out-of-melt")))
+                .body("models.id", hasItem("oceanic-plate-cooling"))
+                .body("models.id", hasItem("peridotite-katz2003"))
+                .extract().jsonPath();
+        for (int i = 0; i < 2; i++) {
+            double p = r.getDouble("crossings[" + i + "].pressureGPa");
+            // on the Katz et al. (2003) dry solidus, Table 2 polynomial (REFERENCES §2.1)
+            assertEquals(1085.7 + 132.9 * p - 5.1 * p * p, r.getDouble("crossings[" + i + "].temperatureC"), 1e-6);
+            double z = r.getDouble("crossings[" + i + "].depthKm");
+            assertEquals(true, z % 20 > 0.1 && z % 20 < 19.9, "between samples: " + z);
+        }
+        // the same samples as the geotherm endpoint returns for the same body
+        JsonPath g = TestServer.json("{\"lithosphere\": {\"type\": \"oceanic-plate\", \"ageMyr\": 25},"
+                + " \"potentialTemperatureC\": 1380, \"maxDepthKm\": 160, \"stepKm\": 20}").post("/v1/geotherm").then()
+                .statusCode(200).extract().jsonPath();
+        for (int i = 0; i < 9; i++) {
+            assertEquals(g.getDouble("points[" + i + "].temperatureC"), r.getDouble("profile[" + i + "].temperatureC"), 1e-9);
+            assertEquals(g.getDouble("points[" + i + "].pressureGPa"), r.getDouble("profile[" + i + "].pressureGPa"), 1e-12);
+        }
+    }
+
+    @Test
+    void aContinentalGeothermCarriesItsCrustIntoTheCrustalMeltingCheck() {
+        JsonPath r = TestServer.json("{\"lithology\": \"granite-water-saturated\", \"path\": {\"geotherm\": {\"lithosphere\":"
+                + " {\"type\": \"continental\", \"surfaceHeatFlowMWPerM2\": 90, \"crustThicknessKm\": 40},"
+                + " \"maxDepthKm\": 40, \"stepKm\": 5}}}").post(CROSSINGS).then()
+                .statusCode(200)
+                .body("crossings[0].curve", equalTo("solidus"))
+                .body("crossings[0].direction", equalTo("into-melt"))
+                .body("warnings", hasItem(containsString("approximate")))
+                .extract().jsonPath();
+        double z = r.getDouble("crossings[0].depthKm");
+        // within the crust the column is ρc g z with the default 2800 kg/m³ (REFERENCES §1.1)
+        assertEquals(2800 * 9.81 * z * 1e3 / 1e9, r.getDouble("crossings[0].pressureGPa"), 1e-9);
+        double t = r.getDouble("crossings[0].temperatureC");
+        assertEquals(true, t >= 620 && t <= 680, "on the Huang & Wyllie (1973) solidus: " + t);
+    }
+
+    @Test
+    void geothermPathsAreValidatedUnderTheirOwnPrefix() {
+        assertInvalidField(TestServer.json("{\"lithology\": \"peridotite-katz2003\", \"path\": {\"geotherm\":"
+                + " {\"lithosphere\": {\"type\": \"oceanic-plate\"}}}}").post(CROSSINGS), "path.geotherm.lithosphere.ageMyr");
+        assertInvalidField(TestServer.json("{\"lithology\": \"granite-water-saturated\", \"path\": {\"geotherm\":"
+                + " {\"lithosphere\": {\"type\": \"continental\", \"surfaceHeatFlowMWPerM2\": 60}}}}").post(CROSSINGS),
+                "path.geotherm.maxDepthKm")
+                .body("errors[0].message", containsString("at most"));
+        assertInvalidField(TestServer.json("{\"lithology\": \"peridotite-katz2003\", \"crustThicknessKm\": 30,"
+                + " \"path\": {\"geotherm\": {\"potentialTemperatureC\": 1350}}}").post(CROSSINGS), "crustThicknessKm");
+        assertInvalidField(TestServer.json("{\"lithology\": \"peridotite-katz2003\", \"path\": {\"geotherm\":"
+                + " {\"potentialTemperatureC\": 1350, \"stepKm\": 0.01}}}").post(CROSSINGS), "path.geotherm.stepKm");
+    }
+
+    @Test
     void badPathsAreRefusedNamingTheField() {
         assertInvalidField(TestServer.json("{\"lithology\": \"peridotite-katz2003\"}").post(CROSSINGS), "path");
         assertInvalidField(TestServer.json("{\"lithology\": \"peridotite-katz2003\", \"path\": {}}").post(CROSSINGS), "path");

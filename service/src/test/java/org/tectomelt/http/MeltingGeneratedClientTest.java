@@ -11,6 +11,8 @@ import org.tectomelt.client.ApiClient;
 import org.tectomelt.client.ApiException;
 import org.tectomelt.client.api.MeltingApi;
 import org.tectomelt.client.model.AdiabatPath;
+import org.tectomelt.client.model.Crossing;
+import org.tectomelt.client.model.GeothermRequest;
 import org.tectomelt.client.model.LithologyInfo;
 import org.tectomelt.client.model.MeltCurvePoint;
 import org.tectomelt.client.model.MeltFractionRequest;
@@ -71,6 +73,18 @@ class MeltingGeneratedClientTest {
                         new PathSample().depthKm(30.0).temperatureC(850.0)))));
         assertEquals(800.0, own.getCrossings().get(0).getTemperatureC(), 1e-6);
         assertEquals(0.25, own.getMaxMeltFraction(), 1e-12);
+    }
+
+    @Test
+    void aGeothermPathThroughTheGeneratedClient() throws ApiException {
+        SolidusCrossingsResponse r = api().computeSolidusCrossings(new SolidusCrossingsRequest()
+                .lithology("peridotite-katz2003")
+                .bulkWaterWtPct(0.1)
+                .path(new Path().geotherm(new GeothermRequest().potentialTemperatureC(1350.0).maxDepthKm(250.0))));
+        assertEquals(251, r.getProfile().size());
+        assertTrue(r.getMeltPresent());
+        assertEquals(Crossing.DirectionEnum.OUT_OF_MELT, r.getCrossings().get(0).getDirection(),
+                "a geotherm runs from the surface down: the wet solidus is left behind with depth");
     }
 
     @Test
