@@ -257,6 +257,29 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         return tCpx + Math.pow((f - fCpx) / (1.0 - fCpx), 1.0 / BETA2) * (dryLiquidus(p) - tCpx) - dT;
     }
 
+    /** Cpx exhaustion: the second branch of the melting law starts there. */
+    @Override
+    public double exhaustionMeltFraction(double p) {
+        return cpxExhaustionFraction(p);
+    }
+
+    /** β1 above the solidus, β2 above cpx exhaustion: F − F₀ ∝ (T − T₀)^β there. */
+    @Override
+    public double branchExponent(boolean afterExhaustion) {
+        return afterExhaustion ? BETA2 : BETA1;
+    }
+
+    /** The solidus branch [(T − Ts)/(Tl − Ts)]^β1 is continued past cpx exhaustion with its own formula. */
+    @Override
+    public double temperatureOnBranch(double p, double f, double bulkWater, boolean afterExhaustion) {
+        if (afterExhaustion) {
+            return temperatureAt(p, f, bulkWater);
+        }
+        double ts = drySolidus(p);
+        return ts + Math.pow(f, 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts)
+                - solidusDepression(waterInMelt(p, f, bulkWater));
+    }
+
     private List<String> check(double p, double bulkWater) {
         if (!(p >= 0) || p > hardMaxPressure()) {
             throw new EngineException(String.format(Locale.ROOT,
