@@ -69,12 +69,14 @@ public final class App {
         all.addAll(MetaRoutes.routes());
         all.addAll(PressureRoutes.routes());
         // thermal: geotherm routes
+        all.addAll(GeothermRoutes.routes());
 
         // melting: lithologies, melt fraction, solidus crossings
 
         // settings: decompression column, ridge, hotspot, rift
 
         // settings: subduction
+        all.addAll(SubductionRoutes.routes());
 
         // crust: crustal heating budget and sill model
 
