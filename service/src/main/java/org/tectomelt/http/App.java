@@ -74,6 +74,7 @@ public final class App {
         // melting: lithologies, melt fraction, solidus crossings
 
         // settings: decompression column, ridge, hotspot, rift
+        all.addAll(DecompressionRoutes.routes());
 
         // settings: subduction
         all.addAll(SubductionRoutes.routes());
