@@ -13,7 +13,8 @@ import org.tectomelt.engine.ModelInfo;
  *                            the adiabat stays below the solidus at every pressure up to the surface
  * @param top                 where melting stops (base of the lid, or the surface); empty when nothing
  *                            melts in the column (no onset, or a lid deeper than the onset)
- * @param maxMeltFraction     the largest melt fraction reached in the column
+ * @param maxMeltFraction     the largest melt fraction reached in the column (over the integrator's
+ *                            steps, the output points and the top)
  * @param meanMeltFraction    column average (1/H)∫F dz over the melting height H (0 without melting)
  * @param meltIntegral        ∫F dz over the melting column (m)
  * @param meltThickness       melt thickness (m): ∫F dz for passive upwelling, F_max·H for active

@@ -130,8 +130,12 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
 
     private static final int SCAN_INTERVALS = 64;
     private static final int MAX_SEGMENTS = 50;
-    /** Event checks every 2 √m of σ (at most about 1 km of height for a 300 km column). */
-    private static final double EVENT_CHECK_INTERVAL = 2.0;
+    /**
+     * Events are checked at least every 25 √m of σ (every step end in practice). Their switching
+     * functions, F − F_exhaustion and u, change sign at most once within such an interval, so
+     * nothing is missed, and the check costs one interpolation per step instead of hundreds.
+     */
+    private static final double EVENT_CHECK_INTERVAL = 25.0;
     /** Event location to 1e-7 √m of σ (below a millimetre of height). */
     private static final double EVENT_CONVERGENCE = 1e-7;
     /** Below σ = 1 √m (1 m above a branch start) the productivity is computed directly, not from du/dσ. */
@@ -659,7 +663,9 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             });
             try {
                 double sEnd = integrator.integrate(ode, 0.0, y, sigmaTop, y);
-                return stop == Stop.TOP ? -zTop : t0 + sEnd * sEnd;
+                double tEnd = stop == Stop.TOP ? -zTop : t0 + sEnd * sEnd;
+                maxF = Math.max(maxF, fraction(b, pressures.pressureAt(-tEnd), power(Math.max(y[0], 0.0), n)));
+                return tEnd;
             } catch (MathIllegalStateException e) {
                 throw new EngineException("the melting column could not be integrated to the requested tolerance: "
                         + e.getMessage());
@@ -682,6 +688,7 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             double f = fraction(b, p, power(Math.max(u, 0), nByBranch[b]));
             double t = lithology.temperatureOnBranch(p, f, bulkWater, b == 1);
             double water = bulkWater > 0 && f > 0 ? lithology.melt(p, t, bulkWater).waterInMelt() : 0.0;
+            maxF = Math.max(maxF, f);
             return new ProfilePoint(z, p, t, f, productivity + 0.0, water);
         }
 
