@@ -583,7 +583,8 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
 
                 @Override
                 public void computeDerivatives(double sigma, double[] s, double[] ds) {
-                    double z = -(t0 + sigma * sigma);
+                    // σ² can overshoot the top by a rounding error: never evaluate above it
+                    double z = Math.max(-(t0 + sigma * sigma), zTop);
                     double p = pressures.pressureAt(z);
                     double dpdt = -pressureGradient(z);
                     rates.at(b, n, p, s[0]);
@@ -601,7 +602,7 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
                     integrator.addEventHandler(new Crossing(Stop.EXHAUSTED, true) {
                         @Override
                         public double g(double sigma, double[] s) {
-                            double p = pressures.pressureAt(-(t0 + sigma * sigma));
+                            double p = pressures.pressureAt(Math.max(-(t0 + sigma * sigma), zTop));
                             return power(Math.max(s[0], 0), n) - lithology.exhaustionMeltFraction(p);
                         }
                     }, EVENT_CHECK_INTERVAL, EVENT_CONVERGENCE, EVENT_MAX_ITERATIONS);
@@ -635,7 +636,7 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
                 public void handleStep(StepInterpolator in, boolean isLast) {
                     double sPrev = in.getPreviousTime();
                     double sCur = in.getCurrentTime();
-                    double tCur = t0 + sCur * sCur;
+                    double tCur = Math.min(t0 + sCur * sCur, -zTop);
                     while (nextGrid > zTop + GRID_SLACK && -nextGrid <= tCur + GRID_SLACK) {
                         double sg = Math.min(Math.sqrt(Math.max(-nextGrid - t0, 0.0)), sCur);
                         if (sg < sPrev) {
@@ -687,7 +688,7 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             double p = pressures.pressureAt(z);
             double f = fraction(b, p, power(Math.max(u, 0), nByBranch[b]));
             double t = lithology.temperatureOnBranch(p, f, bulkWater, b == 1);
-            double water = bulkWater > 0 && f > 0 ? lithology.melt(p, t, bulkWater).waterInMelt() : 0.0;
+            double water = bulkWater > 0 && f > 0 ? lithology.waterInMelt(p, f, bulkWater) : 0.0;
             maxF = Math.max(maxF, f);
             return new ProfilePoint(z, p, t, f, productivity + 0.0, water);
         }

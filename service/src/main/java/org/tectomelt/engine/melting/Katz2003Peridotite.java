@@ -189,6 +189,7 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
     }
 
     /** Water in the melt (mass fraction) at melt fraction {@code f}: Xbulk / (D + F(1 − D)), capped at Xsat. */
+    @Override
     public double waterInMelt(double p, double f, double bulkWater) {
         if (bulkWater <= 0) {
             return 0.0;

@@ -56,4 +56,17 @@ public interface MantleLithology extends Lithology {
     default double temperatureOnBranch(double p, double f, double bulkWater, boolean afterExhaustion) {
         return temperatureAt(p, f, bulkWater);
     }
+
+    /**
+     * Water dissolved in the melt (mass fraction) when the rock holds melt fraction {@code f} at
+     * pressure {@code p} (Pa) with bulk water {@code bulkWater}, melt and residue in equilibrium
+     * (batch). The default asks {@link #melt} at {@link #temperatureAt}; hydrous models with a
+     * closed form override it.
+     */
+    default double waterInMelt(double p, double f, double bulkWater) {
+        if (bulkWater <= 0 || f <= 0) {
+            return 0.0;
+        }
+        return melt(p, temperatureAt(p, f, bulkWater), bulkWater).waterInMelt();
+    }
 }

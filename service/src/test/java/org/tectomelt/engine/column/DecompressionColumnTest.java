@@ -204,4 +204,33 @@ class DecompressionColumnTest {
             }
         }
     }
+
+    @Test
+    void hydrousColumnsReachTheSurfaceWithFiniteNumbers() {
+        // these once produced NaN on the last step, where σ² overshot the surface by a rounding error
+        double[][] cases = {{1250, 5e-5}, {1300, 5e-4}, {1450, 5e-4}, {1500, 5e-5}, {1200, 1e-3}};
+        for (double[] c : cases) {
+            ColumnResult r = DecompressionColumn.of(katz, c[0] + C, c[1]).withOutputStep(100).solve();
+            assertTrue(r.melts(), "Tp " + c[0]);
+            for (ProfilePoint p : r.profile()) {
+                assertTrue(Double.isFinite(p.productivity()) && Double.isFinite(p.temperature())
+                        && p.meltFraction() >= 0 && p.meltFraction() <= 1, "Tp " + c[0] + " at " + p.depth());
+            }
+            assertTrue(Double.isFinite(r.meltThickness()) && r.meltThickness() > 0);
+        }
+    }
+
+    @Test
+    void aColdWetColumnThatFreezesOnDegassingEndsOnTheSolidAdiabat() {
+        // the Katz et al. (2003) saturation limit vanishes at zero pressure: the last melt freezes
+        DecompressionColumn c = DecompressionColumn.of(katz, 1050 + C, 5e-4).withOutputStep(100);
+        ColumnResult r = c.solve();
+        assertTrue(r.warnings().stream().anyMatch(w -> w.contains("freezes completely")));
+        assertEquals(0.0, r.top().get().meltFraction(), 0.0);
+        assertEquals(c.adiabatTemperature(0.0), r.top().get().temperature(), 1e-9);
+        assertTrue(r.maxMeltFraction() > 0.01);
+        ProfilePoint last = r.profile().get(r.profile().size() - 1);
+        assertEquals(0.0, last.depth(), 0.0);
+        assertEquals(0.0, last.meltFraction(), 0.0);
+    }
 }
