@@ -75,6 +75,7 @@ public final class App {
         all.addAll(MeltingRoutes.routes());
 
         // settings: decompression column, ridge, hotspot, rift
+        all.addAll(DecompressionRoutes.routes());
 
         // settings: subduction
         all.addAll(SubductionRoutes.routes());

@@ -201,6 +201,7 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
     }
 
     /** Water in the melt (mass fraction) at melt fraction {@code f}: Xbulk / (D + F(1 − D)), capped at Xsat. */
+    @Override
     public double waterInMelt(double p, double f, double bulkWater) {
         if (bulkWater <= 0) {
             return 0.0;
@@ -283,6 +284,29 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         }
         double tCpx = cpxExhaustionTemperature(p);
         return tCpx + Math.pow((f - fCpx) / (1.0 - fCpx), 1.0 / BETA2) * (dryLiquidus(p) - tCpx) - dT;
+    }
+
+    /** Cpx exhaustion: the second branch of the melting law starts there. */
+    @Override
+    public double exhaustionMeltFraction(double p) {
+        return cpxExhaustionFraction(p);
+    }
+
+    /** β1 above the solidus, β2 above cpx exhaustion: F − F₀ ∝ (T − T₀)^β there. */
+    @Override
+    public double branchExponent(boolean afterExhaustion) {
+        return afterExhaustion ? BETA2 : BETA1;
+    }
+
+    /** The solidus branch [(T − Ts)/(Tl − Ts)]^β1 is continued past cpx exhaustion with its own formula. */
+    @Override
+    public double temperatureOnBranch(double p, double f, double bulkWater, boolean afterExhaustion) {
+        if (afterExhaustion) {
+            return temperatureAt(p, f, bulkWater);
+        }
+        double ts = drySolidus(p);
+        return ts + Math.pow(f, 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts)
+                - solidusDepression(waterInMelt(p, f, bulkWater));
     }
 
     private List<String> check(double p, double bulkWater) {
