@@ -13,8 +13,10 @@ import org.tectomelt.engine.crust.Miao2014Conductivity;
 import org.tectomelt.engine.crust.Rock;
 import org.tectomelt.engine.crust.SillModel;
 import org.tectomelt.engine.crust.SillResult;
+import org.tectomelt.engine.melting.CrustalLithology;
 import org.tectomelt.engine.melting.Lithologies;
 import org.tectomelt.engine.melting.MeltCurve;
+import org.tectomelt.engine.melting.ThermalProperties;
 import org.tectomelt.engine.thermal.ContinentalGeotherm;
 import org.tectomelt.engine.thermal.LithostaticColumn;
 import org.tectomelt.engine.units.Units;
@@ -52,6 +54,8 @@ final class CrustalHeatingRoutes {
     static final List<String> LAWS = List.of(LAW_CONSTANT, LAW_GRANITE, LAW_GABBRO);
     static final List<String> STACKINGS = List.of("under", "over");
     static final List<String> HEAT_PRODUCTIONS = List.of("exponential", "two-layer");
+    /** The intrusion's lithology when none is named. */
+    static final String DEFAULT_INTRUSION = "basalt";
 
     static final String LOWER_BOUND_NOTE = "No-loss lower bound: every joule the intrusion gives up is assumed to heat "
             + "this crustal layer, none is lost to the surface, to rock beyond the layer or to melt that leaves. "
@@ -135,23 +139,77 @@ final class CrustalHeatingRoutes {
         return new MeltCurve(tk, f);
     }
 
+    /** Ids accepted for {@code lithology}: the crustal rocks and intrusions of the catalogue. */
+    static List<String> crustalIds() {
+        return Lithologies.all().stream().filter(CrustalLithology.class::isInstance).map(l -> l.id()).toList();
+    }
+
+    /**
+     * One rock's density, heat capacity, latent heat and melt curve: the named lithology's defaults
+     * (issue-4 catalogue) under the request's explicit values, which are required when no lithology is
+     * named. The curve is the request's {@code meltCurve} or {@code meltingInterval}, else the
+     * lithology's curve at {@code pressure} (Pa).
+     */
+    record RockInput(CrustalLithology lithology, double density, double heatCapacity, double latentHeat,
+                     MeltCurve curve, List<String> warnings, boolean usedLithology) {
+
+        static RockInput read(Validation v, String role, String lithologyId, Double density, Double heatCapacity,
+                              Double latentHeat, List<MeltPoint> points, MeltingInterval interval, double pressure,
+                              boolean conductivityGiven) {
+            CrustalLithology lith = null;
+            if (lithologyId != null) {
+                lith = Lithologies.crustalById(lithologyId).orElse(null);
+                if (lith == null) {
+                    v.error("lithology", "must be one of " + crustalIds() + ", got '" + lithologyId + "'");
+                }
+            }
+            ThermalProperties defaults = lith == null ? null : lith.thermalProperties();
+            double rho = property(v, "densityKgPerM3", density, defaults == null ? null : defaults.density(), 1500, 4000);
+            double cp = property(v, "heatCapacityJPerKgK", heatCapacity,
+                    defaults == null ? null : defaults.heatCapacity(), 500, 2500);
+            double latent = property(v, "latentHeatJPerKg", latentHeat,
+                    defaults == null ? null : defaults.latentHeat(), 0, 1_000_000);
+            MeltCurve curve = meltCurve(v, points, interval);
+            List<String> warnings = new ArrayList<>();
+            boolean used = lith != null && (density == null || heatCapacity == null || latentHeat == null
+                    || !conductivityGiven || (points == null && interval == null));
+            if (curve == null && points == null && interval == null && lith != null && v.ok()) {
+                curve = lith.curveAt(pressure);
+                for (String w : lith.melt(pressure, curve.solidus(), 0).warnings()) {
+                    warnings.add(role + " (" + lith.id() + "): " + w);
+                }
+            }
+            return new RockInput(lith, rho, cp, latent, curve, warnings, used);
+        }
+
+        /** The lithology's citations, when it supplied anything. */
+        List<ModelInfo> citations() {
+            return usedLithology ? lithology.citations() : List.of();
+        }
+    }
+
+    /** A number that defaults to the lithology's value, or is required when there is none. */
+    private static double property(Validation v, String name, Double value, Double fallback, double min, double max) {
+        return fallback == null ? v.required(name, value, min, max) : v.optional(name, value, fallback, min, max);
+    }
+
     // ---------------------------------------------------------------------------------------
     // budget
 
     /** The crust in a budget request. */
-    record BudgetCrust(Double initialTemperatureC, Double densityKgPerM3, Double heatCapacityJPerKgK,
+    record BudgetCrust(String lithology, Double initialTemperatureC, Double densityKgPerM3, Double heatCapacityJPerKgK,
                        Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
                        Double targetMeltFraction, Double thicknessM) {
     }
 
     /** The intrusion in a budget request. */
-    record BudgetIntrusion(Double temperatureC, Double densityKgPerM3, Double heatCapacityJPerKgK,
+    record BudgetIntrusion(String lithology, Double temperatureC, Double densityKgPerM3, Double heatCapacityJPerKgK,
                            Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
                            Double crystallizedFraction, Double thicknessM) {
     }
 
     /** Budget request body. */
-    record BudgetRequest(BudgetCrust crust, BudgetIntrusion intrusion, Double finalTemperatureC) {
+    record BudgetRequest(BudgetCrust crust, BudgetIntrusion intrusion, Double finalTemperatureC, Double depthKm) {
     }
 
     /** Budget response body. */
@@ -169,13 +227,17 @@ final class CrustalHeatingRoutes {
         boolean haveIntrusion = v.present("intrusion", req.intrusion());
         v.throwIfInvalid();
 
+        double depthKm = req.depthKm() == null ? Double.NaN : v.optional("depthKm", req.depthKm(), 0, 0, 100);
         BudgetCrust c = req.crust();
         Validation cv = v.at("crust");
         double tc0 = cv.required("initialTemperatureC", c.initialTemperatureC(), 0, 1500);
-        double rhoC = cv.required("densityKgPerM3", c.densityKgPerM3(), 1500, 4000);
-        double cpC = cv.required("heatCapacityJPerKgK", c.heatCapacityJPerKgK(), 500, 2500);
-        double lC = cv.required("latentHeatJPerKg", c.latentHeatJPerKg(), 0, 1_000_000);
-        MeltCurve crustCurve = meltCurve(cv, c.meltCurve(), c.meltingInterval());
+        RockInput crustIn = RockInput.read(cv, "crust", c.lithology(), c.densityKgPerM3(), c.heatCapacityJPerKgK(),
+                c.latentHeatJPerKg(), c.meltCurve(), c.meltingInterval(), budgetPressure(c.lithology(), depthKm,
+                        c.densityKgPerM3()), true);
+        double rhoC = crustIn.density();
+        double cpC = crustIn.heatCapacity();
+        double lC = crustIn.latentHeat();
+        MeltCurve crustCurve = crustIn.curve();
         Double targetF = c.targetMeltFraction() == null ? null
                 : cv.optional("targetMeltFraction", c.targetMeltFraction(), 0, 0, 1);
         Double hc = c.thicknessM() == null ? null : cv.optional("thicknessM", c.thicknessM(), 0, 1, 100_000);
@@ -183,10 +245,14 @@ final class CrustalHeatingRoutes {
         BudgetIntrusion b = req.intrusion();
         Validation bv = v.at("intrusion");
         double tb0 = bv.required("temperatureC", b.temperatureC(), 500, 1600);
-        double rhoB = bv.required("densityKgPerM3", b.densityKgPerM3(), 1500, 4000);
-        double cpB = bv.required("heatCapacityJPerKgK", b.heatCapacityJPerKgK(), 500, 2500);
-        double lB = bv.required("latentHeatJPerKg", b.latentHeatJPerKg(), 0, 1_000_000);
-        MeltCurve intrusionCurve = meltCurve(bv, b.meltCurve(), b.meltingInterval());
+        String intrusionLith = b.lithology() != null ? b.lithology() : DEFAULT_INTRUSION;
+        RockInput intrusionIn = RockInput.read(bv, "intrusion", intrusionLith, b.densityKgPerM3(),
+                b.heatCapacityJPerKgK(), b.latentHeatJPerKg(), b.meltCurve(), b.meltingInterval(),
+                budgetPressure(intrusionLith, depthKm, b.densityKgPerM3()), true);
+        double rhoB = intrusionIn.density();
+        double cpB = intrusionIn.heatCapacity();
+        double lB = intrusionIn.latentHeat();
+        MeltCurve intrusionCurve = intrusionIn.curve();
         Double xb = b.crystallizedFraction() == null ? null
                 : bv.optional("crystallizedFraction", b.crystallizedFraction(), 0, 0, 1);
         Double hb = b.thicknessM() == null ? null : bv.optional("thicknessM", b.thicknessM(), 0, 0.01, 100_000);
@@ -198,12 +264,12 @@ final class CrustalHeatingRoutes {
             v.error("finalTemperatureC", "give finalTemperatureC, crust.targetMeltFraction, or both");
         }
         if (tf == null && targetF != null && crustCurve == null) {
-            v.error("crust.meltCurve", "a target melt fraction without finalTemperatureC needs the crust's meltCurve "
-                    + "or meltingInterval to find the final temperature");
+            v.error("crust.meltCurve", "a target melt fraction without finalTemperatureC needs the crust's lithology, "
+                    + "meltCurve or meltingInterval to find the final temperature");
         }
         if (tf != null && targetF == null && crustCurve == null) {
-            v.error("crust.targetMeltFraction", "give it, or the crust's meltCurve or meltingInterval, to know how "
-                    + "much the crust melts at finalTemperatureC");
+            v.error("crust.targetMeltFraction", "give it, or the crust's lithology, meltCurve or meltingInterval, to "
+                    + "know how much the crust melts at finalTemperatureC");
         }
         if (tf != null && (tf < tc0 || tf > tb0)) {
             v.error("finalTemperatureC", "must lie between crust.initialTemperatureC (" + Validation.format(tc0)
@@ -231,18 +297,48 @@ final class CrustalHeatingRoutes {
             }
             r = budget.atCrustMeltFraction(targetF, xb);
         }
+        List<String> warnings = new ArrayList<>(crustIn.warnings());
+        warnings.addAll(intrusionIn.warnings());
+        warnings.addAll(r.warnings());
+        List<ModelInfo> models = new ArrayList<>(List.of(HeatBudget.INFO));
+        addAll(models, crustIn.citations());
+        addAll(models, intrusionIn.citations());
         Responses.json(ctx, new BudgetResponse(Units.kelvinToCelsius(r.finalTemperature()), r.crustMeltFraction(),
                 r.crystallizedFraction(), r.heatReleased(), r.heatRequired(), r.thicknessRatio(),
                 hb == null ? null : r.heatReleased() * hb, hb == null ? null : r.crustThicknessFor(hb),
                 hc == null ? null : r.heatRequired() * hc, hc == null ? null : r.intrusionThicknessFor(hc),
-                LOWER_BOUND_NOTE, r.warnings(), List.of(HeatBudget.INFO)));
+                LOWER_BOUND_NOTE, warnings, models));
+    }
+
+    /** Adds each citation not yet listed. */
+    private static void addAll(List<ModelInfo> models, List<ModelInfo> more) {
+        for (ModelInfo m : more) {
+            if (!models.contains(m)) {
+                models.add(m);
+            }
+        }
+    }
+
+    /**
+     * Pressure (Pa) at which a budget reads a lithology's curve: at {@code depthKm} in a crust of the
+     * given (or the lithology's, or 2800 kg/m³) density, or without it at the middle of the lithology's
+     * calibrated pressure range.
+     */
+    private static double budgetPressure(String lithologyId, double depthKm, Double density) {
+        CrustalLithology lith = lithologyId == null ? null : Lithologies.crustalById(lithologyId).orElse(null);
+        if (!Double.isNaN(depthKm)) {
+            double rho = density != null ? density
+                    : lith != null ? lith.thermalProperties().density() : LithostaticColumn.CRUST_DENSITY;
+            return rho * LithostaticColumn.G * Units.kmToM(depthKm);
+        }
+        return lith == null ? 0 : 0.5 * (lith.minPressure() + lith.maxPressure());
     }
 
     // ---------------------------------------------------------------------------------------
     // sill
 
     /** The crust in a sill request. */
-    record SillCrust(Double initialTemperatureC, Double conductivityWPerMK, String conductivityLaw,
+    record SillCrust(String lithology, Double initialTemperatureC, Double conductivityWPerMK, String conductivityLaw,
                      Double densityKgPerM3, Double heatCapacityJPerKgK, Double latentHeatJPerKg,
                      List<MeltPoint> meltCurve, MeltingInterval meltingInterval, Double thicknessKm) {
     }
@@ -256,7 +352,8 @@ final class CrustalHeatingRoutes {
     }
 
     /** The intrusion in a sill request. */
-    record SillIntrusion(Double temperatureC, Double thicknessM, Double topDepthKm, Double conductivityWPerMK,
+    record SillIntrusion(String lithology, Double temperatureC, Double thicknessM, Double topDepthKm,
+                         Double conductivityWPerMK,
                          String conductivityLaw, Double densityKgPerM3, Double heatCapacityJPerKgK,
                          Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
                          Repeat repeat) {
@@ -314,7 +411,7 @@ final class CrustalHeatingRoutes {
     }
 
     /** Conductivity law of a rock from its request fields. */
-    private static ConductivityLaw law(Validation v, String lawName, Double conductivity) {
+    private static ConductivityLaw law(Validation v, String lawName, Double conductivity, CrustalLithology lith) {
         String law = v.optionalChoice("conductivityLaw", lawName, LAW_CONSTANT, LAWS);
         if (!LAWS.contains(law)) {
             return null;
@@ -330,7 +427,8 @@ final class CrustalHeatingRoutes {
         if (LAW_GABBRO.equals(law)) {
             return Miao2014Conductivity.GABBRO;
         }
-        double k = v.required("conductivityWPerMK", conductivity, 0.5, 10);
+        double k = property(v, "conductivityWPerMK", conductivity,
+                lith == null ? null : lith.thermalProperties().conductivity(), 0.5, 10);
         return Double.isNaN(k) ? null : ConductivityLaw.constant(k);
     }
 
@@ -345,8 +443,22 @@ final class CrustalHeatingRoutes {
         v.throwIfInvalid();
 
         SillCrust c = req.crust();
+        SillIntrusion b = req.intrusion();
         Validation cv = v.at("crust");
-        ConductivityLaw kC = law(cv, c.conductivityLaw(), c.conductivityWPerMK());
+        Validation bv = v.at("intrusion");
+        // the lithologies' curves are read at the pressure of the first sill's top
+        double topForCurves = b.topDepthKm() == null ? 0 : Units.kmToM(Math.max(0, Math.min(100, b.topDepthKm())));
+        String crustLith = c.lithology();
+        String intrusionLith = b.lithology() != null ? b.lithology() : DEFAULT_INTRUSION;
+        RockInput crustIn = RockInput.read(cv, "crust", crustLith, c.densityKgPerM3(), c.heatCapacityJPerKgK(),
+                c.latentHeatJPerKg(), c.meltCurve(), c.meltingInterval(),
+                crustPressure(crustLith, c.densityKgPerM3(), topForCurves),
+                c.conductivityWPerMK() != null || c.conductivityLaw() != null);
+        RockInput intrusionIn = RockInput.read(bv, "intrusion", intrusionLith, b.densityKgPerM3(),
+                b.heatCapacityJPerKgK(), b.latentHeatJPerKg(), b.meltCurve(), b.meltingInterval(),
+                crustPressure(crustLith, c.densityKgPerM3(), topForCurves),
+                b.conductivityWPerMK() != null || b.conductivityLaw() != null);
+        ConductivityLaw kC = law(cv, c.conductivityLaw(), c.conductivityWPerMK(), crustIn.lithology());
         double tc0 = Double.NaN;
         if (req.geotherm() == null) {
             tc0 = cv.required("initialTemperatureC", c.initialTemperatureC(), 0, 1200);
@@ -373,12 +485,12 @@ final class CrustalHeatingRoutes {
                     : ContinentalGeotherm.HeatProduction.EXPONENTIAL;
             surfaceC = gv.optional("surfaceTemperatureC", geo.surfaceTemperatureC(), 0, -50, 100);
         }
-        double rhoC = cv.required("densityKgPerM3", c.densityKgPerM3(), 1500, 4000);
-        double cpC = cv.required("heatCapacityJPerKgK", c.heatCapacityJPerKgK(), 500, 2500);
-        double lC = cv.required("latentHeatJPerKg", c.latentHeatJPerKg(), 0, 1_000_000);
-        MeltCurve crustCurve = meltCurve(cv, c.meltCurve(), c.meltingInterval());
-        if (crustCurve == null && c.meltCurve() == null && c.meltingInterval() == null) {
-            cv.error("meltCurve", "the crust needs a meltCurve or a meltingInterval");
+        double rhoC = crustIn.density();
+        double cpC = crustIn.heatCapacity();
+        double lC = crustIn.latentHeat();
+        MeltCurve crustCurve = crustIn.curve();
+        if (crustCurve == null && c.lithology() == null && c.meltCurve() == null && c.meltingInterval() == null) {
+            cv.error("meltCurve", "the crust needs a lithology, a meltCurve or a meltingInterval");
         }
         double mohoKm = c.thicknessKm() == null ? Double.NaN : cv.required("thicknessKm", c.thicknessKm(), 1, 100);
         Rock mantle = null;
@@ -396,19 +508,14 @@ final class CrustalHeatingRoutes {
             v.error("mantle", "a mantle needs crust.thicknessKm, the depth of the Moho");
         }
 
-        SillIntrusion b = req.intrusion();
-        Validation bv = v.at("intrusion");
         double tb0 = bv.required("temperatureC", b.temperatureC(), 500, 1600);
         double thickness = bv.required("thicknessM", b.thicknessM(), 0.01, 5000);
         double topKm = bv.required("topDepthKm", b.topDepthKm(), 0, 100);
-        ConductivityLaw kB = law(bv, b.conductivityLaw(), b.conductivityWPerMK());
-        double rhoB = bv.required("densityKgPerM3", b.densityKgPerM3(), 1500, 4000);
-        double cpB = bv.required("heatCapacityJPerKgK", b.heatCapacityJPerKgK(), 500, 2500);
-        double lB = bv.required("latentHeatJPerKg", b.latentHeatJPerKg(), 0, 1_000_000);
-        MeltCurve intrusionCurve = meltCurve(bv, b.meltCurve(), b.meltingInterval());
-        if (intrusionCurve == null && b.meltCurve() == null && b.meltingInterval() == null) {
-            bv.error("meltingInterval", "the intrusion needs a meltingInterval or a meltCurve");
-        }
+        ConductivityLaw kB = law(bv, b.conductivityLaw(), b.conductivityWPerMK(), intrusionIn.lithology());
+        double rhoB = intrusionIn.density();
+        double cpB = intrusionIn.heatCapacity();
+        double lB = intrusionIn.latentHeat();
+        MeltCurve intrusionCurve = intrusionIn.curve();
 
         int count = 1;
         double intervalKyr = 0;
@@ -520,10 +627,23 @@ final class CrustalHeatingRoutes {
             throw ApiProblem.invalid("durationKyr", e.getMessage() + "; shorten durationKyr, coarsen gridSpacingM or "
                     + "emplace fewer sills");
         }
-        Responses.json(ctx, response(setup, r));
+        List<String> notes = new ArrayList<>(crustIn.warnings());
+        notes.addAll(intrusionIn.warnings());
+        List<ModelInfo> citations = new ArrayList<>(crustIn.citations());
+        addAll(citations, intrusionIn.citations());
+        Responses.json(ctx, response(setup, r, notes, citations));
     }
 
-    private static SillResponse response(SillModel.Setup setup, SillResult r) {
+    /** Lithostatic pressure (Pa) at depth {@code z} (m) in a crust of the given or the lithology's density. */
+    private static double crustPressure(String lithologyId, Double density, double z) {
+        CrustalLithology lith = lithologyId == null ? null : Lithologies.crustalById(lithologyId).orElse(null);
+        double rho = density != null ? density
+                : lith != null ? lith.thermalProperties().density() : LithostaticColumn.CRUST_DENSITY;
+        return rho * LithostaticColumn.G * z;
+    }
+
+    private static SillResponse response(SillModel.Setup setup, SillResult r, List<String> notes,
+                                         List<ModelInfo> citations) {
         List<SillSample> series = new ArrayList<>(r.series().size());
         for (SillResult.Sample s : r.series()) {
             series.add(new SillSample(Units.sToKyr(s.time()), s.crustMeltThickness(), s.crustPartiallyMoltenThickness(),
@@ -535,7 +655,8 @@ final class CrustalHeatingRoutes {
         SillSummary summary = new SillSummary(kyrOrNull(sm.solidificationTime()), kyrOrNull(sm.timeToFirstCrustMelt()),
                 sm.peakCrustMeltThickness(), kyrOrNull(sm.peakTime()), sm.energyErrorFraction(), sm.sillsEmplaced(),
                 sm.emplacedThickness(), Units.mToKm(sm.topDepth()), mantleC);
-        List<String> warnings = new ArrayList<>(r.warnings());
+        List<String> warnings = new ArrayList<>(notes);
+        warnings.addAll(r.warnings());
         boolean mantleAboveSolidus = false;
         if (setup.mantle() != null && sm.maxMantleTemperature() != null) {
             // the dry peridotite solidus is lowest at the Moho, the top of the mantle
@@ -574,6 +695,7 @@ final class CrustalHeatingRoutes {
         if (!setup.crust().conductivity().isConstant() || !setup.intrusion().conductivity().isConstant()) {
             models.add(Miao2014Conductivity.INFO);
         }
+        addAll(models, citations);
         if (mantleAboveSolidus) {
             models.add(Lithologies.defaultMantle().info());
         }

@@ -54,8 +54,55 @@ class CrustalHeatingBudgetContractTest {
                 .body("heatRequiredJPerM2", closeTo(5.535e11, 100))
                 .body("intrusionThicknessNeededM", closeTo(227.22, 0.005))
                 .body("note", containsString("lower bound"))
-                .body("warnings", empty())
+                // the intrusion's default lithology (basalt) supplies the curve checked against Xb
+                .body("warnings", hasItem(containsString("intrusion (basalt): default melt curve is approximate")))
                 .body("models[0].id", equalTo("heat-budget-no-loss"));
+    }
+
+    /**
+     * Lithology defaults (the catalogue's amphibolite and basalt) in a hand calculation:
+     * <pre>
+     *   amphibolite  ρ = 3000 kg/m³, c = 1100 J/kg/K, L = 270 kJ/kg; its curve reaches F = 0.2 at 950 °C
+     *   basalt       ρ = 2900 kg/m³, c = 1200 J/kg/K, L = 350 kJ/kg; solid below 1000 °C, so Xb = 1
+     *   crust at 600 °C, basalt at 1250 °C
+     *   qc = 3000 × (1100 × 350 + 0.2 × 270000) = 3000 × 439000 = 1.317e9 J/m³
+     *   qb = 2900 × (1200 × 300 + 350000)       = 2900 × 710000 = 2.059e9 J/m³
+     * </pre>
+     */
+    @Test
+    void lithologiesSupplyTheirDefaultPropertiesAndCurves() {
+        TestServer.json("{\"crust\": {\"lithology\": \"amphibolite\", \"initialTemperatureC\": 600, "
+                        + "\"targetMeltFraction\": 0.2}, \"intrusion\": {\"temperatureC\": 1250}}")
+                .post(PATH).then()
+                .statusCode(200)
+                .body("finalTemperatureC", closeTo(950, 1e-9))
+                .body("intrusionCrystallizedFraction", closeTo(1, 1e-12))
+                .body("heatRequiredJPerM3", closeTo(1.317e9, 1))
+                .body("heatReleasedJPerM3", closeTo(2.059e9, 1))
+                .body("models.id", hasItem("amphibolite"))
+                .body("models.id", hasItem("basalt"))
+                .body("warnings", hasItem(containsString("crust (amphibolite): default melt curve is approximate")));
+        // an explicit field overrides the lithology's value
+        TestServer.json("{\"crust\": {\"lithology\": \"amphibolite\", \"initialTemperatureC\": 600, "
+                        + "\"targetMeltFraction\": 0.2, \"densityKgPerM3\": 2900}, \"intrusion\": {\"temperatureC\": 1250}}")
+                .post(PATH).then()
+                .statusCode(200)
+                .body("heatRequiredJPerM3", closeTo(2900 * 439000.0, 1));
+        assertInvalidField(TestServer.json("{\"crust\": {\"lithology\": \"gneiss\", \"initialTemperatureC\": 600, "
+                + "\"targetMeltFraction\": 0.2}, \"intrusion\": {\"temperatureC\": 1250}}").post(PATH), "crust.lithology")
+                .body("errors[0].message", containsString("metapelite"));
+    }
+
+    @Test
+    void theWaterSaturatedGraniteCurveIsReadAtTheGivenDepth() {
+        // Huang & Wyllie (1973): water-saturated granite solidus 680 °C at 0.2 GPa and 620 °C at 1 GPa;
+        // 1 GPa lies at 1e9 / (2650 × 9.81) = 38.466 km in granite of 2650 kg/m³
+        String body = "{\"crust\": {\"lithology\": \"granite-water-saturated\", \"initialTemperatureC\": 400, "
+                + "\"targetMeltFraction\": 0}, \"intrusion\": {\"temperatureC\": 1250}, \"depthKm\": ";
+        TestServer.json(body + "38.466}").post(PATH).then().statusCode(200)
+                .body("finalTemperatureC", closeTo(620, 0.05));
+        TestServer.json(body + "7.693}").post(PATH).then().statusCode(200)
+                .body("finalTemperatureC", closeTo(680, 0.05));
     }
 
     @Test

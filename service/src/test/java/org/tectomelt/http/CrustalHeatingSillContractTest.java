@@ -148,6 +148,24 @@ class CrustalHeatingSillContractTest {
     }
 
     @Test
+    void namedLithologiesNeedNoPropertiesAndAreCited() {
+        // the example in spirit: a metapelite crust and a basalt intrusion with the catalogue's
+        // default properties and curves
+        TestServer.json("{\"crust\": {\"lithology\": \"metapelite\", \"initialTemperatureC\": 450}, "
+                        + "\"intrusion\": {\"lithology\": \"basalt\", \"temperatureC\": 1230, \"thicknessM\": 250, "
+                        + "\"topDepthKm\": 28, \"meltingInterval\": {\"solidusC\": 1000, \"liquidusC\": 1200}, "
+                        + "\"repeat\": {\"count\": 3, \"intervalKyr\": 20}}, \"columnDepthKm\": 35, "
+                        + "\"durationKyr\": 60, \"gridSpacingM\": 10, \"outputEveryKyr\": 5}")
+                .post(PATH).then()
+                .statusCode(200)
+                .body("summary.sillsEmplaced", equalTo(3))
+                .body("summary.peakCrustMeltThicknessM", greaterThan(0.0))
+                .body("models.id", hasItem("metapelite"))
+                .body("models.id", hasItem("basalt"))
+                .body("warnings", hasItem(containsString("crust (metapelite): default melt curve is approximate")));
+    }
+
+    @Test
     void aUniformTemperatureAndAGeothermTogetherAreRefused() {
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
                 ", \"durationKyr\": 10, \"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}")).post(PATH),
@@ -194,7 +212,7 @@ class CrustalHeatingSillContractTest {
         String noCurve = CRUST.substring(0, CRUST.indexOf(", \"meltCurve\"")) + "}";
         assertInvalidField(TestServer.json("{" + noCurve + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 250, "
                 + "\"topDepthKm\": 10}, \"durationKyr\": 10}").post(PATH), "crust.meltCurve");
-        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"lithology\": \"basalt\"",
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"lithology\": \"komatiite\"",
                 ", \"durationKyr\": 10")).post(PATH), "intrusion.lithology");
     }
 

@@ -8,21 +8,22 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.crust.ConductivityLaw;
 import org.tectomelt.engine.crust.GeothermInitialState;
-import org.tectomelt.engine.crust.MeltingIntervals;
 import org.tectomelt.engine.crust.Rock;
 import org.tectomelt.engine.crust.SillModel;
 import org.tectomelt.engine.crust.SillResult;
-import org.tectomelt.engine.melting.MeltCurve;
+import org.tectomelt.engine.melting.CrustalLithology;
+import org.tectomelt.engine.melting.ThermalProperties;
 import org.tectomelt.engine.thermal.ContinentalGeotherm;
 
 /**
  * Common practice (REFERENCES §3.4, [trade]): a lower crust at 35–40 km on a normal continental
  * geotherm must be heated by several hundred kelvin before it starts to melt. Checked by running
  * the sill model: a basalt sill at 35 km on the steady continental geotherm with a surface heat
- * flow of 60 mW/m² (a stable continent; the continental mean is 65 mW/m², Pollack, Hurter &amp;
- * Johnson 1993) in an amphibolitic lower crust, whose dehydration melting starts near 850 °C
- * (Beard &amp; Lofgren 1991, at 0.3 GPa) with the approximate melt fractions of REFERENCES §3.4
- * (from memory there, ±10 % absolute).
+ * flow of 50 mW/m² (a stable continent, as in the worked geotherm of REFERENCES §1.4; the
+ * continental mean, 65 mW/m², includes tectonically active regions, Pollack, Hurter &amp; Johnson
+ * 1993) in an amphibolitic lower crust: the catalogue's amphibolite, whose dehydration
+ * melting starts at 850 °C (Beard &amp; Lofgren 1991, at 0.3 GPa) with the approximate melt
+ * fractions of REFERENCES §3.4 (from memory there, ±10 % absolute), and the catalogue's basalt.
  */
 class LowerCrustHeatingCommonPracticeTest {
 
@@ -31,13 +32,20 @@ class LowerCrustHeatingCommonPracticeTest {
 
     @Test
     void theLowerCrustMeltsOnlyWhereTheSillHeatedItBySeveralHundredKelvin() {
-        MeltCurve amphibolite = new MeltCurve(
-                new double[] {C0 + 850, C0 + 900, C0 + 950, C0 + 1000, C0 + 1050},
-                new double[] {0, 0.12, 0.20, 0.30, 0.40});
-        Rock crust = new Rock(2900, 1050, 280_000, ConductivityLaw.constant(2.5), amphibolite);
-        Rock basalt = new Rock(2900, 1100, 400_000, ConductivityLaw.constant(2.5),
-                MeltingIntervals.linear(C0 + 1000, C0 + 1200));
-        ContinentalGeotherm normal = ContinentalGeotherm.of(0.060);
+        CrustalLithology amphibolite = CrustalLithology.amphibolite();
+        CrustalLithology basaltLith = CrustalLithology.basalt();
+        ThermalProperties a = amphibolite.thermalProperties();
+        ThermalProperties b = basaltLith.thermalProperties();
+        double pressure = 1e9; // the curves do not depend on it; inside the amphibolite's calibration
+        Rock crust = new Rock(a.density(), a.heatCapacity(), a.latentHeat(), ConductivityLaw.constant(a.conductivity()),
+                amphibolite.curveAt(pressure));
+        Rock basalt = new Rock(b.density(), b.heatCapacity(), b.latentHeat(), ConductivityLaw.constant(b.conductivity()),
+                basaltLith.curveAt(pressure));
+        assertEquals(C0 + 850, crust.meltCurve().solidus(), 1e-9, "amphibolite dehydration melting from 850 °C");
+        // the geotherm with the amphibolite's conductivity, so that the column starts steady
+        ContinentalGeotherm normal = ContinentalGeotherm.of(0.050, ContinentalGeotherm.REDUCED_FRACTION,
+                ContinentalGeotherm.HEAT_PRODUCTION_SCALE, a.conductivity(), C0, 35e3,
+                ContinentalGeotherm.HeatProduction.EXPONENTIAL);
         List<Double> times = List.of(0.0, 0.01 * KYR, 0.1 * KYR, 0.3 * KYR, 1 * KYR, 3 * KYR, 10 * KYR);
         SillResult r = SillModel.run(new SillModel.Setup(crust, basalt, new GeothermInitialState(normal),
                 SillModel.Intrusions.single(500, 35e3, C0 + 1230), 45e3, 10, 10 * KYR, 1 * KYR, times, 10,
@@ -53,8 +61,8 @@ class LowerCrustHeatingCommonPracticeTest {
                 hottest = Math.max(hottest, start.temperature()[i]);
             }
         }
-        // the geotherm puts the lower crust near 600–700 °C, some 150–250 K below the amphibolite solidus
-        assertTrue(coldest > C0 + 550 && hottest < C0 + 700, (coldest - C0) + " to " + (hottest - C0) + " °C");
+        // the geotherm puts the lower crust near 540–620 °C
+        assertTrue(coldest > C0 + 500 && hottest < C0 + 650, (coldest - C0) + " to " + (hottest - C0) + " °C");
 
         assertNotNull(r.summary().timeToFirstCrustMelt(), "the 1230 °C sill does melt its wall rock");
         assertTrue(r.warnings().stream().noneMatch(w -> w.contains("from the start")), "no melt before the sill");
@@ -68,10 +76,11 @@ class LowerCrustHeatingCommonPracticeTest {
                 }
             }
         }
-        // common practice: "several hundred kelvin" — at least 150 K for the hottest part of the
-        // 35–40 km range, and in this run every melting cell was heated by more than that
-        assertTrue(leastHeatingOfMeltingRock >= 150, "least heating of melting crust " + leastHeatingOfMeltingRock + " K");
-        assertTrue(C0 + 850 - hottest >= 150 && C0 + 850 - coldest >= 250,
+        // common practice: "several hundred kelvin": at least 200 K for the hottest part of the
+        // 35–40 km range, about 300 K for its top, and every cell that melted in this run was heated by
+        // at least 200 K
+        assertTrue(leastHeatingOfMeltingRock >= 200, "least heating of melting crust " + leastHeatingOfMeltingRock + " K");
+        assertTrue(C0 + 850 - hottest >= 200 && C0 + 850 - coldest >= 280,
                 "heating needed from the geotherm to the solidus: " + (C0 + 850 - hottest) + " to "
                         + (C0 + 850 - coldest) + " K");
     }
