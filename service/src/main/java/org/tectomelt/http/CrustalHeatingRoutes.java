@@ -223,8 +223,8 @@ final class CrustalHeatingRoutes {
     static void budget(Context ctx) {
         BudgetRequest req = Json.read(ctx.bodyAsBytes(), BudgetRequest.class);
         Validation v = new Validation();
-        boolean haveCrust = v.present("crust", req.crust());
-        boolean haveIntrusion = v.present("intrusion", req.intrusion());
+        v.present("crust", req.crust());
+        v.present("intrusion", req.intrusion());
         v.throwIfInvalid();
 
         double depthKm = req.depthKm() == null ? Double.NaN : v.optional("depthKm", req.depthKm(), 0, 0, 100);

@@ -49,7 +49,8 @@ import org.tectomelt.engine.ModelInfo;
  * <h2>Boundary conditions and initial state</h2>
  * The top of the column (z = 0) is held at the initial state's surface temperature; the base
  * receives the initial state's basal heat flow, held fixed (0 for a uniform initial temperature, so
- * the base is insulated). See {@link InitialState}.
+ * the base is insulated). See {@link InitialState}; a steady geotherm ({@link GeothermInitialState})
+ * is first relaxed to the steady state of the grid, so that the column does not drift.
  *
  * <h2>Intrusions</h2>
  * Sills are emplaced instantaneously at their emplacement temperature and melt fraction F(T). A new
@@ -72,10 +73,14 @@ import org.tectomelt.engine.ModelInfo;
  * (Σ |H − H_origin| Δz, with H_origin the enthalpy of each cell's rock when it entered the column),
  * is reported as {@link SillResult.Summary#energyErrorFraction()}.
  *
+ * <h2>Rocks</h2>
+ * Three rocks: the crust (country rock, whose melting is tracked), the intrusion, and optionally a
+ * non-melting mantle below a Moho depth. Each has its own density, heat capacity, latent heat,
+ * conductivity law and melt curve.
+ *
  * <p>Limitations: conduction only (no convection in the magma, no melt extraction or advection of
  * heat by melt), constant density (no thermal contraction or volume change on melting), constant
- * heat capacity, and rock below the country rock's melt curve only (a mantle under the crust is not
- * represented separately: give a column whose rock is what you want to melt).
+ * heat capacity, one melt curve per rock whatever the depth, and a mantle that does not melt.
  */
 public final class SillModel {
 
