@@ -38,6 +38,20 @@ class ProblemContractTest {
     }
 
     @Test
+    void notANumberAndInfinityAreNotNumbersInJson() {
+        for (String word : new String[] {"\"NaN\"", "\"Infinity\"", "\"-Infinity\""}) {
+            assertInvalidField(TestServer.json("{\"depthsKm\": [31, " + word + "]}").post(PRESSURE), "depthsKm[1]")
+                    .body("errors[0].message", containsString("expected a number"));
+            assertInvalidField(TestServer.json("{\"depthsKm\": [31], \"crustThicknessKm\": " + word + "}")
+                    .post(PRESSURE), "crustThicknessKm");
+        }
+        // beyond the range of a double: named, not turned into Infinity
+        assertInvalidField(TestServer.json("{\"depthsKm\": [1e400]}").post(PRESSURE), "depthsKm[0]")
+                .body("errors[0].message", containsString("beyond the range of a double"));
+        assertProblem(TestServer.json("\"\"").post(PRESSURE), 400, "malformed-json");
+    }
+
+    @Test
     void anUnknownFieldIsNamedSoAMissingUnitSuffixIsCaught() {
         assertInvalidField(TestServer.json("{\"depthsKm\": [31], \"crustThickness\": 35}").post(PRESSURE),
                 "crustThickness")
