@@ -84,6 +84,16 @@ class AccessControlContractTest {
     }
 
     @Test
+    void thePageCanSupplyTheToken() {
+        TestApps.given(app).get("/").then().statusCode(200)
+                .body(containsString("id=\"token\""))
+                .body(containsString("<script src=\"api.js\"></script>"));
+        TestApps.given(app).get("/api.js").then().statusCode(200)
+                .body(containsString("sessionStorage"))
+                .body(containsString("h[\"Authorization\"] = \"Bearer \" + t"));
+    }
+
+    @Test
     void anUnknownV1PathIsStillA404() {
         assertProblem(TestApps.given(app).get("/v1/no-such-thing"), 404, "not-found");
     }
