@@ -71,7 +71,11 @@ final class RequestPlumbing {
     /** The template of the route that served this request, or null when none matched. */
     static String endpointPath(Context ctx) {
         try {
-            Endpoint e = ctx.endpoints().lastHttpEndpoint();
+            // the matched endpoint, even when a before-matched check refused the request (401, 413, 415)
+            Endpoint e = ctx.endpoints().matchedHttpEndpoint();
+            if (e == null) {
+                e = ctx.endpoints().lastHttpEndpoint();
+            }
             if (e != null && e.method.isHttpMethod()) {
                 return e.path;
             }

@@ -55,6 +55,9 @@ class MetricsContractTest {
                     + "status=\"200\",le=\"+Inf\"}") == 3);
             assertTrue(sample(text,
                     "tectomelt_requests_rejected_total{reason=\"unsupported-media-type\",status=\"415\"}") == 1);
+            // refused before the handler ran, still counted under its route
+            assertTrue(sample(text,
+                    "tectomelt_http_requests_seconds_count{method=\"POST\",route=\"/v1/pressure\",status=\"415\"}") == 1);
             assertTrue(sample(text, "tectomelt_requests_rejected_total{reason=\"validation\",status=\"400\"}") == 1);
             assertTrue(sample(text, "tectomelt_requests_rejected_total{reason=\"not-found\",status=\"404\"}") == 1);
             // a random path becomes one "unmatched" series, so callers cannot inflate the label set
@@ -72,6 +75,7 @@ class MetricsContractTest {
 
     @Test
     void theSharedServerExposesMetricsToo() {
+        TestServer.given().get("/v1/health").then().statusCode(200);
         TestServer.given().get("/metrics").then()
                 .statusCode(200)
                 .contentType(startsWith("text/plain"))
