@@ -106,9 +106,10 @@ class ConditionalRequestContractTest {
                 continue;
             }
             String body = example.toString();
-            String tag = TestServer.json(body).post(path.getKey()).then().statusCode(200)
+            String url = AccessControlContractTest.concrete(path.getKey());
+            String tag = TestServer.json(body).post(url).then().statusCode(200)
                     .extract().header("ETag");
-            TestServer.json(body).header("If-None-Match", tag).post(path.getKey()).then().statusCode(304);
+            TestServer.json(body).header("If-None-Match", tag).post(url).then().statusCode(304);
             checked++;
         }
         assertTrue(checked >= 1, "the spec documents at least the pressure example");

@@ -126,7 +126,7 @@ class ProblemContractTest {
         routes.add(Route.get("/v1/boom", ctx -> {
             throw new IllegalStateException("secret internal state 0xDEADBEEF");
         }));
-        Javalin app = App.create(Config.defaults().withPort(0), RequestObserver.NONE, routes).start("127.0.0.1", 0);
+        Javalin app = App.create(TestApps.config(java.util.Map.of()), RequestObserver.NONE, routes).start("127.0.0.1", 0);
         try {
             var r = RestAssured.given().baseUri("http://127.0.0.1").port(app.port())
                     .header("X-Request-Id", "trace-500").get("/v1/boom");
@@ -143,7 +143,7 @@ class ProblemContractTest {
     void aNonFiniteNumberCanNeverReachAResponse() {
         List<Route> routes = new ArrayList<>(App.routes(Config.defaults()));
         routes.add(Route.get("/v1/nan", ctx -> Responses.json(ctx, java.util.Map.of("x", Double.NaN))));
-        Javalin app = App.create(Config.defaults().withPort(0), RequestObserver.NONE, routes).start("127.0.0.1", 0);
+        Javalin app = App.create(TestApps.config(java.util.Map.of()), RequestObserver.NONE, routes).start("127.0.0.1", 0);
         try {
             var r = RestAssured.given().baseUri("http://127.0.0.1").port(app.port()).get("/v1/nan");
             assertProblem(r, 500, "internal").body(not(containsString("NaN")));

@@ -28,7 +28,6 @@ import net.jqwik.api.Provide;
 import net.jqwik.api.statistics.Statistics;
 import net.jqwik.api.lifecycle.AfterContainer;
 import net.jqwik.api.lifecycle.BeforeContainer;
-import org.tectomelt.Config;
 import org.tectomelt.http.BodyArbitraries.Mutation;
 import org.tectomelt.http.SpecOperations.Operation;
 
@@ -73,7 +72,7 @@ class SpecFuzzProperties {
 
     @BeforeContainer
     static void start() {
-        app = App.create(Config.defaults().withPort(0)).start("127.0.0.1", 0);
+        app = App.create(TestApps.config(java.util.Map.of())).start("127.0.0.1", 0);
         client = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
                 .connectTimeout(Duration.ofSeconds(10)).build();
     }
@@ -163,7 +162,8 @@ class SpecFuzzProperties {
     private static JsonNode check(Case c) {
         HttpResponse<byte[]> r;
         try {
-            r = client.send(HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + app.port() + c.op().path()))
+            r = client.send(HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + app.port()
+                            + AccessControlContractTest.concrete(c.op().path())))
                             .timeout(Duration.ofSeconds(60))
                             .header("Content-Type", "application/json")
                             .POST(HttpRequest.BodyPublishers.ofByteArray(c.mutation().body())).build(),

@@ -21,9 +21,16 @@ final class TestApps {
     private TestApps() {
     }
 
-    /** The embedded defaults overridden by {@code env} (variable → value), on a free port. */
+    /**
+     * The embedded defaults overridden by {@code env} (variable → value), on a free port. Unless
+     * {@code env} says otherwise, the app stops without a grace period: a graceful stop waits for
+     * the test client's idle keep-alive connections (a second or two), which only
+     * {@code GracefulShutdownTest} needs.
+     */
     static Config config(Map<String, String> env) {
-        return Config.fromEnvironment(env).withPort(0);
+        Map<String, String> all = new java.util.HashMap<>(env);
+        all.putIfAbsent("TECTOMELT_SHUTDOWN_GRACE_MS", "0");
+        return Config.fromEnvironment(all).withPort(0);
     }
 
     /** The production routes followed by {@code extra}. */
