@@ -124,6 +124,10 @@ LUA
 
 # ---- server
 rss_mib() { awk '/^VmRSS:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
+# CPU time the server used (user + system, clock ticks): per request it does not depend on how
+# busy the machine is, unlike requests/s
+cpu_ticks() { awk '{print $14 + $15}' "/proc/$SERVER_PID/stat"; }
+CLK_TCK=$(getconf CLK_TCK)
 hwm_mib() { awk '/^VmHWM:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
 
 env HOST=127.0.0.1 PORT=0 "${SERVER_ENV[@]}" \
@@ -174,16 +178,20 @@ for spec in "${ENDPOINTS[@]}"; do
   run_wrk "$WARMUP" "$WORK/e$i.lua" > /dev/null   # JIT warm-up, not reported
 done
 {
-  echo "| run | endpoint | req/s | p50 ms | p99 ms | failed responses | socket errors | RSS MiB after |"
-  echo "|---|---|---|---|---|---|---|---|"
+  echo "| run | endpoint | req/s | p50 ms | p99 ms | failed responses | socket errors | server CPU µs/request | RSS MiB after |"
+  echo "|---|---|---|---|---|---|---|---|---|"
 } | tee "$WORK/table.md"
 for run in $(seq 1 "$RUNS"); do
   i=0
   for spec in "${ENDPOINTS[@]}"; do
     i=$((i + 1))
+    before=$(cpu_ticks)
     line=$(run_wrk "$DURATION" "$WORK/e$i.lua")
+    after=$(cpu_ticks)
+    cpu=$(awk -v t=$((after - before)) -v n="$(field requests "$line")" -v hz="$CLK_TCK" \
+      'BEGIN { if (n > 0) printf "%.0f", t / hz * 1e6 / n; else print "-" }')
     label=${spec%%=*}
-    echo "| $run | ${label/:/ } | $(field rps "$line") | $(field p50_ms "$line") | $(field p99_ms "$line") | $(field status_errors "$line") | $(field socket_errors "$line") | $(rss_mib) |" | tee -a "$WORK/table.md"
+    echo "| $run | ${label/:/ } | $(field rps "$line") | $(field p50_ms "$line") | $(field p99_ms "$line") | $(field status_errors "$line") | $(field socket_errors "$line") | $cpu | $(rss_mib) |" | tee -a "$WORK/table.md"
     [ "$(field status_errors "$line")" = 0 ] && [ "$(field socket_errors "$line")" = 0 ] || FAILED=1
   done
 done
