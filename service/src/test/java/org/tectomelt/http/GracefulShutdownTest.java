@@ -23,12 +23,12 @@ class GracefulShutdownTest {
 
     @Test
     void inFlightRequestsFinishAndNewOnesAreRefused() throws Exception {
-        Config config = TestApps.config(Map.of("TECTOMELT_SHUTDOWN_GRACE_MS", "10000"));
+        Config config = TestApps.config(Map.of("TECTOMELT_SHUTDOWN_GRACE_MS", "30000"));
         CountDownLatch entered = new CountDownLatch(1);
         CountDownLatch release = new CountDownLatch(1);
         Route slow = Route.heavyPost("/v1/test-only/slow", ctx -> {
             entered.countDown();
-            release.await(20, TimeUnit.SECONDS);
+            release.await(60, TimeUnit.SECONDS);
             Responses.json(ctx, Map.of("finished", true));
         });
         Javalin app = TestApps.start(config, TestApps.routesPlus(config, slow), new Heavy(config));
