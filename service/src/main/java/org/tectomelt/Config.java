@@ -27,7 +27,8 @@ import java.util.regex.Pattern;
  * @param maxProfilePoints    most points in one profile (a geotherm, a column, a depth list)
  *                            ({@code TECTOMELT_MAX_PROFILE_POINTS}, default 5,000)
  * @param maxSillCellSteps    largest grid cells × time steps of one sill-model run
- *                            ({@code TECTOMELT_MAX_SILL_CELL_STEPS}, default 20,000,000)
+ *                            ({@code TECTOMELT_MAX_SILL_CELL_STEPS}, default 100,000,000: the
+ *                            2 Myr, 20-sill, 7,000-cell case needs about 27,000,000)
  * @param maxSillDurationMyr  longest simulated time of one sill-model run, Myr
  *                            ({@code TECTOMELT_MAX_SILL_DURATION_MYR}, default 20)
  * @param heavyConcurrency    heavy requests computed at once ({@code TECTOMELT_HEAVY_CONCURRENCY},
@@ -56,7 +57,7 @@ public record Config(String host, int port, long maxBodyBytes,
     /** Default {@link #maxProfilePoints()}. */
     public static final int DEFAULT_MAX_PROFILE_POINTS = 5_000;
     /** Default {@link #maxSillCellSteps()}. */
-    public static final long DEFAULT_MAX_SILL_CELL_STEPS = 20_000_000L;
+    public static final long DEFAULT_MAX_SILL_CELL_STEPS = 100_000_000L;
     /** Default {@link #maxSillDurationMyr()}. */
     public static final double DEFAULT_MAX_SILL_DURATION_MYR = 20.0;
     /** Shortest token accepted, so that a shared server is not guarded by a guessable word. */

@@ -45,7 +45,7 @@ class ConfigTest {
         assertEquals(1_048_576L, d.maxBodyBytes());
         assertEquals(10_000, d.maxBatchPoints());
         assertEquals(5_000, d.maxProfilePoints());
-        assertEquals(20_000_000L, d.maxSillCellSteps());
+        assertEquals(100_000_000L, d.maxSillCellSteps());
         assertEquals(20.0, d.maxSillDurationMyr());
         assertEquals(Math.max(1, Runtime.getRuntime().availableProcessors()), d.heavyConcurrency());
         assertEquals(200, d.heavyQueueMillis());

@@ -150,7 +150,7 @@ public final class App {
         all.addAll(SubductionRoutes.routes());
 
         // crust: crustal heating budget and sill model
-        all.addAll(CrustalHeatingRoutes.routes());
+        all.addAll(CrustalHeatingRoutes.routes(config));
 
         // operations: metrics and the like
         all.addAll(OperationsRoutes.routes());

@@ -3,6 +3,7 @@ package org.tectomelt.http;
 import io.javalin.http.Context;
 import java.util.ArrayList;
 import java.util.List;
+import org.tectomelt.Config;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.crust.ConductivityLaw;
 import org.tectomelt.engine.crust.GeothermInitialState;
@@ -29,14 +30,12 @@ final class CrustalHeatingRoutes {
 
     /** Most cells a sill run may have at its end (column plus emplaced sills). */
     static final int MAX_CELLS = 20_000;
-    /** Longest simulated time (kyr). */
-    static final double MAX_DURATION_KYR = 10_000;
-    /** Most series entries a run may return. */
-    static final int MAX_OUTPUTS = 5_000;
+    /** Largest {@code durationKyr} the model accepts at all (the server cap is usually lower). */
+    static final double MODEL_MAX_DURATION_KYR = 4.5e6;
+    /** Longest interval between emplacements (kyr). */
+    static final double MAX_INTERVAL_KYR = 20_000;
     /** Most accepted time steps of one run. */
     static final int MAX_TIME_STEPS = 100_000;
-    /** Most cell-steps (Σ cells over all time steps) of one run: one to a few seconds of one core. */
-    static final long MAX_CELL_STEPS = 200_000_000L;
     /** Most profiles per request. */
     static final int MAX_PROFILES = 20;
     /** Most points per profile when the spacing is left to the default. */
@@ -65,9 +64,9 @@ final class CrustalHeatingRoutes {
     private CrustalHeatingRoutes() {
     }
 
-    static List<Route> routes() {
+    static List<Route> routes(Config config) {
         return List.of(Route.post("/v1/crustal-heating/budget", CrustalHeatingRoutes::budget),
-                Route.post("/v1/crustal-heating/sill", CrustalHeatingRoutes::sill));
+                Route.heavyPost("/v1/crustal-heating/sill", ctx -> sill(ctx, config)));
     }
 
     // ---------------------------------------------------------------------------------------
@@ -432,12 +431,16 @@ final class CrustalHeatingRoutes {
         return Double.isNaN(k) ? null : ConductivityLaw.constant(k);
     }
 
-    static void sill(Context ctx) {
+    static void sill(Context ctx, Config config) {
         SillRequest req = Json.read(ctx.bodyAsBytes(), SillRequest.class);
         Validation v = new Validation();
         v.present("crust", req.crust());
         v.present("intrusion", req.intrusion());
-        double durationKyr = v.required("durationKyr", req.durationKyr(), 0.001, MAX_DURATION_KYR);
+        double durationKyr = v.required("durationKyr", req.durationKyr(), 0.001, MODEL_MAX_DURATION_KYR);
+        if (!Double.isNaN(durationKyr)) {
+            v.cap("durationKyr", durationKyr / 1000, config.maxSillDurationMyr(), "duration (Myr)",
+                    "TECTOMELT_MAX_SILL_DURATION_MYR");
+        }
         double dz = v.optional("gridSpacingM", req.gridSpacingM(), 10, 0.01, 1000);
         double columnKm = v.optional("columnDepthKm", req.columnDepthKm(), 60, 0.01, 150);
         v.throwIfInvalid();
@@ -528,7 +531,7 @@ final class CrustalHeatingRoutes {
             if ((rep.intervalKyr() == null) == (rep.rateMmPerYr() == null)) {
                 rv.error("intervalKyr", "give exactly one of intervalKyr or rateMmPerYr");
             } else if (rep.intervalKyr() != null) {
-                intervalKyr = rv.required("intervalKyr", rep.intervalKyr(), 0.001, MAX_DURATION_KYR);
+                intervalKyr = rv.required("intervalKyr", rep.intervalKyr(), 0.001, MAX_INTERVAL_KYR);
             } else {
                 double rate = rv.required("rateMmPerYr", rep.rateMmPerYr(), 0.001, 1000);
                 if (!Double.isNaN(rate) && !Double.isNaN(thickness)) {
@@ -545,7 +548,11 @@ final class CrustalHeatingRoutes {
 
         Double outputEvery = req.outputEveryKyr();
         double every = Double.isNaN(durationKyr) ? Double.NaN
-                : v.optional("outputEveryKyr", outputEvery, durationKyr / 100, durationKyr / MAX_OUTPUTS, durationKyr);
+                : v.optional("outputEveryKyr", outputEvery, durationKyr / 100, durationKyr * 1e-9, durationKyr);
+        if (!Double.isNaN(every)) {
+            v.cap("outputEveryKyr", Math.ceil(durationKyr / every - 1e-9) + 1, config.maxProfilePoints(),
+                    "series entries", "TECTOMELT_MAX_PROFILE_POINTS");
+        }
         List<Double> profileKyr = v.list("profileTimesKyr", req.profileTimesKyr(), 0, MAX_PROFILES);
         for (int i = 0; i < profileKyr.size(); i++) {
             Double x = profileKyr.get(i);
@@ -598,7 +605,8 @@ final class CrustalHeatingRoutes {
                 initial, intrusions, columnM, dz,
                 Units.kyrToS(durationKyr), Units.kyrToS(every),
                 profileKyr.stream().map(Units::kyrToS).toList(), profileM,
-                new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS, MAX_CELL_STEPS),
+                new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS,
+                        config.maxSillCellSteps()),
                 mantle, mohoM);
         long cells = (long) probe.initialCells() + (long) probe.sillsWithinDuration() * probe.cellsPerSill();
         if (cells > MAX_CELLS) {
@@ -606,26 +614,32 @@ final class CrustalHeatingRoutes {
                     + MAX_CELLS + ": coarsen gridSpacingM, shorten columnDepthKm or emplace less intrusion");
             v.throwIfInvalid();
         }
-        if (probe.minimumCellSteps() > MAX_CELL_STEPS) {
-            v.error("durationKyr", String.format(java.util.Locale.ROOT, "this run would need at least %.3g cell-steps "
-                    + "(cells × time steps), more than the %d allowed: shorten durationKyr, coarsen gridSpacingM, "
-                    + "shorten columnDepthKm or emplace fewer sills", probe.minimumCellSteps(), MAX_CELL_STEPS));
-            v.throwIfInvalid();
+        // a lower bound of the work, known before running (shorten durationKyr, coarsen gridSpacingM,
+        // shorten columnDepthKm or emplace fewer sills)
+        v.cap("durationKyr", Math.ceil(probe.minimumCellSteps()), config.maxSillCellSteps(),
+                "the least grid cells × time steps this run needs,", "TECTOMELT_MAX_SILL_CELL_STEPS");
+        if (profileSpacing != null) {
+            double stride = Math.max(1, Math.rint(profileSpacing / dz));
+            v.cap("profileSpacingM", Math.ceil(cells / stride), config.maxProfilePoints(), "points per profile",
+                    "TECTOMELT_MAX_PROFILE_POINTS");
         }
+        v.throwIfInvalid();
         SillModel.Setup setup = probe;
         if (profileSpacing == null) {
-            int stride = (int) Math.max(1, (cells + DEFAULT_PROFILE_POINTS - 1) / DEFAULT_PROFILE_POINTS);
+            int perProfile = Math.min(DEFAULT_PROFILE_POINTS, config.maxProfilePoints());
+            int stride = (int) Math.max(1, (cells + perProfile - 1) / perProfile);
             setup = new SillModel.Setup(probe.crust(), probe.intrusion(), probe.initial(), intrusions, columnM, dz,
                     probe.duration(), probe.outputEvery(), probe.profileTimes(), stride * dz, probe.numerics(),
                     probe.mantle(), probe.mohoDepth());
         }
 
+        SillModel.Setup run = setup;
         SillResult r;
         try {
-            r = SillModel.run(setup);
+            r = Metrics.engine(ctx, () -> SillModel.run(run, Heavy.deadline(ctx)));
         } catch (SillModel.WorkLimitExceeded e) {
-            throw ApiProblem.invalid("durationKyr", e.getMessage() + "; shorten durationKyr, coarsen gridSpacingM or "
-                    + "emplace fewer sills");
+            throw ApiProblem.invalid("durationKyr", e.getMessage() + " (server caps TECTOMELT_MAX_SILL_CELL_STEPS and "
+                    + MAX_TIME_STEPS + " time steps); shorten durationKyr, coarsen gridSpacingM or emplace fewer sills");
         }
         List<String> notes = new ArrayList<>(crustIn.warnings());
         notes.addAll(intrusionIn.warnings());

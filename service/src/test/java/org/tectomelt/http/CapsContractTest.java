@@ -55,13 +55,13 @@ class CapsContractTest {
         Validation v = new Validation();
         assertTrue(v.cap("grid.cells", 1_000 * 20_000, Config.DEFAULT_MAX_SILL_CELL_STEPS, "cells × steps",
                 "TECTOMELT_MAX_SILL_CELL_STEPS"));
-        assertFalse(v.cap("grid.cells", 2_000 * 20_000, Config.DEFAULT_MAX_SILL_CELL_STEPS, "cells × steps",
+        assertFalse(v.cap("grid.cells", 10_000 * 20_000, Config.DEFAULT_MAX_SILL_CELL_STEPS, "cells × steps",
                 "TECTOMELT_MAX_SILL_CELL_STEPS"));
         assertFalse(v.cap("durationMyr", Double.NaN, 20, "duration", "TECTOMELT_MAX_SILL_DURATION_MYR"));
         ApiProblem p = assertThrows(ApiProblem.class, v::throwIfInvalid);
         assertEquals(400, p.status());
         assertEquals(List.of("grid.cells", "durationMyr"), p.errors().stream().map(FieldError::field).toList());
-        assertEquals("cells × steps 40000000 exceeds the server cap of 20000000 (TECTOMELT_MAX_SILL_CELL_STEPS)",
+        assertEquals("cells × steps 200000000 exceeds the server cap of 100000000 (TECTOMELT_MAX_SILL_CELL_STEPS)",
                 p.errors().get(0).message());
     }
 }

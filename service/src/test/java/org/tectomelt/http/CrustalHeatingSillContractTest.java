@@ -225,17 +225,23 @@ class CrustalHeatingSillContractTest {
         // a sill must span at least two cells
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 15, \"topDepthKm\": 10",
                 ", \"durationKyr\": 10, \"gridSpacingM\": 10")).post(PATH), "gridSpacingM");
-        // duration
+        // duration, beyond the server cap of 20 Myr
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
-                ", \"durationKyr\": 20000")).post(PATH), "durationKyr");
-        // series length
+                ", \"durationKyr\": 30000")).post(PATH), "durationKyr")
+                .body("errors[0].message", containsString("TECTOMELT_MAX_SILL_DURATION_MYR"));
+        // series length, beyond the profile-points cap
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
-                ", \"durationKyr\": 1000, \"outputEveryKyr\": 0.1")).post(PATH), "outputEveryKyr");
+                ", \"durationKyr\": 1000, \"outputEveryKyr\": 0.1")).post(PATH), "outputEveryKyr")
+                .body("errors[0].message", containsString("TECTOMELT_MAX_PROFILE_POINTS"));
+        // profile length
+        assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
+                ", \"durationKyr\": 10, \"profileTimesKyr\": [5], \"profileSpacingM\": 10")).post(PATH),
+                "profileSpacingM");
         // time steps × cells: 1000 sills into a 150 km column need at least ~2.6e8 cell-steps
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 20, \"topDepthKm\": 10, \"repeat\": "
                 + "{\"count\": 1000, \"intervalKyr\": 10}", ", \"columnDepthKm\": 150, \"durationKyr\": 10000"))
                 .post(PATH), "durationKyr")
-                .body("errors[0].message", containsString("cell-steps"));
+                .body("errors[0].message", containsString("TECTOMELT_MAX_SILL_CELL_STEPS"));
     }
 
     @Test

@@ -3,6 +3,8 @@ package org.tectomelt.engine.crust;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.tectomelt.engine.BudgetExceededException;
+import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 
@@ -300,24 +302,25 @@ public final class SillModel {
         }
     }
 
-    /** Runs the model. */
+    /** Runs the model without a wall-clock budget. */
     public static SillResult run(Setup setup) {
-        return run(setup, () -> { });
+        return run(setup, Deadline.none());
     }
 
     /**
-     * Runs the model, calling {@code checkpoint} before every time step (a caller's deadline or
-     * cancellation check may throw from it to abandon the run).
+     * Runs the model, polling {@code deadline} before every time step.
+     *
+     * @throws BudgetExceededException when the deadline passes; the run is abandoned
      */
-    public static SillResult run(Setup setup, Runnable checkpoint) {
-        return new Run(setup, checkpoint).run();
+    public static SillResult run(Setup setup, Deadline deadline) {
+        return new Run(setup, deadline).run();
     }
 
     /** The mutable state of one run. */
     private static final class Run {
 
         private final Setup s;
-        private final Runnable checkpoint;
+        private final Deadline deadline;
         private final double dz;
         private final EnthalpyCurve[] rocks;
         private final ConductivityLaw[] laws;
@@ -402,9 +405,9 @@ public final class SillModel {
         private final List<SillResult.Profile> profiles = new ArrayList<>();
         private final List<String> warnings = new ArrayList<>();
 
-        Run(Setup setup, Runnable checkpoint) {
+        Run(Setup setup, Deadline deadline) {
             this.s = setup;
-            this.checkpoint = checkpoint;
+            this.deadline = deadline;
             this.dz = setup.gridSpacing();
             Rock mantle = setup.mantle() == null ? setup.crust() : setup.mantle();
             this.hasMantle = setup.mantle() != null;
@@ -590,7 +593,7 @@ public final class SillModel {
             double prevStep = 0;
             boolean prevValid = false;
             while (t < duration) {
-                checkpoint.run();
+                deadline.check();
                 double tEvent = duration;
                 if (nextEmplacement < emplacementTimes.length) {
                     tEvent = Math.min(tEvent, emplacementTimes[nextEmplacement]);
