@@ -1,0 +1,202 @@
+package org.tectomelt.http;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
+import io.javalin.Javalin;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.atomic.AtomicReference;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
+import org.junit.jupiter.api.Test;
+import org.openqa.selenium.By;
+import org.openqa.selenium.WebElement;
+import org.tectomelt.Config;
+
+/**
+ * The page at {@code /} in a real browser (headless Chromium): fills a form, submits it, reads
+ * the summary, checks that the SVG drew its curves, downloads, "copy as curl" and the token box.
+ * Screenshots land in {@code service/target/browser/}. Tagged "browser": run with {@code -Pbrowser}.
+ */
+@Tag("browser")
+class PageBrowserTest {
+
+    private static final ObjectMapper JSON = new ObjectMapper();
+    private static HeadlessChromium browser;
+
+    @BeforeAll
+    static void startBrowser() {
+        browser = new HeadlessChromium();
+    }
+
+    @AfterAll
+    static void stopBrowser() {
+        if (browser != null) {
+            browser.close();
+        }
+    }
+
+    private static String page(String tool) {
+        return TestServer.baseUri() + "/#" + tool;
+    }
+
+    private static JsonNode spec() throws IOException {
+        return new ObjectMapper(new YAMLFactory()).readTree(Path.of("..", "api-spec", "openapi.yaml").toFile());
+    }
+
+    private static String text(String css) {
+        return browser.driver.findElement(By.cssSelector(css)).getText();
+    }
+
+    /** Numbers of the listing column {@code key}, as shown. */
+    private static List<Double> column(String key) {
+        List<Double> out = new ArrayList<>();
+        for (WebElement td : browser.driver.findElements(By.cssSelector("#listing td[data-key='" + key + "']"))) {
+            out.add(Double.parseDouble(td.getText()));
+        }
+        return out;
+    }
+
+    @Test
+    void everyToolIsListedAndMarkedAvailableExactlyWhenTheSpecHasItsEndpoint() throws IOException {
+        browser.open(page("pressure"));
+        JsonNode paths = spec().get("paths");
+        JsonNode tools = JSON.readTree(PageBrowserTest.class.getResourceAsStream("/public/tools.json")).get("tools");
+        int available = 0;
+        for (JsonNode t : tools) {
+            WebElement link = browser.driver.findElement(By.cssSelector("#tools a[data-tool='" + t.get("id").asText() + "']"));
+            boolean expected = paths.has(t.get("endpoint").asText());
+            assertEquals(String.valueOf(expected), link.getAttribute("data-available"), t.get("id").asText());
+            available += expected ? 1 : 0;
+        }
+        assertTrue(available >= 1, "at least the pressure tool has its endpoint");
+        assertTrue(browser.driver.findElement(By.id("cautions")).isDisplayed());
+        assertTrue(text("#cautions").contains("research estimates"));
+        assertTrue(text("#cautions").contains("licensed professional practice"));
+    }
+
+    @Test
+    void pressureFormDrawsItsCurveAndGivesTheReferencePressures() throws Exception {
+        browser.open(page("pressure"));
+        browser.fill("depthsKm", "0, 30.9, 61.8");
+        browser.fill("crustThicknessKm", "0");
+        assertEquals("done", browser.submit());
+
+        // REFERENCES §1.1 [calc]: mantle-only column (3300 kg/m³, g = 9.81), 1 GPa at 30.9 km, 2 GPa at 61.8 km
+        List<Double> p = column("pressureGPa");
+        assertEquals(3, p.size());
+        assertEquals(0.0, p.get(0), 1e-9);
+        assertEquals(1.0, p.get(1), 0.002);
+        assertEquals(2.0, p.get(2), 0.002);
+
+        WebElement curve = browser.driver.findElement(By.cssSelector("#plots svg path.curve.role-path"));
+        assertEquals("3", curve.getAttribute("data-points"));
+        assertTrue(curve.getAttribute("d").matches("M[-0-9.,]+(L[-0-9.,]+){2}"), curve.getAttribute("d"));
+        String svgText = text("#plots svg");
+        assertTrue(svgText.contains("Depth (km)"), svgText);
+        assertTrue(svgText.contains("Pressure (GPa)"), svgText);
+        assertTrue(svgText.contains("lithostatic pressure"), "legend: " + svgText);
+        assertTrue(text("#results .result-caution").contains("not a hazard, geothermal or site assessment"));
+        browser.screenshot("pressure");
+    }
+
+    @Test
+    void csvAndJsonDownloadsHoldTheResult() throws Exception {
+        browser.open(page("pressure"));
+        browser.fill("depthsKm", "10, 20");
+        assertEquals("done", browser.submit());
+        browser.driver.findElement(By.id("download-csv")).click();
+        List<String> csv = Files.readAllLines(browser.downloaded("tectomelt-pressure.csv"), StandardCharsets.UTF_8);
+        assertEquals("depthKm,pressureGPa", csv.get(0));
+        assertEquals(3, csv.size());
+        assertEquals(10.0, Double.parseDouble(csv.get(1).split(",")[0]), 0);
+        browser.driver.findElement(By.id("download-json")).click();
+        JsonNode json = JSON.readTree(browser.downloaded("tectomelt-pressure.json").toFile());
+        assertEquals(20.0, json.at("/points/1/depthKm").asDouble(), 0);
+        assertEquals("lithostatic-two-layer", json.at("/models/0/id").asText());
+    }
+
+    @Test
+    void copyAsCurlReproducesTheRequest() throws Exception {
+        browser.open(page("pressure"));
+        browser.fill("depthsKm", "12.5, 80");
+        browser.fill("crustThicknessKm", "30");
+        assertEquals("done", browser.submit());
+        browser.driver.findElement(By.id("copy-curl")).click();
+        String command = browser.driver.findElement(By.id("curl-text")).getAttribute("value");
+        assertTrue(command.startsWith("curl "), command);
+        assertTrue(command.contains(TestServer.baseUri() + "/v1/pressure"), command);
+        // run the copied command and compare its answer with what the page got
+        Process proc = new ProcessBuilder("bash", "-c", command).redirectErrorStream(true).start();
+        String out = new String(proc.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertEquals(0, proc.waitFor(), out);
+        JsonNode fromCurl = JSON.readTree(out);
+        assertEquals(List.of(12.5, 80.0), List.of(fromCurl.at("/points/0/depthKm").asDouble(),
+                fromCurl.at("/points/1/depthKm").asDouble()));
+        List<Double> shown = column("pressureGPa");
+        assertEquals(fromCurl.at("/points/1/pressureGPa").asDouble(), shown.get(1), 0.0005);
+    }
+
+    @Test
+    void validationMessagesAppearBesideTheirFields() {
+        browser.open(page("pressure"));
+        browser.fill("depthsKm", "-1, 10");
+        browser.fill("crustThicknessKm", "-5");
+        assertEquals("failed", browser.submit());
+        String crust = text(".field[data-field='crustThicknessKm'] .field-error");
+        assertTrue(crust.contains("between 0 and 100"), crust);
+        String depths = text(".field[data-field='depthsKm'] .field-error");
+        assertTrue(depths.contains("depthsKm[0]"), depths);
+        assertTrue(browser.driver.findElement(By.cssSelector(".field[data-field='crustThicknessKm']"))
+                .getAttribute("class").contains("invalid"));
+        browser.screenshot("pressure-validation");
+
+        browser.fill("crustThicknessKm", "thirty");
+        browser.driver.findElement(By.id("run")).click();
+        assertTrue(text(".field[data-field='crustThicknessKm'] .field-error").contains("not a number"));
+    }
+
+    @Test
+    void theTokenStaysInTheTabAndIsSentAsABearerHeader() throws Exception {
+        AtomicReference<String> seen = new AtomicReference<>();
+        List<Route> routes = new ArrayList<>();
+        for (Route r : App.routes(Config.defaults())) {
+            routes.add(r.path().equals("/v1/pressure")
+                    ? Route.post(r.path(), ctx -> {
+                        seen.set(ctx.header("Authorization"));
+                        r.handler().handle(ctx);
+                    })
+                    : r);
+        }
+        Javalin app = App.create(Config.defaults().withPort(0), RequestObserver.NONE, routes).start("127.0.0.1", 0);
+        try {
+            browser.open("http://127.0.0.1:" + app.port() + "/#pressure");
+            browser.driver.findElement(By.id("token")).sendKeys("lab-token-7");
+            assertEquals("lab-token-7", browser.js("return sessionStorage.getItem('tectomelt.token')"));
+            assertEquals("done", browser.submit());
+            assertEquals("Bearer lab-token-7", seen.get());
+            browser.driver.findElement(By.id("copy-curl")).click();
+            String command = browser.driver.findElement(By.id("curl-text")).getAttribute("value");
+            assertTrue(command.contains("Bearer $TECTOMELT_TOKEN"), command);
+            assertFalse(command.contains("lab-token-7"), "the token itself is never copied");
+
+            browser.driver.findElement(By.id("token-forget")).click();
+            assertEquals(null, browser.js("return sessionStorage.getItem('tectomelt.token')"));
+            assertEquals("done", browser.submit());
+            assertEquals(null, seen.get());
+        } finally {
+            browser.js("sessionStorage.clear()");
+            app.stop();
+        }
+    }
+}
