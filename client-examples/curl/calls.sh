@@ -1,0 +1,41 @@
+#!/usr/bin/env bash
+# One call per endpoint of a running tectomelt service, with curl.
+#
+#   TECTOMELT_URL    service address (default http://localhost:7070)
+#   TECTOMELT_TOKEN  sent as "Authorization: Bearer ..." when set (servers that ask for one)
+#
+# Every call uses --fail-with-body: an HTTP error prints the problem+json the service returned
+# and stops the script with a non-zero status. Scenarios are invented, for demonstration;
+# results are research estimates, not hazard, geothermal or site assessments.
+set -euo pipefail
+
+URL="${TECTOMELT_URL:-http://localhost:7070}"
+URL="${URL%/}"
+AUTH=()
+if [ -n "${TECTOMELT_TOKEN:-}" ]; then
+  AUTH=(-H "Authorization: Bearer ${TECTOMELT_TOKEN}")
+fi
+
+# get PATH — prints the JSON answer
+get() {
+  echo "== GET $1"
+  curl -sS --fail-with-body "${AUTH[@]}" "$URL$1"
+  echo
+}
+
+# post PATH JSON — prints the JSON answer
+post() {
+  echo "== POST $1"
+  curl -sS --fail-with-body "${AUTH[@]}" -X POST "$URL$1" \
+       -H 'Content-Type: application/json' -d "$2"
+  echo
+}
+
+get /v1/health
+
+echo "== GET /openapi.yaml"
+curl -sS --fail-with-body "${AUTH[@]}" -o /dev/null -w 'specification: HTTP %{http_code}, %{size_download} bytes\n' \
+     "$URL/openapi.yaml"
+
+# Pressure at three depths under the made-up Harrow Plateau (42 km of crust).
+post /v1/pressure '{"depthsKm": [20, 42, 100], "crustThicknessKm": 42}'

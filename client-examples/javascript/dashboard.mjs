@@ -1,0 +1,75 @@
+// A dashboard-style summary of a running tectomelt service, with fetch (Node.js 20 or newer,
+// no packages). Each panel is one request; the same code runs in a browser dashboard.
+//
+//   node dashboard.mjs
+//
+// TECTOMELT_URL (default http://localhost:7070); TECTOMELT_TOKEN is sent as a bearer token when
+// set. Any HTTP error ends the program with exit status 1 and the problem the service returned.
+// Scenarios are invented; results are research estimates, not hazard or site assessments.
+
+const BASE = (process.env.TECTOMELT_URL ?? "http://localhost:7070").replace(/\/$/, "");
+const TOKEN = process.env.TECTOMELT_TOKEN;
+
+/** Calls the service; throws with the problem details on any HTTP error. */
+async function call(method, path, body) {
+  const headers = { Accept: "application/json" };
+  if (body !== undefined) headers["Content-Type"] = "application/json";
+  if (TOKEN) headers.Authorization = `Bearer ${TOKEN}`;
+  const res = await fetch(BASE + path, {
+    method, headers, body: body === undefined ? undefined : JSON.stringify(body),
+  });
+  const text = await res.text();
+  if (!res.ok) {
+    let why = text.slice(0, 300);
+    try {
+      const p = JSON.parse(text);
+      why = [p.detail, ...(p.errors ?? []).map((e) => `${e.field}: ${e.message}`)].join("; ");
+    } catch { /* not JSON */ }
+    throw new Error(`${method} ${path} -> HTTP ${res.status}: ${why}`);
+  }
+  return JSON.parse(text);
+}
+
+// The panels: a title, the request, and how to turn the answer into label/value rows.
+// To show a ridge panel, add an entry calling POST /v1/settings/mid-ocean-ridge.
+const PANELS = [
+  {
+    title: "Service",
+    request: () => call("GET", "/v1/health"),
+    rows: (r) => [["status", r.status], ["version", r.version]],
+  },
+  {
+    title: "Invented Harrow Plateau: pressure at depth (42 km crust)",
+    request: () => call("POST", "/v1/pressure", { depthsKm: [10, 42, 60, 100, 150], crustThicknessKm: 42 }),
+    rows: (r) => r.points.map((p) => [`${p.depthKm} km`, `${p.pressureGPa.toFixed(3)} GPa`]),
+  },
+  {
+    title: "Invented Harrow Plateau: depth of pressure (42 km crust)",
+    request: () => call("POST", "/v1/pressure", { pressuresGPa: [1, 2, 3], crustThicknessKm: 42 }),
+    rows: (r) => r.points.map((p) => [`${p.pressureGPa} GPa`, `${p.depthKm.toFixed(1)} km`]),
+  },
+];
+
+function box(title, rows) {
+  const width = Math.max(title.length, ...rows.map(([k, v]) => String(k).length + String(v).length + 3));
+  const line = "─".repeat(width + 2);
+  const out = [`┌${line}┐`, `│ ${title.padEnd(width)} │`, `├${line}┤`];
+  for (const [k, v] of rows) {
+    const gap = width - String(k).length - String(v).length;
+    out.push(`│ ${k}${" ".repeat(gap)}${v} │`);
+  }
+  out.push(`└${line}┘`);
+  return out.join("\n");
+}
+
+async function main() {
+  console.log(`tectomelt at ${BASE}`);
+  // the panels load concurrently, as on a dashboard
+  const answers = await Promise.all(PANELS.map((p) => p.request()));
+  PANELS.forEach((p, i) => console.log(box(p.title, p.rows(answers[i]))));
+}
+
+main().catch((e) => {
+  console.error(`error: ${e.message}${e.cause ? ` (${e.cause.code ?? e.cause.message})` : ""}`);
+  process.exitCode = 1;
+});
