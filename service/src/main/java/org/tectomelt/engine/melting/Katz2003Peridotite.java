@@ -1,0 +1,282 @@
+package org.tectomelt.engine.melting;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.apache.commons.math3.analysis.solvers.BrentSolver;
+import org.tectomelt.engine.EngineException;
+import org.tectomelt.engine.ModelInfo;
+
+/**
+ * Peridotite melting after Katz, Spiegelman &amp; Langmuir (2003), dry and hydrous.
+ *
+ * <p>Equations (P in GPa, T in °C, water X in wt% inside the formulas):
+ * <pre>
+ *   anhydrous solidus    Ts = A1 + A2 P + A3 P²
+ *   lherzolite liquidus  Tl = B1 + B2 P + B3 P²
+ *   liquidus             Tq = C1 + C2 P + C3 P²
+ *   Rcpx = r1 + r2 P,  F_cpx-out = Mcpx / Rcpx,  T_cpx-out = F_cpx-out^(1/β1) (Tl − Ts) + Ts
+ *   F = [(T − Ts)/(Tl − Ts)]^β1                                        F ≤ F_cpx-out
+ *   F = F_cpx-out + (1 − F_cpx-out) [(T − T_cpx-out)/(Tq − T_cpx-out)]^β2   above
+ *   water: all curves are lowered by ΔT = K X^γ, X = Xbulk / (D + F (1 − D)),
+ *          X ≤ Xsat = χ1 P^λ + χ2 P
+ * </pre>
+ * With water F appears on both sides; it is solved with a bracketing root finder (Brent), which
+ * always converges because F − F(T + ΔT(F)) increases monotonically in F on [0, 1].
+ *
+ * <p>Source: Katz, R.F., Spiegelman, M. &amp; Langmuir, C.H. (2003) A new parameterization of
+ * hydrous mantle melting. Geochemistry, Geophysics, Geosystems 4(9), 1073,
+ * doi:10.1029/2002GC000433; parameters of their Table 2 as listed in REFERENCES.md §2.1 (from
+ * memory there; A2 and A3 coincide with Hirschmann 2000).
+ *
+ * <p>Validity: calibrated on experiments from 0 to about {@value #CALIBRATED_MAX_GPA} GPa; results up
+ * to {@value #HARD_MAX_GPA} GPa carry a warning, beyond that the model refuses. Bulk water up to
+ * {@value #MAX_BULK_WATER_WT_PCT} wt%. Accuracy: the fits reproduce the experimental melt
+ * fractions to a few percent absolute and the solidus to some tens of kelvin; the
+ * cpx mode {@code Mcpx} (0.17, fertile) is the least certain parameter.
+ *
+ * @param cpxMode modal clinopyroxene fraction Mcpx of the source (0.17 for fertile peridotite)
+ */
+public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
+
+    /** Provenance. */
+    public static final ModelInfo INFO = new ModelInfo("peridotite-katz2003",
+            "Katz, R.F., Spiegelman, M. & Langmuir, C.H. (2003) A new parameterization of hydrous mantle "
+                    + "melting. Geochemistry, Geophysics, Geosystems 4(9), 1073",
+            "10.1029/2002GC000433");
+
+    /** Upper end of the experimental calibration (GPa). */
+    public static final double CALIBRATED_MAX_GPA = 8.0;
+    /** Beyond this pressure (GPa) the model refuses. */
+    public static final double HARD_MAX_GPA = 10.0;
+    /** Largest accepted bulk water (wt%). */
+    public static final double MAX_BULK_WATER_WT_PCT = 5.0;
+    /** Default modal cpx of a fertile source. */
+    public static final double FERTILE_CPX_MODE = 0.17;
+
+    // Table 2 of Katz et al. (2003): °C, °C/GPa, °C/GPa².
+    static final double A1 = 1085.7, A2 = 132.9, A3 = -5.1;
+    static final double B1 = 1475.0, B2 = 80.0, B3 = -3.2;
+    static final double C1 = 1780.0, C2 = 45.0, C3 = -2.0;
+    static final double R1 = 0.50, R2 = 0.08;
+    static final double BETA1 = 1.50, BETA2 = 1.50;
+    /** K (°C / wt%^γ) and γ of the solidus depression ΔT = K X^γ. */
+    static final double K = 43.0, GAMMA = 0.75;
+    /** Bulk/melt partition coefficient of water. */
+    static final double D_WATER = 0.01;
+    /** Saturation: Xsat = χ1 P^λ + χ2 P (wt%). */
+    static final double CHI1 = 12.0, CHI2 = 1.0, LAMBDA = 0.6;
+
+    /** Table 2 thermodynamic constants. */
+    public static final MantleThermodynamics THERMODYNAMICS =
+            new MantleThermodynamics(1000.0, 300.0, 4.0e-5, 6.8e-5, 3300.0, 2900.0);
+
+    private static final double ZERO_C = 273.15;
+    private static final double ROOT_ACCURACY = 1e-12;
+    private static final int MAX_EVALUATIONS = 200;
+
+    /** Validates the cpx mode. */
+    public Katz2003Peridotite {
+        if (!(cpxMode > 0 && cpxMode <= 0.5)) {
+            throw new EngineException("cpx mode must be between 0 and 0.5, got " + cpxMode);
+        }
+    }
+
+    /** The fertile source of the paper (Mcpx = 0.17). */
+    public static Katz2003Peridotite fertile() {
+        return new Katz2003Peridotite(FERTILE_CPX_MODE);
+    }
+
+    @Override
+    public ModelInfo info() {
+        return INFO;
+    }
+
+    @Override
+    public String name() {
+        return "Peridotite (Katz, Spiegelman & Langmuir 2003), dry and hydrous";
+    }
+
+    @Override
+    public Kind kind() {
+        return Kind.MANTLE;
+    }
+
+    @Override
+    public boolean hydrous() {
+        return true;
+    }
+
+    @Override
+    public double minPressure() {
+        return 0.0;
+    }
+
+    @Override
+    public double maxPressure() {
+        return CALIBRATED_MAX_GPA * 1e9;
+    }
+
+    @Override
+    public double hardMaxPressure() {
+        return HARD_MAX_GPA * 1e9;
+    }
+
+    @Override
+    public double maxBulkWater() {
+        return MAX_BULK_WATER_WT_PCT / 100.0;
+    }
+
+    @Override
+    public MantleThermodynamics thermodynamics() {
+        return THERMODYNAMICS;
+    }
+
+    /** Anhydrous solidus Ts (K). */
+    @Override
+    public double drySolidus(double p) {
+        double g = gpa(p);
+        return A1 + A2 * g + A3 * g * g + ZERO_C;
+    }
+
+    /** Lherzolite liquidus Tl (K): where the dry cpx-bearing assemblage would be fully molten. */
+    public double lherzoliteLiquidus(double p) {
+        double g = gpa(p);
+        return B1 + B2 * g + B3 * g * g + ZERO_C;
+    }
+
+    /** Dry liquidus Tq (K). */
+    public double dryLiquidus(double p) {
+        double g = gpa(p);
+        return C1 + C2 * g + C3 * g * g + ZERO_C;
+    }
+
+    /** Melt fraction at which cpx is exhausted, F_cpx-out = Mcpx / (r1 + r2 P), capped at 1. */
+    public double cpxExhaustionFraction(double p) {
+        return Math.min(1.0, cpxMode / (R1 + R2 * gpa(p)));
+    }
+
+    /** Dry temperature of cpx exhaustion T_cpx-out (K). */
+    public double cpxExhaustionTemperature(double p) {
+        double ts = drySolidus(p);
+        return Math.pow(cpxExhaustionFraction(p), 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts) + ts;
+    }
+
+    /** Water content of a water-saturated melt, Xsat (mass fraction). */
+    public double waterSaturation(double p) {
+        double g = gpa(p);
+        return (CHI1 * Math.pow(g, LAMBDA) + CHI2 * g) / 100.0;
+    }
+
+    /** Lowering of the curves ΔT = K X^γ (K) for water {@code waterInMelt} (mass fraction) in the melt. */
+    public static double solidusDepression(double waterInMelt) {
+        return waterInMelt <= 0 ? 0.0 : K * Math.pow(waterInMelt * 100.0, GAMMA);
+    }
+
+    /** The water-saturated solidus (K): the dry solidus lowered by ΔT(Xsat). */
+    public double saturatedSolidus(double p) {
+        return drySolidus(p) - solidusDepression(waterSaturation(p));
+    }
+
+    /** Solidus (K) lowered by bulk water: incipient melt carries Xbulk / D, capped at saturation. */
+    public double wetSolidus(double p, double bulkWater) {
+        return drySolidus(p) - solidusDepression(waterInMelt(p, 0.0, bulkWater));
+    }
+
+    /** Liquidus (K) at bulk water: the melt carries all the water, capped at saturation. */
+    public double wetLiquidus(double p, double bulkWater) {
+        return dryLiquidus(p) - solidusDepression(waterInMelt(p, 1.0, bulkWater));
+    }
+
+    /** Water in the melt (mass fraction) at melt fraction {@code f}: Xbulk / (D + F(1 − D)), capped at Xsat. */
+    public double waterInMelt(double p, double f, double bulkWater) {
+        if (bulkWater <= 0) {
+            return 0.0;
+        }
+        return Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), waterSaturation(p));
+    }
+
+    /** Dry melt fraction at an effective temperature (K) at pressure p. */
+    double dryMeltFraction(double p, double t) {
+        double ts = drySolidus(p);
+        if (t <= ts) {
+            return 0.0;
+        }
+        double tl = lherzoliteLiquidus(p);
+        double fCpx = cpxExhaustionFraction(p);
+        double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
+        if (t < tCpx) {
+            return Math.pow((t - ts) / (tl - ts), BETA1);
+        }
+        double tq = dryLiquidus(p);
+        if (t >= tq) {
+            return 1.0;
+        }
+        return fCpx + (1.0 - fCpx) * Math.pow((t - tCpx) / (tq - tCpx), BETA2);
+    }
+
+    @Override
+    public MeltState melt(double p, double t, double bulkWater) {
+        List<String> warnings = check(p, bulkWater);
+        double f = meltFraction(p, t, bulkWater);
+        double xMelt = f > 0 ? waterInMelt(p, f, bulkWater) : 0.0;
+        boolean saturated = bulkWater > 0 && bulkWater / (D_WATER + f * (1.0 - D_WATER)) >= waterSaturation(p);
+        if (saturated) {
+            warnings.add("water exceeds what the melt can dissolve at this pressure: the excess is a free fluid phase");
+        }
+        boolean cpxOut = f > 0 && f >= cpxExhaustionFraction(p) - 1e-12;
+        return new MeltState(f, wetSolidus(p, bulkWater), drySolidus(p), wetLiquidus(p, bulkWater), xMelt,
+                saturated, cpxOut, warnings);
+    }
+
+    /** Melt fraction only (the hot path of columns and batches). */
+    public double meltFraction(double p, double t, double bulkWater) {
+        if (bulkWater <= 0) {
+            return dryMeltFraction(p, t);
+        }
+        if (dryMeltFraction(p, t + solidusDepression(waterInMelt(p, 0.0, bulkWater))) <= 0) {
+            return 0.0;
+        }
+        if (dryMeltFraction(p, t + solidusDepression(waterInMelt(p, 1.0, bulkWater))) >= 1.0) {
+            return 1.0;
+        }
+        BrentSolver solver = new BrentSolver(ROOT_ACCURACY);
+        return solver.solve(MAX_EVALUATIONS,
+                f -> f - dryMeltFraction(p, t + solidusDepression(waterInMelt(p, f, bulkWater))), 0.0, 1.0);
+    }
+
+    @Override
+    public double temperatureAt(double p, double f, double bulkWater) {
+        double dT = solidusDepression(waterInMelt(p, f, bulkWater));
+        double ts = drySolidus(p);
+        double fCpx = cpxExhaustionFraction(p);
+        if (f <= fCpx) {
+            return ts + Math.pow(f, 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts) - dT;
+        }
+        double tCpx = cpxExhaustionTemperature(p);
+        return tCpx + Math.pow((f - fCpx) / (1.0 - fCpx), 1.0 / BETA2) * (dryLiquidus(p) - tCpx) - dT;
+    }
+
+    private List<String> check(double p, double bulkWater) {
+        if (!(p >= 0) || p > hardMaxPressure()) {
+            throw new EngineException(String.format(Locale.ROOT,
+                    "Katz et al. (2003) peridotite gives no number at %.3g GPa: pressure must be between 0 and %.0f GPa",
+                    gpa(p), HARD_MAX_GPA));
+        }
+        if (!(bulkWater >= 0) || bulkWater > maxBulkWater()) {
+            throw new EngineException(String.format(Locale.ROOT,
+                    "Katz et al. (2003) peridotite accepts bulk water between 0 and %.0f wt%%", MAX_BULK_WATER_WT_PCT));
+        }
+        List<String> warnings = new ArrayList<>(1);
+        if (p > maxPressure()) {
+            warnings.add(String.format(Locale.ROOT,
+                    "pressure %.2f GPa is above the %.0f GPa calibration of Katz et al. (2003): extrapolated",
+                    gpa(p), CALIBRATED_MAX_GPA));
+        }
+        return warnings;
+    }
+
+    private static double gpa(double p) {
+        return p * 1e-9;
+    }
+}

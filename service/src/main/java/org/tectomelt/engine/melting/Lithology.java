@@ -1,0 +1,77 @@
+package org.tectomelt.engine.melting;
+
+import java.util.List;
+import org.tectomelt.engine.ModelInfo;
+
+/**
+ * A rock with a published melting law: solidus, liquidus and melt fraction as functions of
+ * pressure, temperature and bulk water. SI throughout: pressure in Pa, temperature in K, water
+ * as a mass fraction of the bulk rock.
+ *
+ * <p>Implementations are immutable and thread-safe.
+ */
+public interface Lithology {
+
+    /** What the rock is in the settings that use it. */
+    enum Kind {
+        /** Mantle peridotite, melted by decompression or flux. */
+        MANTLE,
+        /** Crustal rock, melted by heating. */
+        CRUST,
+        /** Magma emplaced as an intrusion, crystallising over its melting interval. */
+        INTRUSION
+    }
+
+    /** Identity and principal citation. */
+    ModelInfo info();
+
+    /** Every source the model draws on (the principal one first). */
+    default List<ModelInfo> citations() {
+        return List.of(info());
+    }
+
+    /** Stable identifier used by the API, e.g. {@code peridotite-katz2003}. */
+    default String id() {
+        return info().id();
+    }
+
+    /** Human-readable name. */
+    String name();
+
+    /** Role of the rock. */
+    Kind kind();
+
+    /** True when bulk water changes the result (the model is hydrous-capable). */
+    boolean hydrous();
+
+    /** Lowest pressure of the calibration (Pa). */
+    double minPressure();
+
+    /** Highest pressure of the calibration (Pa); beyond it results carry a warning. */
+    double maxPressure();
+
+    /**
+     * Highest pressure (Pa) at which the model still gives a number at all; beyond it
+     * {@link #melt} throws {@link org.tectomelt.engine.EngineException}.
+     */
+    default double hardMaxPressure() {
+        return maxPressure();
+    }
+
+    /** Largest bulk water (mass fraction) the model accepts; 0 for dry-only models. */
+    double maxBulkWater();
+
+    /** Solidus of the dry rock (K) at pressure {@code p} (Pa). */
+    double drySolidus(double p);
+
+    /**
+     * Melt state at a pressure, temperature and bulk water content.
+     *
+     * @param p         pressure (Pa)
+     * @param t         temperature (K)
+     * @param bulkWater bulk water (mass fraction); ignored by dry models
+     * @return melt fraction, the curves at this pressure and water, and validity warnings
+     * @throws org.tectomelt.engine.EngineException when the model cannot give a number
+     */
+    MeltState melt(double p, double t, double bulkWater);
+}

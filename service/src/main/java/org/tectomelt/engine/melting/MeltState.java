@@ -1,0 +1,25 @@
+package org.tectomelt.engine.melting;
+
+import java.util.List;
+
+/**
+ * The melt state of a rock at one pressure, temperature and bulk water content.
+ *
+ * @param meltFraction   melt mass fraction F, 0–1
+ * @param solidus        solidus (K) lowered by the bulk water (equal to {@code drySolidus} when dry)
+ * @param drySolidus     solidus of the dry rock (K)
+ * @param liquidus       liquidus (K) at this water content
+ * @param waterInMelt    water dissolved in the melt (mass fraction); 0 when no melt is present
+ * @param waterSaturated true when the melt holds all the water it can and the rest is free fluid
+ * @param cpxExhausted   true when clinopyroxene is used up (mantle models that track it)
+ * @param warnings       validity-range and other notes for the caller (empty when none)
+ */
+public record MeltState(double meltFraction, double solidus, double drySolidus, double liquidus,
+                        double waterInMelt, boolean waterSaturated, boolean cpxExhausted,
+                        List<String> warnings) {
+
+    /** Defensive copy of the warnings. */
+    public MeltState {
+        warnings = List.copyOf(warnings);
+    }
+}
