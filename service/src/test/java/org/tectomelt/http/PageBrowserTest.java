@@ -14,7 +14,10 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.atomic.AtomicReference;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Tag;
@@ -164,6 +167,88 @@ class PageBrowserTest {
         browser.fill("crustThicknessKm", "thirty");
         browser.driver.findElement(By.id("run")).click();
         assertTrue(text(".field[data-field='crustThicknessKm'] .field-error").contains("not a number"));
+    }
+
+    /** Runs {@code body} (which may await) in the page with the page's modules as {@code plot} and {@code app}. */
+    @SuppressWarnings("unchecked")
+    private static Map<String, Object> inPage(String body) {
+        return (Map<String, Object>) browser.driver.executeAsyncScript(
+                "const done = arguments[arguments.length - 1];"
+                        + "Promise.all([import('/plot.js'), import('/app.js')]).then(async ([plot, app]) => {"
+                        + body + "}).then(done, (e) => done({error: String(e)}));");
+    }
+
+    /** The (x, y) pairs of an SVG path's "M x,y L x,y ..." data. */
+    private static List<double[]> vertices(String d) {
+        List<double[]> out = new ArrayList<>();
+        Matcher m = Pattern.compile("[ML](-?[0-9.]+),(-?[0-9.]+)").matcher(d);
+        while (m.find()) {
+            out.add(new double[] {Double.parseDouble(m.group(1)), Double.parseDouble(m.group(2))});
+        }
+        return out;
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void depthPlotsPutDepthDownwardAndDrawLegendLevelsMarksAndGaps() {
+        browser.open(page("pressure"));
+        Map<String, Object> r = inPage(""
+                + "const svg = plot.drawPlot({title: 'Test geotherm', x: {label: 'Temperature', unit: '°C'},"
+                + "  y: {label: 'Depth', unit: 'km'}, invertY: true,"
+                + "  series: [{label: 'geotherm', role: 'path', points: [[0, 0], [600, 40], [1300, 100]]},"
+                + "           {label: 'melting part', role: 'melting', points: [[1200, 50], [NaN, NaN], [1250, 60], [1300, 100]]}],"
+                + "  levels: [{y: 40, label: 'Moho'}], marks: [{x: 1000, y: 50, label: 'sample'}]});"
+                + "document.body.append(svg);"
+                + "const xy = plot.drawPlot({title: 'Test series', x: {label: 'Time', unit: 'kyr'},"
+                + "  y: {label: 'Melt', unit: 'm'}, series: [{label: 'melt', role: 'melt', points: [[0, 0], [10, 5]]}]});"
+                + "return {paths: [...svg.querySelectorAll('path.curve')].map((p) => p.getAttribute('d')),"
+                + "  legend: [...svg.querySelectorAll('.legend-text')].map((t) => t.textContent),"
+                + "  axes: [...svg.querySelectorAll('.axis-title')].map((t) => t.textContent),"
+                + "  levels: [...svg.querySelectorAll('.level-label')].map((t) => t.textContent),"
+                + "  marks: svg.querySelectorAll('path.mark').length,"
+                + "  xyPath: xy.querySelector('path.curve').getAttribute('d')};");
+        assertEquals(null, r.get("error"));
+        List<String> paths = (List<String>) r.get("paths");
+        assertEquals(2, paths.size());
+        List<double[]> geotherm = vertices(paths.get(0));
+        assertEquals(3, geotherm.size());
+        assertTrue(geotherm.get(1)[1] > geotherm.get(0)[1] && geotherm.get(2)[1] > geotherm.get(1)[1],
+                "deeper is lower on the page: " + paths.get(0));
+        assertTrue(geotherm.get(2)[0] > geotherm.get(0)[0], "hotter is to the right");
+        assertEquals(2, paths.get(1).chars().filter(c -> c == 'M').count(), "a gap breaks the curve: " + paths.get(1));
+        assertEquals(List.of("geotherm", "melting part", "sample"), r.get("legend"));
+        assertEquals(List.of("Temperature (°C)", "Depth (km) ↓"), r.get("axes"));
+        assertEquals(List.of("Moho"), r.get("levels"));
+        assertEquals(2L, ((Number) r.get("marks")).longValue(), "the mark and its legend entry");
+        List<double[]> xy = vertices((String) r.get("xyPath"));
+        assertTrue(xy.get(1)[1] < xy.get(0)[1], "an ordinary plot has its y axis upward");
+    }
+
+    @Test
+    void csvFlattensTheTableAndCurlQuotesForTheShell() throws Exception {
+        browser.open(page("pressure"));
+        Map<String, Object> r = inPage(""
+                + "return {table: app.toCsv({table: ['column.profile', 'profile']},"
+                + "    {profile: [{depthKm: 1, onset: {t: 2}}, {depthKm: 2.5, note: 'a,\"b\"'}]}),"
+                + "  scalars: app.toCsv({table: ['profile']}, {meltFraction: 0.12, waterSaturated: false, models: [{id: 'x'}]}),"
+                + "  curl: app.curlCommand('http://127.0.0.1:9/v1/x', {lithology: \"it's $HOME\"}, true),"
+                + "  paths: [...app.specPaths('paths:\\n  /v1/a:\\n    post: {}\\n  /v1/b:\\n    get: {}\\ncomponents:\\n  /v1/c:\\n')],"
+                + "  fmt: [app.fmt(1234.5678, 1), app.fmt(2.5e9, 3), app.fmt(0, 2)]};");
+        assertEquals(null, r.get("error"));
+        assertEquals("depthKm,onset.t,note\n1,2,\n2.5,,\"a,\"\"b\"\"\"\n", r.get("table"));
+        assertEquals("field,value\nmeltFraction,0.12\nwaterSaturated,false\n", r.get("scalars"));
+        assertEquals(List.of("/v1/a", "/v1/b"), r.get("paths"));
+        assertEquals(List.of("1234.6", "2.500e+9", "0.00"), r.get("fmt"));
+        // the copied command, run by bash with curl replaced by a function that prints its arguments
+        ProcessBuilder pb = new ProcessBuilder("bash", "-c",
+                "curl() { printf '%s\\n' \"$@\"; }\n" + r.get("curl"));
+        pb.environment().put("TECTOMELT_TOKEN", "tok-1");
+        Process proc = pb.redirectErrorStream(true).start();
+        List<String> args = List.of(new String(proc.getInputStream().readAllBytes(), StandardCharsets.UTF_8).split("\n"));
+        assertEquals(0, proc.waitFor());
+        assertTrue(args.contains("Authorization: Bearer tok-1"), args.toString());
+        assertTrue(args.contains("{\"lithology\":\"it's $HOME\"}"), "the body reaches curl unchanged: " + args);
+        assertTrue(args.contains("http://127.0.0.1:9/v1/x"), args.toString());
     }
 
     @Test
