@@ -69,6 +69,7 @@ public final class App {
         all.addAll(MetaRoutes.routes());
         all.addAll(PressureRoutes.routes());
         // thermal: geotherm routes
+        all.addAll(GeothermRoutes.routes());
 
         // melting: lithologies, melt fraction, solidus crossings
 
