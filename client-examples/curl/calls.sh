@@ -39,3 +39,7 @@ curl -sS --fail-with-body "${AUTH[@]}" -o /dev/null -w 'specification: HTTP %{ht
 
 # Pressure at three depths under the made-up Harrow Plateau (42 km of crust).
 post /v1/pressure '{"depthsKm": [20, 42, 100], "crustThicknessKm": 42}'
+
+# Geotherm of the made-up Harrow Plateau: continental, 62 mW/m², 38 km crust, over a 1330 °C adiabat.
+post /v1/geotherm '{"lithosphere": {"type": "continental", "surfaceHeatFlowMWPerM2": 62, "crustThicknessKm": 38},
+                    "potentialTemperatureC": 1330, "maxDepthKm": 200, "stepKm": 50}'

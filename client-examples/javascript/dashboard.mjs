@@ -48,6 +48,18 @@ const PANELS = [
     request: () => call("POST", "/v1/pressure", { pressuresGPa: [1, 2, 3], crustThicknessKm: 42 }),
     rows: (r) => r.points.map((p) => [`${p.pressureGPa} GPa`, `${p.depthKm.toFixed(1)} km`]),
   },
+  {
+    title: "Invented Harrow Plateau: geotherm (62 mW/m², 38 km crust, Tp 1330 °C)",
+    request: () => call("POST", "/v1/geotherm", {
+      lithosphere: { type: "continental", surfaceHeatFlowMWPerM2: 62, crustThicknessKm: 38 },
+      potentialTemperatureC: 1330, maxDepthKm: 250, stepKm: 50,
+    }),
+    rows: (r) => [
+      ["Moho temperature", `${r.mohoTemperatureC.toFixed(0)} °C`],
+      ["base of the thermal lithosphere", `${r.lithosphereBaseDepthKm.toFixed(1)} km`],
+      ...r.points.map((p) => [`T at ${p.depthKm} km`, `${p.temperatureC.toFixed(0)} °C`]),
+    ],
+  },
 ];
 
 function box(title, rows) {

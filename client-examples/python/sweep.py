@@ -31,27 +31,38 @@ def frange(start, stop, step):
     return [round(start + i * step, 10) for i in range(n + 1)]
 
 
-# Each sweep: the endpoint, the request field that varies and its values, the fixed part of the
-# request, and the columns to print (heading, function of (value, response)).
+# Each sweep: the endpoint, the values of the one input that varies, the request for a value,
+# and the columns to print (heading, function of (value, response)).
 SWEEPS = {
     "ridge": {
         "title": "Crustal thickness against mantle potential temperature at a fictional ridge segment",
         "endpoint": "/v1/settings/mid-ocean-ridge",
-        "vary": "potentialTemperatureC",
         "values": frange(1250, 1450, 25),
-        "fixed": {"bulkWaterWtPct": 0, "fullSpreadingRateMmPerYr": 48, "lithology": "peridotite-katz2003"},
+        "body": lambda tp: {"potentialTemperatureC": tp, "bulkWaterWtPct": 0,
+                            "fullSpreadingRateMmPerYr": 48, "lithology": "peridotite-katz2003"},
         "columns": [
             ("Tp (°C)", lambda v, r: v),
             ("crust (km)", lambda v, r: r["crustalThicknessKm"]),
             ("new crust (km³/yr per km)", lambda v, r: r["meltProductionKm3PerYrPerKm"]),
         ],
     },
+    "moho": {
+        "title": "Moho temperature and lithosphere thickness against surface heat flow (invented plateau, 38 km crust)",
+        "endpoint": "/v1/geotherm",
+        "values": frange(40, 90, 10),
+        "body": lambda q0: {"lithosphere": {"type": "continental", "surfaceHeatFlowMWPerM2": q0, "crustThicknessKm": 38},
+                            "potentialTemperatureC": 1330, "maxDepthKm": 300, "stepKm": 5},
+        "columns": [
+            ("q0 (mW/m²)", lambda v, r: v),
+            ("Moho T (°C)", lambda v, r: r["mohoTemperatureC"]),
+            ("lithosphere base (km)", lambda v, r: r["lithosphereBaseDepthKm"]),
+        ],
+    },
     "pressure": {
         "title": "Depth of 1, 2 and 3 GPa against crust thickness (invented plateau)",
         "endpoint": "/v1/pressure",
-        "vary": "crustThicknessKm",
         "values": frange(0, 60, 10),
-        "fixed": {"pressuresGPa": [1, 2, 3]},
+        "body": lambda crust: {"pressuresGPa": [1, 2, 3], "crustThicknessKm": crust},
         "columns": [
             ("crust (km)", lambda v, r: v),
             ("1 GPa at (km)", lambda v, r: r["points"][0]["depthKm"]),
@@ -61,8 +72,8 @@ SWEEPS = {
     },
 }
 
-# The sweep run without --sweep.
-DEFAULT_SWEEP = "pressure"
+# The sweep run without --sweep ("ridge" once the server offers /v1/settings/mid-ocean-ridge).
+DEFAULT_SWEEP = "moho"
 
 
 class ServiceError(Exception):
@@ -100,8 +111,7 @@ def run(name):
     headings = [c[0] for c in sweep["columns"]]
     rows = []
     for value in sweep["values"]:
-        body = dict(sweep["fixed"], **{sweep["vary"]: value})
-        answer = post(sweep["endpoint"], body)
+        answer = post(sweep["endpoint"], sweep["body"](value))
         rows.append([column(value, answer) for _, column in sweep["columns"]])
     return headings, rows
 

@@ -169,6 +169,59 @@ class PageBrowserTest {
         assertTrue(text(".field[data-field='crustThicknessKm'] .field-error").contains("not a number"));
     }
 
+    /** The number shown in the summary row for response path {@code path}. */
+    private static double summary(String path) {
+        return Double.parseDouble(text("#summary tr[data-path='" + path + "'] td.value"));
+    }
+
+    @Test
+    void continentalGeothermGivesTheClosedFormMohoTemperatureAndDrawsItsCurve() {
+        browser.open(page("geotherm"));
+        // the invented plateau's defaults: 62 mW/m², 60 % reduced heat flow, 10 km scale, k = 2.5, 38 km crust
+        browser.fill("lithosphere.surfaceHeatFlowMWPerM2", "62");
+        browser.fill("maxDepthKm", "250");
+        browser.fill("stepKm", "2");
+        assertEquals("done", browser.submit());
+
+        // Turcotte & Schubert (2014) eq. 4.31, exponential heat production, evaluated here:
+        // T(z) = T0 + qm z / k + (q0 - qm) hr / k (1 - exp(-z / hr))
+        double q0 = 0.062, qm = 0.6 * q0, hr = 10e3, k = 2.5, z = 38e3;
+        double moho = qm * z / k + (q0 - qm) * hr / k * (1 - Math.exp(-z / hr));
+        assertEquals(moho, summary("mohoTemperatureC"), 0.51, "shown to the degree");
+        assertEquals(62.0, summary("surfaceHeatFlowMWPerM2"), 0.051);
+        double base = summary("lithosphereBaseDepthKm");
+        assertTrue(base > 38 && base < 250, "the conductive profile meets the adiabat below the Moho: " + base);
+
+        WebElement curve = browser.driver.findElement(By.cssSelector("#plots svg path.curve.role-path"));
+        assertEquals("126", curve.getAttribute("data-points"), "0 to 250 km every 2 km");
+        List<double[]> v = vertices(curve.getAttribute("d"));
+        for (int i = 1; i < v.size(); i++) {
+            assertTrue(v.get(i)[1] > v.get(i - 1)[1], "depth increases downward");
+        }
+        String svgText = text("#plots svg");
+        assertTrue(svgText.contains("Moho") && svgText.contains("base of thermal lithosphere"), svgText);
+        assertTrue(svgText.contains("Temperature (°C)") && svgText.contains("Depth (km)"), svgText);
+        browser.screenshot("geotherm");
+    }
+
+    @Test
+    void oceanicPlateShowsItsOwnFieldsAndTheSeaFloorDepth() {
+        browser.open(page("geotherm"));
+        new org.openqa.selenium.support.ui.Select(browser.driver.findElement(By.name("lithosphere.type")))
+                .selectByValue("oceanic-plate");
+        assertTrue(browser.driver.findElements(By.cssSelector(".field:not([hidden])[data-field='lithosphere.surfaceHeatFlowMWPerM2']")).isEmpty(),
+                "continental fields are hidden and not sent");
+        browser.fill("lithosphere.ageMyr", "-1");
+        assertEquals("failed", browser.submit());
+        assertTrue(text(".field[data-field='lithosphere.ageMyr'] .field-error").contains("between"),
+                "a nested field's message sits beside it");
+
+        browser.fill("lithosphere.ageMyr", "60");
+        assertEquals("done", browser.submit());
+        // Stein & Stein (1992) GDH1 depth fit for t >= 20 Myr: d = 5651 - 2473 exp(-0.0278 t) m
+        assertEquals(5651 - 2473 * Math.exp(-0.0278 * 60), summary("seafloorDepthM"), 20);
+    }
+
     /** Runs {@code body} (which may await) in the page with the page's modules as {@code plot} and {@code app}. */
     @SuppressWarnings("unchecked")
     private static Map<String, Object> inPage(String body) {
