@@ -622,8 +622,14 @@ async function drawFigure(figure, spec, last) {
     figure.append(h("p", { class: "empty" }, `${spec.title}: nothing to draw (no melting or no profile returned).`));
     return;
   }
+  let y2;
+  if (spec.y2) {
+    const pairs = rows.filter((r) => typeof r[spec.y.key] === "number" && typeof r[spec.y2.key] === "number")
+      .map((r) => [r[spec.y.key], r[spec.y2.key]]);
+    y2 = pairs.length > 1 ? { label: spec.y2.label, unit: spec.y2.unit, pairs } : undefined;
+  }
   figure.append(drawPlot({
-    title: spec.title, x: spec.x, y: spec.y, invertY: depthPlot, series: drawn, levels, marks,
+    title: spec.title, x: spec.x, y: spec.y, invertY: depthPlot, series: drawn, levels, marks, y2,
   }));
   for (const n of notes) {
     figure.append(h("figcaption", { class: "plot-note" }, n));
@@ -683,7 +689,7 @@ async function solidusCurves(spec, rows, last) {
     const why = res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}`;
     return { series: [], note: "Solidus and liquidus not drawn: " + why };
   }
-  const name = info && info.name ? info.name : lithology;
+  const name = info && info.name ? info.name.replace(/\s*\(.*\)\s*$/, "") : lithology;
   const wet = water > 0 ? `, ${water} wt% water` : "";
   return {
     series: [

@@ -57,15 +57,58 @@ function axisTitle(a) {
   return a.unit ? `${a.label} (${a.unit})` : a.label;
 }
 
+/** Linear interpolation in a table of [a, b] pairs sorted by a; NaN outside it. */
+function interpolate(pairs, a) {
+  for (let i = 1; i < pairs.length; i++) {
+    const [a0, b0] = pairs[i - 1], [a1, b1] = pairs[i];
+    if ((a >= a0 && a <= a1) || (a <= a0 && a >= a1)) {
+      return a1 === a0 ? b0 : b0 + (b1 - b0) * (a - a0) / (a1 - a0);
+    }
+  }
+  return NaN;
+}
+
+/**
+ * A second vertical axis on the right for a quantity that grows with the first (pressure with
+ * depth): its ticks are placed where the given [y, value] pairs put them.
+ */
+function drawSecondAxis(svg, y2, yr, sy, x, midY) {
+  const pairs = y2.pairs.filter(([a, b]) => isFinite(a) && isFinite(b)).sort((p, q) => p[0] - q[0]);
+  if (pairs.length < 2) {
+    return;
+  }
+  const inverse = pairs.map(([a, b]) => [b, a]);
+  const lo = interpolate(pairs, Math.max(yr[0], pairs[0][0]));
+  const hi = interpolate(pairs, Math.min(yr[1], pairs[pairs.length - 1][0]));
+  const t = ticks(Math.min(lo, hi), Math.max(lo, hi), 6);
+  const step = t.length > 1 ? t[1] - t[0] : 1;
+  const g = el("g", { class: "axis-2" });
+  for (const v of t) {
+    const y = interpolate(inverse, v);
+    if (!isFinite(y)) {
+      continue;
+    }
+    const Y = sy(y);
+    g.appendChild(el("line", { x1: x, x2: x + 5, y1: Y, y2: Y, class: "tick-mark" }));
+    g.appendChild(el("text", { x: x + 8, y: Y + 4, class: "tick tick-2" }, fmtTick(v, step)));
+  }
+  const X = x + 44;
+  g.appendChild(el("text", {
+    x: X, y: midY, class: "axis-title y2-axis", "text-anchor": "middle", transform: `rotate(90 ${X} ${midY})`,
+  }, axisTitle(y2)));
+  svg.appendChild(g);
+}
+
 /**
  * Draws one plot.
  * @param spec {title, x: {label, unit}, y: {label, unit}, invertY, series: [{label, role, points: [[x, y]], dots}],
- *             levels: [{y, label}], marks: [{x, y, label}]}
+ *             levels: [{y, label}], marks: [{x, y, label}], y2: {label, unit, pairs: [[y, value]]}}
  * @returns an <svg> element
  */
 export function drawPlot(spec) {
   const W = 480, H = 360;
-  const m = spec.invertY ? { l: 62, r: 16, t: 62, b: 20 } : { l: 62, r: 16, t: 34, b: 48 };
+  const right = spec.y2 ? 54 : 16;
+  const m = spec.invertY ? { l: 62, r: right, t: 62, b: 20 } : { l: 62, r: right, t: 34, b: 48 };
   const pw = W - m.l - m.r, ph = H - m.t - m.b;
   const svg = el("svg", {
     viewBox: `0 0 ${W} ${H}`, class: "plot", role: "img",
@@ -127,6 +170,10 @@ export function drawPlot(spec) {
     x: 14, y: m.t + ph / 2, class: "axis-title y-axis", "text-anchor": "middle",
     transform: `rotate(-90 14 ${m.t + ph / 2})`,
   }, axisTitle(spec.y) + (spec.invertY ? " ↓" : "")));
+
+  if (spec.y2) {
+    drawSecondAxis(svg, spec.y2, yr, sy, m.l + pw, m.t + ph / 2);
+  }
 
   const clipId = "clip-" + Math.random().toString(36).slice(2);
   const defs = el("defs");

@@ -201,6 +201,7 @@ class PageBrowserTest {
         String svgText = text("#plots svg");
         assertTrue(svgText.contains("Moho") && svgText.contains("base of thermal lithosphere"), svgText);
         assertTrue(svgText.contains("Temperature (°C)") && svgText.contains("Depth (km)"), svgText);
+        assertTrue(svgText.contains("Pressure (GPa)"), "the pressure axis beside the depth axis: " + svgText);
         browser.screenshot("geotherm");
     }
 

@@ -142,6 +142,9 @@ class PageContractTest {
                 JsonNode items = requireArray(w, response, p.get("data"), what, problems);
                 String axisKey = p.get("type").asText().equals("depth") ? p.at("/y/key").asText() : p.at("/x/key").asText();
                 requireKey(w, items, axisKey, what, problems);
+                if (p.has("y2")) {
+                    requireKey(w, items, p.at("/y2/key").asText(), what + " second axis", problems);
+                }
                 for (JsonNode s : p.get("series")) {
                     requireKey(w, items, s.path(p.get("type").asText().equals("depth") ? "x" : "y").asText(), what, problems);
                     if (s.has("where")) {
