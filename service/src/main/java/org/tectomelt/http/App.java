@@ -76,6 +76,7 @@ public final class App {
         // settings: decompression column, ridge, hotspot, rift
 
         // settings: subduction
+        all.addAll(SubductionRoutes.routes());
 
         // crust: crustal heating budget and sill model
 

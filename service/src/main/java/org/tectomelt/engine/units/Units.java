@@ -74,6 +74,17 @@ public final class Units {
         return yr * SECONDS_PER_YEAR;
     }
 
+    /** A rate per year → the same rate per second (e.g. kg/m/yr → kg/m/s). */
+    public static double perYrToPerS(double perYr) {
+        return perYr / SECONDS_PER_YEAR;
+    }
+
+    /** Volume rate per metre of arc or ridge, m³/s per m (= m²/s) → km³/yr per km. */
+    public static double m2PerSToKm3PerYrPerKm(double m2PerS) {
+        // × s/yr gives m³/yr per m; × 1e3 m/km gives per km of length; × 1e-9 km³/m³
+        return m2PerS * SECONDS_PER_YEAR * 1e-6;
+    }
+
     /** mW/m² → W/m². */
     public static double mwPerM2ToWPerM2(double mw) {
         return mw * 1e-3;

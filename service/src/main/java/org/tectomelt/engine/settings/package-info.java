@@ -1,0 +1,5 @@
+/**
+ * Tectonic settings built from the thermal and melting models: flux melting in a subduction wedge
+ * and its arc magma budget. SI units: Pa, K, m, s, kg, mass fractions.
+ */
+package org.tectomelt.engine.settings;
