@@ -43,3 +43,7 @@ post /v1/pressure '{"depthsKm": [20, 42, 100], "crustThicknessKm": 42}'
 # Geotherm of the made-up Harrow Plateau: continental, 62 mW/m², 38 km crust, over a 1330 °C adiabat.
 post /v1/geotherm '{"lithosphere": {"type": "continental", "surfaceHeatFlowMWPerM2": 62, "crustThicknessKm": 38},
                     "potentialTemperatureC": 1330, "maxDepthKm": 200, "stepKm": 50}'
+
+# Flux melting in the wedge of the made-up Tessaly arc: 100 km, 1300 °C, 0.4 wt% water from the slab.
+post /v1/settings/subduction '{"depthKm": 100, "wedgeTemperatureC": 1300, "bulkWaterWtPct": 0.4,
+                               "slabWaterFluxKgPerMPerYr": 5000, "maxWaterWtPct": 0.5}'

@@ -60,6 +60,19 @@ const PANELS = [
       ...r.points.map((p) => [`T at ${p.depthKm} km`, `${p.temperatureC.toFixed(0)} °C`]),
     ],
   },
+  {
+    title: "Invented Tessaly arc: wedge at 100 km, 1300 °C, 0.4 wt% slab water",
+    request: () => call("POST", "/v1/settings/subduction", {
+      depthKm: 100, wedgeTemperatureC: 1300, bulkWaterWtPct: 0.4, slabWaterFluxKgPerMPerYr: 5000,
+    }),
+    rows: (r) => [
+      ["dry solidus", `${r.drySolidusC.toFixed(0)} °C`],
+      ["solidus with this water", `${r.wetSolidusC.toFixed(0)} °C`],
+      ["melt fraction", `${(100 * r.meltFraction).toFixed(1)} %`],
+      ["water in the melt", `${r.waterInMeltWtPct.toFixed(2)} wt%`],
+      ["magma production", `${(1e6 * r.magmaProductionKm3PerYrPerKm).toFixed(1)} km³/Myr per km of arc`],
+    ],
+  },
 ];
 
 function box(title, rows) {

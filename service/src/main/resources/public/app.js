@@ -482,6 +482,13 @@ async function renderResults(last) {
       h("ul", {}, warnings.map((w) => h("li", {}, typeof w === "string" ? w : JSON.stringify(w))))));
   }
 
+  const assumptions = Array.isArray(response.assumptions) ? response.assumptions : [];
+  if (assumptions.length) {
+    results.append(h("details", { class: "assumptions", id: "assumptions" },
+      h("summary", {}, `Assumptions (${assumptions.length})`),
+      h("ul", {}, assumptions.map((a) => h("li", {}, typeof a === "string" ? a : JSON.stringify(a))))));
+  }
+
   const summary = h("table", { id: "summary", class: "summary" });
   for (const row of tool.summary || []) {
     const v = pick(response, row.path);

@@ -223,6 +223,31 @@ class PageBrowserTest {
         assertEquals(5651 - 2473 * Math.exp(-0.0278 * 60), summary("seafloorDepthM"), 20);
     }
 
+    @Test
+    void subductionWedgeIsSolidDryButMeltsWithWaterAndDrawsTheWaterCurve() {
+        browser.open(page("subduction"));
+        browser.fill("depthKm", "100");
+        browser.fill("wedgeTemperatureC", "1300");
+        browser.fill("bulkWaterWtPct", "0.4");
+        browser.fill("maxWaterWtPct", "1");
+        assertEquals("done", browser.submit());
+        // common practice: mantle near 100 km at about 1300 °C is solid when dry, partially molten with slab water
+        assertTrue(summary("drySolidusC") > 1300, "dry solidus above the wedge temperature");
+        assertTrue(summary("wetSolidusC") < 1300, "wet solidus below it");
+        assertTrue(summary("meltFraction") > 0, "melt with water");
+        assertTrue(summary("magmaProductionKm3PerYrPerKm") > 0, "a flux gives a magma production");
+
+        WebElement curve = browser.driver.findElement(By.cssSelector("#plots svg path.curve.role-melt"));
+        assertTrue(Integer.parseInt(curve.getAttribute("data-points")) >= 20, curve.getAttribute("data-points"));
+        List<double[]> v = vertices(curve.getAttribute("d"));
+        assertTrue(v.get(v.size() - 1)[1] < v.get(0)[1], "melt fraction rises (upward) with added water");
+        assertEquals(1, browser.driver.findElements(By.cssSelector("#plots svg g path.mark")).size()
+                - browser.driver.findElements(By.cssSelector("#plots svg .legend path.mark")).size(),
+                "the requested water content is marked on the curve");
+        assertTrue(text("#plots svg").contains("Bulk water (wt%)"));
+        browser.screenshot("subduction");
+    }
+
     /** Runs {@code body} (which may await) in the page with the page's modules as {@code plot} and {@code app}. */
     @SuppressWarnings("unchecked")
     private static Map<String, Object> inPage(String body) {
