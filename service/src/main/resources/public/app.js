@@ -656,6 +656,9 @@ async function solidusCurves(spec, rows, last) {
   if (!state.paths.has(MELT_FRACTION)) {
     return { series: [], note: `Solidus and liquidus not drawn: this server has no ${MELT_FRACTION} yet.` };
   }
+  if (!state.lithologiesFromServer) {
+    await loadLithologies(); // a server that asks for a token refused it before one was entered
+  }
   const water = typeof last.values[cfg.water] === "number" ? last.values[cfg.water] : 0;
   const info = state.lithologies.find((l) => l.id === lithology);
   const range = info && Array.isArray(info.pressureRangeGPa) ? info.pressureRangeGPa : [0, Infinity];
