@@ -121,7 +121,8 @@ async function post(url, body) {
 // ---------------------------------------------------------------- start-up
 
 async function init() {
-  setupToken();
+  // the token box itself is run by api.js (shared with the rest of the page); this script reads
+  // the same session-storage entry for its own requests and for "copy as curl"
   const [config, spec] = await Promise.all([
     fetch("tools.json").then((r) => r.json()),
     fetch("openapi.yaml").then((r) => (r.ok ? r.text() : "")).catch(() => ""),
@@ -185,22 +186,6 @@ async function loadLithologies() {
   } catch (e) {
     // keep the built-in list
   }
-}
-
-function setupToken() {
-  const box = document.getElementById("token");
-  box.value = token();
-  box.addEventListener("input", () => {
-    if (box.value) {
-      sessionStorage.setItem(TOKEN_KEY, box.value);
-    } else {
-      sessionStorage.removeItem(TOKEN_KEY);
-    }
-  });
-  document.getElementById("token-forget").addEventListener("click", () => {
-    box.value = "";
-    sessionStorage.removeItem(TOKEN_KEY);
-  });
 }
 
 // ---------------------------------------------------------------- navigation and forms

@@ -346,7 +346,9 @@ class PageBrowserTest {
         try {
             browser.open("http://127.0.0.1:" + app.port() + "/#pressure");
             browser.driver.findElement(By.id("token")).sendKeys("lab-token-7");
+            browser.driver.findElement(By.cssSelector("#token-form button[type='submit']")).click();
             assertEquals("lab-token-7", browser.js("return sessionStorage.getItem('tectomelt.token')"));
+            assertEquals("", browser.driver.findElement(By.id("token")).getAttribute("value"), "the box does not keep showing it");
             assertEquals("done", browser.submit());
             assertEquals("Bearer lab-token-7", seen.get());
             browser.driver.findElement(By.id("copy-curl")).click();
@@ -354,7 +356,7 @@ class PageBrowserTest {
             assertTrue(command.contains("Bearer $TECTOMELT_TOKEN"), command);
             assertFalse(command.contains("lab-token-7"), "the token itself is never copied");
 
-            browser.driver.findElement(By.id("token-forget")).click();
+            browser.driver.findElement(By.id("token-clear")).click();
             assertEquals(null, browser.js("return sessionStorage.getItem('tectomelt.token')"));
             assertEquals("done", browser.submit());
             assertEquals(null, seen.get());

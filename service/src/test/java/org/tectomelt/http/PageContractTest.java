@@ -52,6 +52,7 @@ class PageContractTest {
                 .contentType(startsWith("application/json")).body(containsString("\"tools\""));
         TestServer.given().get("/").then().statusCode(200)
                 .body(containsString("<script type=\"module\" src=\"app.js\">"))
+                .body(containsString("<script src=\"api.js\"></script>"))
                 .body(containsString("id=\"token\""));
     }
 
