@@ -6,6 +6,7 @@ import { drawPlot } from "./plot.js";
 const TOKEN_KEY = "tectomelt.token";
 const MELT_FRACTION = "/v1/melt-fraction";
 const LITHOLOGIES = "/v1/lithologies";
+const GEOTHERM = "/v1/geotherm";
 
 const state = {
   config: null,
@@ -277,6 +278,7 @@ function renderForm(tool) {
     h("label", { for: id }, h("span", { class: "label-text" }, f.label),
       f.unit ? h("span", { class: "unit" }, f.unit) : null),
     control,
+    f.help ? h("span", { class: "field-help" }, f.help) : null,
     h("span", { class: "field-error", id: id + "-err", "data-error-for": f.name, role: "alert" }));
     form.append(row);
   });
@@ -340,6 +342,18 @@ function collect(tool, form) {
         errors.push({ field: f.name, message: "must be a whole number" });
         return;
       }
+    } else if (f.type === "curve") {
+      // "T:F, T:F, ..." -> [{temperatureC, meltFraction}, ...]
+      const pairs = raw.split(/[\s,;]+/).filter((x) => x !== "");
+      const bad = pairs.filter((x) => !/^-?[0-9.eE+-]+:[0-9.eE+-]+$/.test(x) || !x.split(":").every((n) => isFinite(Number(n))));
+      if (bad.length) {
+        errors.push({ field: f.name, message: `write temperature:fraction pairs, e.g. 800:0.05 (not ${bad.join(", ")})` });
+        return;
+      }
+      value = pairs.map((x) => {
+        const [t, fr] = x.split(":").map(Number);
+        return { temperatureC: t, meltFraction: fr };
+      });
     } else if (f.type === "list") {
       const parts = raw.split(/[\s,;]+/).filter((s) => s !== "");
       value = parts.map(Number);
@@ -467,6 +481,9 @@ async function renderResults(last) {
       h("ul", {}, warnings.map((w) => h("li", {}, typeof w === "string" ? w : JSON.stringify(w))))));
   }
 
+  if (typeof response.note === "string" && response.note) {
+    results.append(h("p", { class: "result-note", id: "note" }, response.note));
+  }
   const assumptions = Array.isArray(response.assumptions) ? response.assumptions : [];
   if (assumptions.length) {
     results.append(h("details", { class: "assumptions", id: "assumptions" },
@@ -601,8 +618,19 @@ async function drawFigure(figure, spec, last) {
     }
   }
   const notes = [];
+  let solidusRows = rows;
+  if (spec.adiabat) {
+    const a = await adiabatCurve(spec, last);
+    if (a.rows) {
+      series.unshift({ label: a.label, role: "adiabat", points: a.rows.map((r) => [r.temperatureC, r.depthKm]) });
+      solidusRows = a.rows;
+    }
+    if (a.note) {
+      notes.push(a.note);
+    }
+  }
   if (spec.solidus) {
-    const extra = await solidusCurves(spec, rows, last);
+    const extra = await solidusCurves(spec, solidusRows, last);
     series.unshift(...extra.series);
     if (extra.note) {
       notes.push(extra.note);
@@ -626,6 +654,32 @@ async function drawFigure(figure, spec, last) {
   for (const n of notes) {
     figure.append(h("figcaption", { class: "plot-note" }, n));
   }
+}
+
+/**
+ * The melt-free mantle adiabat of the request's potential temperature, from the geotherm endpoint
+ * (adiabat alone), down to somewhat below the onset of melting: {rows, label, note}.
+ */
+async function adiabatCurve(spec, last) {
+  const tp = last.values[spec.adiabat.potentialTemperature];
+  if (typeof tp !== "number") {
+    return {};
+  }
+  if (!state.paths.has(GEOTHERM)) {
+    return { note: `Melt-free adiabat not drawn: this server has no ${GEOTHERM}.` };
+  }
+  const onset = pick(last.response, spec.adiabat.below);
+  const deepest = Math.min(410, Math.max(150, typeof onset === "number" ? Math.ceil(onset * 1.3 / 10) * 10 : 0));
+  let res;
+  try {
+    res = await post(GEOTHERM, { potentialTemperatureC: tp, maxDepthKm: deepest, stepKm: deepest / 100 });
+  } catch (e) {
+    return { note: "Melt-free adiabat not drawn: " + (e.message || e) };
+  }
+  if (!res.ok || !res.body || !Array.isArray(res.body.points)) {
+    return { note: "Melt-free adiabat not drawn: " + (res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}`) };
+  }
+  return { rows: res.body.points, label: `melt-free adiabat, Tp ${tp} °C` };
 }
 
 /**

@@ -4,7 +4,7 @@
 const SVG_NS = "http://www.w3.org/2000/svg";
 
 /** Roles name what a curve means; style.css gives each role its stroke. */
-export const ROLES = ["path", "melting", "solidus", "liquidus", "melt", "productivity"];
+export const ROLES = ["path", "adiabat", "melting", "solidus", "liquidus", "melt", "productivity"];
 
 function el(name, attrs, text) {
   const e = document.createElementNS(SVG_NS, name);

@@ -88,9 +88,9 @@ class PageContractTest {
             assertTrue(t.path("scenario").asText().startsWith("Invented scenario"), id + ": defaults come from an invented scenario");
             for (JsonNode f : t.get("fields")) {
                 String type = f.get("type").asText();
-                assertTrue(List.of("number", "integer", "list", "select", "lithology").contains(type), id + ": " + type);
+                assertTrue(List.of("number", "integer", "list", "curve", "select", "lithology").contains(type), id + ": " + type);
                 assertFalse(f.path("label").asText().isBlank(), id + "." + f.get("name").asText() + " has no label");
-                if (type.equals("number") || type.equals("integer") || type.equals("list")) {
+                if (List.of("number", "integer", "list", "curve").contains(type)) {
                     assertFalse(f.path("unit").asText().isBlank(), id + "." + f.get("name").asText() + " has no unit label");
                     assertTrue(f.has("default"), id + "." + f.get("name").asText() + " has no default");
                 }
@@ -151,6 +151,9 @@ class PageContractTest {
                     if (s.has("where")) {
                         requireKey(w, items, s.get("where").asText(), what, problems);
                     }
+                }
+                if (p.has("adiabat")) {
+                    requireOne(w, response, p.at("/adiabat/below"), what + " adiabat depth", problems);
                 }
                 for (JsonNode l : p.path("levels")) {
                     if (l.has("response")) {
