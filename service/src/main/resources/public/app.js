@@ -6,7 +6,7 @@ import { drawPlot } from "./plot.js";
 const TOKEN_KEY = "tectomelt.token";
 const MELT_FRACTION = "/v1/melt-fraction";
 const LITHOLOGIES = "/v1/lithologies";
-const GEOTHERM = "/v1/geotherm";
+const SOLIDUS_CROSSINGS = "/v1/solidus-crossings";
 
 const state = {
   config: null,
@@ -618,19 +618,28 @@ async function drawFigure(figure, spec, last) {
     }
   }
   const notes = [];
-  let solidusRows = rows;
+  let solidusDrawn = false;
+  let axisRows = rows;
   if (spec.adiabat) {
     const a = await adiabatCurve(spec, last);
     if (a.rows) {
-      series.unshift({ label: a.label, role: "adiabat", points: a.rows.map((r) => [r.temperatureC, r.depthKm]) });
-      solidusRows = a.rows;
+      axisRows = rows.concat(a.rows);
+      const line = (key) => a.rows.map((r) => [typeof r[key] === "number" ? r[key] : NaN, r.depthKm]);
+      const extra = [{ label: a.label, role: "adiabat", points: line("temperatureC") }];
+      if (a.rows.some((r) => typeof r.solidusC === "number")) {
+        extra.unshift({ label: `solidus (${last.values[spec.adiabat.lithology]}${wetLabel(last, spec.adiabat.water)})`,
+          role: "solidus", points: line("solidusC") },
+        { label: "liquidus", role: "liquidus", points: line("liquidusC") });
+        solidusDrawn = true;
+      }
+      series.unshift(...extra);
     }
     if (a.note) {
       notes.push(a.note);
     }
   }
-  if (spec.solidus) {
-    const extra = await solidusCurves(spec, solidusRows, last);
+  if (spec.solidus && !solidusDrawn) {
+    const extra = await solidusCurves(spec, rows, last);
     series.unshift(...extra.series);
     if (extra.note) {
       notes.push(extra.note);
@@ -644,7 +653,7 @@ async function drawFigure(figure, spec, last) {
   }
   let y2;
   if (spec.y2) {
-    const pairs = rows.filter((r) => typeof r[spec.y.key] === "number" && typeof r[spec.y2.key] === "number")
+    const pairs = axisRows.filter((r) => typeof r[spec.y.key] === "number" && typeof r[spec.y2.key] === "number")
       .map((r) => [r[spec.y.key], r[spec.y2.key]]);
     y2 = pairs.length > 1 ? { label: spec.y2.label, unit: spec.y2.unit, pairs } : undefined;
   }
@@ -657,29 +666,42 @@ async function drawFigure(figure, spec, last) {
 }
 
 /**
- * The melt-free mantle adiabat of the request's potential temperature, from the geotherm endpoint
- * (adiabat alone), down to somewhat below the onset of melting: {rows, label, note}.
+ * The melt-free mantle adiabat of the request's potential temperature with the solidus and
+ * liquidus along it, from the solidus-crossings endpoint (adiabat path, so the chosen lithology's
+ * own thermodynamic constants), down to somewhat below the onset of melting: {rows, label, note}.
  */
 async function adiabatCurve(spec, last) {
-  const tp = last.values[spec.adiabat.potentialTemperature];
-  if (typeof tp !== "number") {
+  const cfg = spec.adiabat;
+  const tp = last.values[cfg.potentialTemperature];
+  const lithology = last.values[cfg.lithology];
+  if (typeof tp !== "number" || !lithology) {
     return {};
   }
-  if (!state.paths.has(GEOTHERM)) {
-    return { note: `Melt-free adiabat not drawn: this server has no ${GEOTHERM}.` };
+  if (!state.paths.has(SOLIDUS_CROSSINGS)) {
+    return { note: `Melt-free adiabat not drawn: this server has no ${SOLIDUS_CROSSINGS} yet.` };
   }
-  const onset = pick(last.response, spec.adiabat.below);
-  const deepest = Math.min(410, Math.max(150, typeof onset === "number" ? Math.ceil(onset * 1.3 / 10) * 10 : 0));
+  const onset = pick(last.response, cfg.below);
+  const deepest = Math.min(300, Math.max(150, typeof onset === "number" ? Math.ceil(onset * 1.3 / 10) * 10 : 0));
+  const water = typeof last.values[cfg.water] === "number" ? last.values[cfg.water] : 0;
+  const body = { lithology, path: { adiabat: { potentialTemperatureC: tp, maxDepthKm: deepest, depthStepKm: deepest / 150 } } };
+  if (water > 0) {
+    body.bulkWaterWtPct = water;
+  }
   let res;
   try {
-    res = await post(GEOTHERM, { potentialTemperatureC: tp, maxDepthKm: deepest, stepKm: deepest / 100 });
+    res = await post(SOLIDUS_CROSSINGS, body);
   } catch (e) {
     return { note: "Melt-free adiabat not drawn: " + (e.message || e) };
   }
-  if (!res.ok || !res.body || !Array.isArray(res.body.points)) {
+  if (!res.ok || !res.body || !Array.isArray(res.body.profile)) {
     return { note: "Melt-free adiabat not drawn: " + (res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}`) };
   }
-  return { rows: res.body.points, label: `melt-free adiabat, Tp ${tp} °C` };
+  return { rows: res.body.profile, label: `melt-free adiabat, Tp ${tp} °C` };
+}
+
+function wetLabel(last, waterField) {
+  const w = last.values[waterField];
+  return typeof w === "number" && w > 0 ? `, ${w} wt% water` : "";
 }
 
 /**
@@ -738,11 +760,9 @@ async function solidusCurves(spec, rows, last) {
     const why = res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}`;
     return { series: [], note: "Solidus and liquidus not drawn: " + why };
   }
-  const name = info && info.name ? info.name.replace(/\s*\(.*\)\s*$/, "") : lithology;
-  const wet = water > 0 ? `, ${water} wt% water` : "";
   return {
     series: [
-      { label: `solidus (${name}${wet})`, role: "solidus",
+      { label: `solidus (${lithology}${wetLabel(last, cfg.water)})`, role: "solidus",
         points: results.map((r, i) => [r.solidusC, samples[i].y]) },
       { label: "liquidus", role: "liquidus", points: results.map((r, i) => [r.liquidusC, samples[i].y]) },
     ],

@@ -106,9 +106,16 @@ function drawSecondAxis(svg, y2, yr, sy, x, midY) {
  * @returns an <svg> element
  */
 export function drawPlot(spec) {
-  const W = 480, H = 360;
+  // legend entries: every curve that has something to draw, and the marks
+  const items = spec.series.filter((s) => s.points.some(([x, y]) => isFinite(x) && isFinite(y)));
+  if ((spec.marks || []).some((mk) => isFinite(mk.x) && isFinite(mk.y))) {
+    items.push({ label: spec.marks[0].label, role: "mark-item" });
+  }
+  const lh = 16;
+  const legendH = items.length ? lh * items.length + 10 : 0;
+  const W = 480, plotH = 340, H = plotH + legendH;
   const right = spec.y2 ? 54 : 16;
-  const m = spec.invertY ? { l: 62, r: right, t: 62, b: 20 } : { l: 62, r: right, t: 34, b: 48 };
+  const m = spec.invertY ? { l: 62, r: right, t: 62, b: 16 + legendH } : { l: 62, r: right, t: 34, b: 46 + legendH };
   const pw = W - m.l - m.r, ph = H - m.t - m.b;
   const svg = el("svg", {
     viewBox: `0 0 ${W} ${H}`, class: "plot", role: "img",
@@ -164,7 +171,7 @@ export function drawPlot(spec) {
     svg.appendChild(el("text", { x: m.l - 6, y: Y + 4, class: "tick", "text-anchor": "end" }, fmtTick(v, yStep)));
   }
   svg.appendChild(el("text", {
-    x: m.l + pw / 2, y: spec.invertY ? m.t - 26 : H - 10, class: "axis-title x-axis", "text-anchor": "middle",
+    x: m.l + pw / 2, y: spec.invertY ? m.t - 26 : m.t + ph + 34, class: "axis-title x-axis", "text-anchor": "middle",
   }, axisTitle(spec.x)));
   svg.appendChild(el("text", {
     x: 14, y: m.t + ph / 2, class: "axis-title y-axis", "text-anchor": "middle",
@@ -232,25 +239,19 @@ export function drawPlot(spec) {
     }
   }
 
-  // legend, inside the frame at the lower left (depth plots) or upper left
-  const items = spec.series.filter((s) => s.points.some(([x, y]) => isFinite(x) && isFinite(y)));
-  if ((spec.marks || []).some((mk) => isFinite(mk.x) && isFinite(mk.y))) {
-    items.push({ label: spec.marks[0].label, role: "mark-item" });
-  }
+  // legend, under the plot
   if (items.length > 0) {
-    const lh = 16, lw = Math.min(pw - 16, 12 + 28 + 7 * Math.max(...items.map((s) => s.label.length)));
-    const lx = m.l + 8;
-    const ly = spec.invertY ? m.t + ph - 8 - lh * items.length - 6 : m.t + 8;
+    const lx = m.l;
+    const ly = H - legendH + 2;
     const g = el("g", { class: "legend" });
-    g.appendChild(el("rect", { x: lx, y: ly, width: lw, height: lh * items.length + 6, class: "legend-box" }));
     items.forEach((s, i) => {
-      const Y = ly + 4 + lh * i + lh / 2;
+      const Y = ly + lh * i + lh / 2;
       if (s.role === "mark-item") {
-        g.appendChild(el("path", { d: `M${lx + 14},${Y}l6,-6l6,6l-6,6z`, class: "mark" }));
+        g.appendChild(el("path", { d: `M${lx + 7},${Y}l6,-6l6,6l-6,6z`, class: "mark" }));
       } else {
-        g.appendChild(el("line", { x1: lx + 6, x2: lx + 32, y1: Y, y2: Y, class: `curve role-${s.role || "path"}` }));
+        g.appendChild(el("line", { x1: lx, x2: lx + 26, y1: Y, y2: Y, class: `curve role-${s.role || "path"}` }));
       }
-      g.appendChild(el("text", { x: lx + 38, y: Y + 4, class: "legend-text" }, s.label));
+      g.appendChild(el("text", { x: lx + 34, y: Y + 4, class: "legend-text" }, s.label));
     });
     svg.appendChild(g);
   }

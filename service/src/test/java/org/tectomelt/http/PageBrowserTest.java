@@ -89,6 +89,35 @@ class PageBrowserTest {
     }
 
     @Test
+    void everyToolWhoseEndpointIsOnThisServerComputesWithItsDefaults() throws IOException {
+        JsonNode paths = spec().get("paths");
+        JsonNode tools = JSON.readTree(PageBrowserTest.class.getResourceAsStream("/public/tools.json")).get("tools");
+        List<String> tried = new ArrayList<>();
+        for (JsonNode t : tools) {
+            String id = t.get("id").asText();
+            if (!paths.has(t.get("endpoint").asText())) {
+                continue; // marked unavailable, checked above
+            }
+            tried.add(id);
+            browser.open(page(id));
+            String state = browser.submit();
+            assertEquals("done", state, id + ": " + text("#form-error"));
+            if (!t.get("summary").isEmpty()) {
+                assertFalse(browser.driver.findElements(By.cssSelector("#summary tr")).isEmpty(), id + ": summary rows");
+            }
+            List<WebElement> figures = browser.driver.findElements(By.cssSelector("#plots figure"));
+            assertEquals(t.get("plots").size(), figures.size(), id + ": one figure per plot");
+            for (WebElement f : figures) {
+                boolean drawn = !f.findElements(By.cssSelector("svg path.curve, svg path.mark")).isEmpty();
+                boolean saidWhy = !f.findElements(By.cssSelector("p.empty")).isEmpty();
+                assertTrue(drawn || saidWhy, id + ": figure '" + f.getAttribute("data-plot") + "' drew nothing and said nothing");
+            }
+            browser.screenshot("defaults-" + id);
+        }
+        assertTrue(tried.contains("pressure"), "tried: " + tried);
+    }
+
+    @Test
     void pressureFormDrawsItsCurveAndGivesTheReferencePressures() throws Exception {
         browser.open(page("pressure"));
         browser.fill("depthsKm", "0, 30.9, 61.8");
