@@ -72,8 +72,10 @@ public final class App {
         all.addAll(GeothermRoutes.routes());
 
         // melting: lithologies, melt fraction, solidus crossings
+        all.addAll(MeltingRoutes.routes());
 
         // settings: decompression column, ridge, hotspot, rift
+        all.addAll(DecompressionRoutes.routes());
 
         // settings: subduction
         all.addAll(SubductionRoutes.routes());

@@ -114,9 +114,82 @@ final class GeothermRoutes {
         }
     }
 
+    /**
+     * A validated and built geotherm request: used by this route and, nested under
+     * {@code path.geotherm}, by {@code POST /v1/solidus-crossings}.
+     *
+     * @param geotherm   the engine geotherm
+     * @param model      its conductive part, or null for the adiabat alone
+     * @param adiabat    its adiabat, or null for a purely conductive geotherm
+     * @param column     the pressure column
+     * @param depths     the sample depths (m), from the surface down
+     * @param maxDepthKm the deepest requested depth (km)
+     * @param warnings   warnings that follow from the inputs alone
+     */
+    record BuiltGeotherm(Geotherm geotherm, ConductiveGeotherm model, MantleAdiabat adiabat, LithostaticColumn column,
+                         double[] depths, double maxDepthKm, List<String> warnings) {
+
+        /** The input warnings plus those about the sampled profile ({@code temperaturesK} at {@link #depths}). */
+        List<String> allWarnings(double[] temperaturesK) {
+            List<String> all = new ArrayList<>(warnings);
+            double hottestC = Double.NEGATIVE_INFINITY;
+            double hotFromKm = Double.NaN;
+            for (int i = 0; i < depths.length; i++) {
+                double tC = Units.kelvinToCelsius(temperaturesK[i]);
+                hottestC = Math.max(hottestC, tC);
+                if (tC > HOT_CONDUCTIVE_C && Double.isNaN(hotFromKm)) {
+                    hotFromKm = Units.mToKm(depths[i]);
+                }
+            }
+            OptionalDouble base = geotherm.lithosphereBaseDepth();
+            if (base.isPresent() && model != null && Units.mToKm(base.getAsDouble()) > maxDepthKm) {
+                all.add("The base of the thermal lithosphere (" + Validation.format(Math.round(Units.mToKm(
+                        base.getAsDouble()))) + " km) lies below maxDepthKm: every returned point is on the conductive part");
+            }
+            if (adiabat == null && hottestC > HOT_CONDUCTIVE_C) {
+                all.add("Without potentialTemperatureC the conductive model is continued to every depth; it exceeds "
+                        + Validation.format(HOT_CONDUCTIVE_C) + " °C from " + Validation.format(hotFromKm)
+                        + " km down, where real mantle follows an adiabat: give potentialTemperatureC to join one");
+            }
+            return all;
+        }
+
+        /** The models behind the geotherm and its pressure column. */
+        List<ModelInfo> models() {
+            List<ModelInfo> models = new ArrayList<>(geotherm.models());
+            models.add(LithostaticColumn.INFO);
+            return models;
+        }
+    }
+
     static void geotherm(Context ctx) {
         GeothermRequest req = Json.read(ctx.bodyAsBytes(), GeothermRequest.class);
-        Validation v = new Validation();
+        BuiltGeotherm b = build(new Validation(), req);
+        double[] depths = b.depths();
+        double[] temperatures = new double[depths.length];
+        List<Point> points = new ArrayList<>(depths.length);
+        for (int i = 0; i < depths.length; i++) {
+            double z = depths[i];
+            temperatures[i] = b.geotherm().temperatureAt(z);
+            points.add(new Point(Units.mToKm(z), Units.paToGpa(b.column().pressureAt(z)),
+                    Units.kelvinToCelsius(temperatures[i])));
+        }
+        List<String> warnings = b.allWarnings(temperatures);
+        OptionalDouble base = b.geotherm().lithosphereBaseDepth();
+        Double baseKm = base.isPresent() ? Units.mToKm(base.getAsDouble()) : null;
+        ConductiveGeotherm model = b.model();
+        Double heatFlow = model == null ? null : Units.wPerM2ToMwPerM2(model.surfaceHeatFlow());
+        Double mohoC = model instanceof ContinentalGeotherm c
+                ? Units.kelvinToCelsius(b.geotherm().temperatureAt(c.crustThickness())) : null;
+        Double seafloorM = model instanceof OceanicLithosphere o ? o.seafloorDepth() : null;
+        Responses.json(ctx, new GeothermResponse(points, heatFlow, baseKm, mohoC, seafloorM, b.models(), warnings));
+    }
+
+    /**
+     * Validates a geotherm request and builds its geotherm; field names are reported under
+     * {@code v}'s prefix. Throws the 400 problem when anything is invalid.
+     */
+    static BuiltGeotherm build(Validation v, GeothermRequest req) {
         double tpC = v.optional("potentialTemperatureC", req.potentialTemperatureC(), Double.NaN, 1000, 2000);
         double maxKm = v.optional("maxDepthKm", req.maxDepthKm(), MAX_DEPTH_KM, 1,
                 Units.mToKm(Geotherm.MAX_DEPTH_M));
@@ -151,47 +224,13 @@ final class GeothermRoutes {
                 geotherm = Geotherm.conductive(model);
             } else {
                 if (Geotherm.lithosphereBase(model, adiabat).isEmpty()) {
-                    throw neverMeets(setup, adiabat, tpC);
+                    throw neverMeets(v, setup, adiabat, tpC);
                 }
                 geotherm = Geotherm.combined(model, adiabat);
             }
         }
-
-        double[] depths = Geotherm.depths(Units.kmToM(maxKm), Units.kmToM(stepKm));
-        List<Point> points = new ArrayList<>(depths.length);
-        double hottestC = Double.NEGATIVE_INFINITY;
-        double hotFromKm = Double.NaN;
-        for (double z : depths) {
-            double tC = Units.kelvinToCelsius(geotherm.temperatureAt(z));
-            points.add(new Point(Units.mToKm(z), Units.paToGpa(column.pressureAt(z)), tC));
-            hottestC = Math.max(hottestC, tC);
-            if (tC > HOT_CONDUCTIVE_C && Double.isNaN(hotFromKm)) {
-                hotFromKm = Units.mToKm(z);
-            }
-        }
-
-        Double baseKm = null;
-        OptionalDouble base = geotherm.lithosphereBaseDepth();
-        if (base.isPresent()) {
-            baseKm = Units.mToKm(base.getAsDouble());
-            if (model != null && baseKm > maxKm) {
-                warnings.add("The base of the thermal lithosphere (" + Validation.format(Math.round(baseKm)) + " km) "
-                        + "lies below maxDepthKm: every returned point is on the conductive part");
-            }
-        }
-        if (adiabat == null && hottestC > HOT_CONDUCTIVE_C) {
-            warnings.add("Without potentialTemperatureC the conductive model is continued to every depth; it exceeds "
-                    + Validation.format(HOT_CONDUCTIVE_C) + " °C from " + Validation.format(hotFromKm)
-                    + " km down, where real mantle follows an adiabat: give potentialTemperatureC to join one");
-        }
-
-        Double heatFlow = model == null ? null : Units.wPerM2ToMwPerM2(model.surfaceHeatFlow());
-        Double mohoC = model instanceof ContinentalGeotherm c
-                ? Units.kelvinToCelsius(geotherm.temperatureAt(c.crustThickness())) : null;
-        Double seafloorM = model instanceof OceanicLithosphere o ? o.seafloorDepth() : null;
-        List<ModelInfo> models = new ArrayList<>(geotherm.models());
-        models.add(LithostaticColumn.INFO);
-        Responses.json(ctx, new GeothermResponse(points, heatFlow, baseKm, mohoC, seafloorM, models, warnings));
+        return new BuiltGeotherm(geotherm, model, adiabat, column,
+                Geotherm.depths(Units.kmToM(maxKm), Units.kmToM(stepKm)), maxKm, warnings);
     }
 
     /** Validates the lithosphere object; returns null when its type is missing or unknown. */
@@ -294,15 +333,15 @@ final class GeothermRoutes {
     }
 
     /** The 400 for a conductive lithosphere that never reaches the adiabat, naming what to change. */
-    private static ApiProblem neverMeets(LithosphereSetup setup, MantleAdiabat adiabat, double tpC) {
+    private static ApiProblem neverMeets(Validation v, LithosphereSetup setup, MantleAdiabat adiabat, double tpC) {
         String depth = Validation.format(Units.mToKm(Geotherm.MAX_DEPTH_M));
         String tp = Validation.format(tpC);
         if (CONTINENTAL.equals(setup.type())) {
             return ApiProblem.invalid(List.of(
-                    new FieldError("potentialTemperatureC", "the continental geotherm stays colder than the " + tp
+                    new FieldError(v.path("potentialTemperatureC"), "the continental geotherm stays colder than the " + tp
                             + " °C adiabat down to " + depth + " km, so they never meet; lower potentialTemperatureC "
                             + "or raise lithosphere.surfaceHeatFlowMWPerM2 or lithosphere.reducedHeatFlowFraction"),
-                    new FieldError("lithosphere.reducedHeatFlowFraction", "too little heat reaches the base of the "
+                    new FieldError(v.path("lithosphere.reducedHeatFlowFraction"), "too little heat reaches the base of the "
                             + "crust for the geotherm to meet the " + tp + " °C adiabat above " + depth + " km")));
         }
         OptionalDouble lowest = Geotherm.lowestMeetingValue(setup.build(), adiabat, setup.mantleK(),
@@ -312,10 +351,10 @@ final class GeothermRoutes {
                 : "more than 2000 °C";
         String mantle = Validation.format(Math.round(Units.kelvinToCelsius(setup.mantleK()) * 10) / 10.0);
         return ApiProblem.invalid(List.of(
-                new FieldError("potentialTemperatureC", "the " + setup.type() + " geotherm (mantle temperature "
+                new FieldError(v.path("potentialTemperatureC"), "the " + setup.type() + " geotherm (mantle temperature "
                         + mantle + " °C) stays colder than the " + tp + " °C adiabat down to " + depth
                         + " km, so they never meet; lower potentialTemperatureC or raise lithosphere.mantleTemperatureC"),
-                new FieldError("lithosphere.mantleTemperatureC", "must be " + needed + " for this lithosphere to meet "
+                new FieldError(v.path("lithosphere.mantleTemperatureC"), "must be " + needed + " for this lithosphere to meet "
                         + "the " + tp + " °C adiabat above " + depth + " km, got " + mantle)));
     }
 

@@ -183,12 +183,25 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         return drySolidus(p) - solidusDepression(waterInMelt(p, 0.0, bulkWater));
     }
 
+    /** Same as {@link #wetSolidus}. */
+    @Override
+    public double solidus(double p, double bulkWater) {
+        return wetSolidus(p, bulkWater);
+    }
+
+    /** Same as {@link #wetLiquidus}. */
+    @Override
+    public double liquidus(double p, double bulkWater) {
+        return wetLiquidus(p, bulkWater);
+    }
+
     /** Liquidus (K) at bulk water: the melt carries all the water, capped at saturation. */
     public double wetLiquidus(double p, double bulkWater) {
         return dryLiquidus(p) - solidusDepression(waterInMelt(p, 1.0, bulkWater));
     }
 
     /** Water in the melt (mass fraction) at melt fraction {@code f}: Xbulk / (D + F(1 − D)), capped at Xsat. */
+    @Override
     public double waterInMelt(double p, double f, double bulkWater) {
         if (bulkWater <= 0) {
             return 0.0;
@@ -205,10 +218,17 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         double tl = lherzoliteLiquidus(p);
         double fCpx = cpxExhaustionFraction(p);
         double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
+        return dryMeltFraction(t, ts, tl, dryLiquidus(p), fCpx, tCpx);
+    }
+
+    /** The dry melt-fraction law with the curves at one pressure already evaluated (all K). */
+    private static double dryMeltFraction(double t, double ts, double tl, double tq, double fCpx, double tCpx) {
+        if (t <= ts) {
+            return 0.0;
+        }
         if (t < tCpx) {
             return Math.pow((t - ts) / (tl - ts), BETA1);
         }
-        double tq = dryLiquidus(p);
         if (t >= tq) {
             return 1.0;
         }
@@ -229,20 +249,29 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
                 saturated, cpxOut, warnings);
     }
 
-    /** Melt fraction only (the hot path of columns and batches). */
+    /** Melt fraction only (the hot path of columns and batches); no range check. */
+    @Override
     public double meltFraction(double p, double t, double bulkWater) {
         if (bulkWater <= 0) {
             return dryMeltFraction(p, t);
         }
-        if (dryMeltFraction(p, t + solidusDepression(waterInMelt(p, 0.0, bulkWater))) <= 0) {
+        // the curves depend on pressure only: evaluate them once, outside the root finding
+        double ts = drySolidus(p);
+        double tl = lherzoliteLiquidus(p);
+        double tq = dryLiquidus(p);
+        double fCpx = cpxExhaustionFraction(p);
+        double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
+        double xSat = waterSaturation(p);
+        if (dryMeltFraction(t + solidusDepression(Math.min(bulkWater / D_WATER, xSat)), ts, tl, tq, fCpx, tCpx) <= 0) {
             return 0.0;
         }
-        if (dryMeltFraction(p, t + solidusDepression(waterInMelt(p, 1.0, bulkWater))) >= 1.0) {
+        if (dryMeltFraction(t + solidusDepression(Math.min(bulkWater, xSat)), ts, tl, tq, fCpx, tCpx) >= 1.0) {
             return 1.0;
         }
         BrentSolver solver = new BrentSolver(ROOT_ACCURACY);
-        return solver.solve(MAX_EVALUATIONS,
-                f -> f - dryMeltFraction(p, t + solidusDepression(waterInMelt(p, f, bulkWater))), 0.0, 1.0);
+        return solver.solve(MAX_EVALUATIONS, f -> f - dryMeltFraction(
+                t + solidusDepression(Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), xSat)),
+                ts, tl, tq, fCpx, tCpx), 0.0, 1.0);
     }
 
     @Override
@@ -255,6 +284,29 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         }
         double tCpx = cpxExhaustionTemperature(p);
         return tCpx + Math.pow((f - fCpx) / (1.0 - fCpx), 1.0 / BETA2) * (dryLiquidus(p) - tCpx) - dT;
+    }
+
+    /** Cpx exhaustion: the second branch of the melting law starts there. */
+    @Override
+    public double exhaustionMeltFraction(double p) {
+        return cpxExhaustionFraction(p);
+    }
+
+    /** β1 above the solidus, β2 above cpx exhaustion: F − F₀ ∝ (T − T₀)^β there. */
+    @Override
+    public double branchExponent(boolean afterExhaustion) {
+        return afterExhaustion ? BETA2 : BETA1;
+    }
+
+    /** The solidus branch [(T − Ts)/(Tl − Ts)]^β1 is continued past cpx exhaustion with its own formula. */
+    @Override
+    public double temperatureOnBranch(double p, double f, double bulkWater, boolean afterExhaustion) {
+        if (afterExhaustion) {
+            return temperatureAt(p, f, bulkWater);
+        }
+        double ts = drySolidus(p);
+        return ts + Math.pow(f, 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts)
+                - solidusDepression(waterInMelt(p, f, bulkWater));
     }
 
     private List<String> check(double p, double bulkWater) {

@@ -12,6 +12,11 @@ public final class Lithologies {
 
     static {
         register(Katz2003Peridotite.fertile());
+        register(new McKenzieBickle1988Peridotite());
+        register(CrustalLithology.graniteWaterSaturated());
+        register(CrustalLithology.metapelite());
+        register(CrustalLithology.amphibolite());
+        register(CrustalLithology.basalt());
     }
 
     private Lithologies() {
@@ -34,6 +39,16 @@ public final class Lithologies {
     /** The lithology with this id, if any. */
     public static Optional<Lithology> byId(String id) {
         return Optional.ofNullable(BY_ID.get(id));
+    }
+
+    /** The crustal lithology (or intrusion) with this id, if any. */
+    public static Optional<CrustalLithology> crustalById(String id) {
+        return byId(id).filter(CrustalLithology.class::isInstance).map(CrustalLithology.class::cast);
+    }
+
+    /** The mantle lithology with this id, if any. */
+    public static Optional<MantleLithology> mantleById(String id) {
+        return byId(id).filter(MantleLithology.class::isInstance).map(MantleLithology.class::cast);
     }
 
     /** The default mantle lithology (Katz et al. 2003, fertile). */

@@ -65,6 +65,32 @@ public interface Lithology {
     double drySolidus(double p);
 
     /**
+     * Solidus (K) at pressure {@code p} (Pa) for bulk water {@code bulkWater} (mass fraction): the
+     * highest temperature at which the rock holds no melt. Dry models ignore the water.
+     * Implementations override this with a direct formula; the default asks {@link #melt}.
+     */
+    default double solidus(double p, double bulkWater) {
+        return melt(p, drySolidus(p), bulkWater).solidus();
+    }
+
+    /**
+     * Liquidus (K) at pressure {@code p} (Pa) for bulk water {@code bulkWater}: the lowest
+     * temperature at which the rock is fully molten, or {@code NaN} when the model never reaches
+     * full melting (crustal curves that stop short of F = 1).
+     */
+    default double liquidus(double p, double bulkWater) {
+        return melt(p, drySolidus(p), bulkWater).liquidus();
+    }
+
+    /**
+     * Melt fraction only, without warnings or the curves (the hot path of paths and batches).
+     * Performs no range check: callers that need one use {@link #melt}.
+     */
+    default double meltFraction(double p, double t, double bulkWater) {
+        return melt(p, t, bulkWater).meltFraction();
+    }
+
+    /**
      * Melt state at a pressure, temperature and bulk water content.
      *
      * @param p         pressure (Pa)

@@ -18,4 +18,55 @@ public interface MantleLithology extends Lithology {
      * @param bulkWater bulk water (mass fraction)
      */
     double temperatureAt(double p, double f, double bulkWater);
+
+    /**
+     * The melt fraction at pressure {@code p} (Pa) where the melting law changes branch because a
+     * phase is used up (clinopyroxene for Katz et al. 2003), or 1 when the law has one branch.
+     * There (∂T/∂F)_P jumps, so a decompression column stops and restarts its integration at it.
+     */
+    default double exhaustionMeltFraction(double p) {
+        return 1.0;
+    }
+
+    /**
+     * The exponent n of the melting law just above the start of a branch, F − F₀ ∝ (T − T₀)ⁿ
+     * along an isobar: n = β1 (solidus branch) and β2 (after exhaustion) for Katz et al. (2003);
+     * 1 where ∂F/∂T is finite and non-zero at the start of the branch (the default). A column
+     * integrates in u = ((F − F₀)/(1 − F₀))^(1/n), in which both T and F are smooth even where
+     * (∂T/∂F)_P is infinite.
+     *
+     * @param afterExhaustion false for the branch that starts at the solidus, true for the branch
+     *                        that starts at {@link #exhaustionMeltFraction}
+     */
+    default double branchExponent(boolean afterExhaustion) {
+        return 1.0;
+    }
+
+    /**
+     * T(P, F) (K) on one branch of the melting law, the solidus branch continued with its own
+     * formula past {@link #exhaustionMeltFraction}. A column integrating the solidus branch uses it,
+     * so that an integration step straddling the exhaustion point sees a smooth law and the point
+     * is located accurately. The default, for laws with one branch, is {@link #temperatureAt}.
+     *
+     * @param p               pressure (Pa)
+     * @param f               melt fraction (on the exhaustion branch at least {@link #exhaustionMeltFraction})
+     * @param bulkWater       bulk water (mass fraction)
+     * @param afterExhaustion false for the solidus branch, true for the branch after exhaustion
+     */
+    default double temperatureOnBranch(double p, double f, double bulkWater, boolean afterExhaustion) {
+        return temperatureAt(p, f, bulkWater);
+    }
+
+    /**
+     * Water dissolved in the melt (mass fraction) when the rock holds melt fraction {@code f} at
+     * pressure {@code p} (Pa) with bulk water {@code bulkWater}, melt and residue in equilibrium
+     * (batch). The default asks {@link #melt} at {@link #temperatureAt}; hydrous models with a
+     * closed form override it.
+     */
+    default double waterInMelt(double p, double f, double bulkWater) {
+        if (bulkWater <= 0 || f <= 0) {
+            return 0.0;
+        }
+        return melt(p, temperatureAt(p, f, bulkWater), bulkWater).waterInMelt();
+    }
 }

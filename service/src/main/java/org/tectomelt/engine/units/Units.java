@@ -119,4 +119,14 @@ public final class Units {
     public static double mPerSToMmPerYr(double mPerS) {
         return mPerS * SECONDS_PER_YEAR * 1e3;
     }
+
+    /** m³/s → km³/yr. */
+    public static double m3PerSToKm3PerYr(double m3PerS) {
+        return m3PerS * SECONDS_PER_YEAR * 1e-9;
+    }
+
+    /** a rate per Pa (1/Pa) → per cent per GPa. */
+    public static double perPaToPercentPerGpa(double perPa) {
+        return perPa * 1e9 * 1e2;
+    }
 }
