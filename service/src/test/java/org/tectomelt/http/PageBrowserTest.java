@@ -277,6 +277,40 @@ class PageBrowserTest {
         browser.screenshot("subduction");
     }
 
+    @Test
+    void midOceanRidgeGivesTheReferenceOnsetAndDrawsPathSolidusLiquidusAndMelting() {
+        browser.open(page("ridge"));
+        browser.fill("potentialTemperatureC", "1350");
+        browser.fill("bulkWaterWtPct", "0");
+        browser.fill("fullSpreadingRateMmPerYr", "48");
+        assertEquals("done", browser.submit());
+
+        // REFERENCES §2.5 [calc], Katz et al. (2003) dry, Tp = 1350 °C: the solidus is met at 2.661 GPa (about 82 km)
+        assertEquals(2.661, summary("column.onset.pressureGPa"), 0.011, "shown to 0.01 GPa");
+        assertEquals(82, summary("column.onset.depthKm"), 1.5);
+        double crust = summary("crustalThicknessKm");
+        // common practice: a normal ridge makes crust of several km (Klein & Langmuir 1987 rule of thumb, REFERENCES §2.5)
+        assertTrue(crust > 4 && crust < 12, "crust " + crust);
+        // new crust per km of ridge per year = crust thickness × full spreading rate (issue definition)
+        assertEquals(crust * 48e-6, summary("meltProductionKm3PerYrPerKm"), 0.00006);
+
+        WebElement diagram = browser.driver.findElement(By.cssSelector("#plots figure:first-child svg"));
+        List<String> drawn = new ArrayList<>();
+        for (WebElement p : diagram.findElements(By.cssSelector("path.curve"))) {
+            drawn.add(p.getAttribute("class").replace("curve role-", ""));
+            assertTrue(Integer.parseInt(p.getAttribute("data-points")) >= 10, p.getAttribute("data-series"));
+        }
+        assertEquals(List.of("solidus", "liquidus", "adiabat", "melting"), drawn);
+        String legend = diagram.getText();
+        assertTrue(legend.contains("solidus") && legend.contains("liquidus") && legend.contains("melt-free adiabat"), legend);
+        assertTrue(legend.contains("Pressure (GPa)"), legend);
+        assertEquals(3, browser.driver.findElements(By.cssSelector("#plots svg.plot")).size(),
+                "depth–temperature, melt fraction and productivity");
+        assertTrue(browser.driver.findElements(By.cssSelector("#plots .plot-note")).isEmpty(),
+                "every overlay was drawn");
+        browser.screenshot("ridge");
+    }
+
     /** Runs {@code body} (which may await) in the page with the page's modules as {@code plot} and {@code app}. */
     @SuppressWarnings("unchecked")
     private static Map<String, Object> inPage(String body) {
