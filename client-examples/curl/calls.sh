@@ -44,6 +44,31 @@ post /v1/pressure '{"depthsKm": [20, 42, 100], "crustThicknessKm": 42}'
 post /v1/geotherm '{"lithosphere": {"type": "continental", "surfaceHeatFlowMWPerM2": 62, "crustThicknessKm": 38},
                     "potentialTemperatureC": 1330, "maxDepthKm": 200, "stepKm": 50}'
 
+# The lithologies the service knows, with their validity ranges.
+get /v1/lithologies
+
+# Melt fraction of dry peridotite at 2 GPa and 1400 °C (a made-up xenolith's conditions).
+post /v1/melt-fraction '{"lithology": "peridotite-katz2003", "pressureGPa": 2, "temperatureC": 1400}'
+
+# Where a 1350 °C adiabat crosses the peridotite solidus (every 20 km down to 120 km).
+post /v1/solidus-crossings '{"lithology": "peridotite-katz2003",
+                             "path": {"adiabat": {"potentialTemperatureC": 1350, "maxDepthKm": 120, "depthStepKm": 20}}}'
+
+# A passive decompression column at 1350 °C under a 6 km lid, reported every 10 km.
+post /v1/decompression-melting '{"lithology": "peridotite-katz2003", "potentialTemperatureC": 1350,
+                                 "lidDepthKm": 6, "upwelling": "passive", "stepKm": 10}'
+
+# The fictional Varrow Rise: crust made by a 48 mm/yr ridge over dry 1340 °C mantle.
+post /v1/settings/mid-ocean-ridge '{"potentialTemperatureC": 1340, "bulkWaterWtPct": 0, "fullSpreadingRateMmPerYr": 48}'
+
+# The invented Ostra plume beneath 80 km of lithosphere.
+post /v1/settings/hotspot '{"potentialTemperatureC": 1480, "ambientPotentialTemperatureC": 1340,
+                            "lithosphereThicknessKm": 80, "plumeRadiusKm": 100, "upwellingVelocityCmPerYr": 5}'
+
+# The made-up Selka rift, stretched threefold.
+post /v1/settings/continental-rift '{"potentialTemperatureC": 1360, "stretchingFactor": 3,
+                                     "lithosphereThicknessKm": 120, "crustThicknessKm": 36}'
+
 # Flux melting in the wedge of the made-up Tessaly arc: 100 km, 1300 °C, 0.4 wt% water from the slab.
 post /v1/settings/subduction '{"depthKm": 100, "wedgeTemperatureC": 1300, "bulkWaterWtPct": 0.4,
                                "slabWaterFluxKgPerMPerYr": 5000, "maxWaterWtPct": 0.5}'

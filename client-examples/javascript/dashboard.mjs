@@ -31,12 +31,23 @@ async function call(method, path, body) {
 }
 
 // The panels: a title, the request, and how to turn the answer into label/value rows.
-// To show a ridge panel, add an entry calling POST /v1/settings/mid-ocean-ridge.
 const PANELS = [
   {
     title: "Service",
     request: () => call("GET", "/v1/health"),
     rows: (r) => [["status", r.status], ["version", r.version]],
+  },
+  {
+    title: "Fictional Varrow Rise: ridge at 48 mm/yr over 1340 °C mantle",
+    request: () => call("POST", "/v1/settings/mid-ocean-ridge", {
+      potentialTemperatureC: 1340, bulkWaterWtPct: 0, fullSpreadingRateMmPerYr: 48,
+    }),
+    rows: (r) => [
+      ["crustal thickness", `${r.crustalThicknessKm.toFixed(2)} km`],
+      ["new crust", `${(1e6 * r.meltProductionKm3PerYrPerKm).toFixed(0)} km³/Myr per km`],
+      ["onset of melting", r.column.onset ? `${r.column.onset.depthKm.toFixed(1)} km` : "none"],
+      ["maximum melt fraction", `${(100 * r.column.maxMeltFraction).toFixed(1)} %`],
+    ],
   },
   {
     title: "Invented Harrow Plateau: pressure at depth (42 km crust)",

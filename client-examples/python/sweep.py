@@ -35,7 +35,7 @@ def frange(start, stop, step):
 # and the columns to print (heading, function of (value, response)).
 SWEEPS = {
     "ridge": {
-        "title": "Crustal thickness against mantle potential temperature at a fictional ridge segment",
+        "title": "Crustal thickness against mantle potential temperature at a fictional ridge segment (48 mm/yr, dry)",
         "endpoint": "/v1/settings/mid-ocean-ridge",
         "values": frange(1250, 1450, 25),
         "body": lambda tp: {"potentialTemperatureC": tp, "bulkWaterWtPct": 0,
@@ -43,7 +43,9 @@ SWEEPS = {
         "columns": [
             ("Tp (°C)", lambda v, r: v),
             ("crust (km)", lambda v, r: r["crustalThicknessKm"]),
-            ("new crust (km³/yr per km)", lambda v, r: r["meltProductionKm3PerYrPerKm"]),
+            ("onset (km)", lambda v, r: (r["column"]["onset"] or {}).get("depthKm")),
+            ("mean F (%)", lambda v, r: 100 * r["column"]["meanMeltFraction"]),
+            ("new crust (km³/Myr per km)", lambda v, r: 1e6 * r["meltProductionKm3PerYrPerKm"]),
         ],
     },
     "moho": {
@@ -72,8 +74,8 @@ SWEEPS = {
     },
 }
 
-# The sweep run without --sweep ("ridge" once the server offers /v1/settings/mid-ocean-ridge).
-DEFAULT_SWEEP = "moho"
+# The sweep run without --sweep.
+DEFAULT_SWEEP = "ridge"
 
 
 class ServiceError(Exception):
@@ -121,7 +123,13 @@ def print_table(title, headings, rows):
     print(title)
     print("  ".join(h.rjust(w) for h, w in zip(headings, widths)))
     for row in rows:
-        print("  ".join((f"{x:.2f}" if isinstance(x, float) else str(x)).rjust(w) for x, w in zip(row, widths)))
+        print("  ".join(cell(x).rjust(w) for x, w in zip(row, widths)))
+
+
+def cell(x):
+    if x is None:
+        return "—"  # e.g. no onset: the mantle is too cold to melt
+    return f"{x:.2f}" if isinstance(x, float) else str(x)
 
 
 def main(argv=None):
