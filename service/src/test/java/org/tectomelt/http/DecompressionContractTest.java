@@ -109,6 +109,21 @@ class DecompressionContractTest {
     }
 
     @Test
+    void theMcKenzieBickleLawRunsDryAndRefusesWater() {
+        TestServer.json("{\"potentialTemperatureC\": 1280, \"lithology\": \"peridotite-mckenzie-bickle1988\"}")
+                .post(COLUMN).then()
+                .statusCode(200)
+                .body("lithology", equalTo("peridotite-mckenzie-bickle1988"))
+                .body("models.id", hasItem("peridotite-mckenzie-bickle1988"))
+                // White et al. (1992), Chen (1992): normal oceanic crust 6–7 km, within a few km
+                .body("crustalThicknessKm", closeTo(6.5, 3.5));
+        assertInvalidField(TestServer.json("{\"potentialTemperatureC\": 1280, \"bulkWaterWtPct\": 0.01, "
+                + "\"lithology\": \"peridotite-mckenzie-bickle1988\"}").post(COLUMN),
+                "bulkWaterWtPct")
+                .body("errors[0].message", containsString("dry-only"));
+    }
+
+    @Test
     void aColumnMeltingDeeperThanTheModelReachesIsOutsideTheModelRange() {
         assertProblem(TestServer.json("{\"potentialTemperatureC\": 1700}").post(COLUMN), 400, "outside-model-range")
                 .body("detail", containsString("deeper than the model reaches"));

@@ -8,6 +8,8 @@ import org.tectomelt.engine.column.ColumnResult;
 import org.tectomelt.engine.column.DecompressionColumn;
 import org.tectomelt.engine.column.ProfilePoint;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
+import org.tectomelt.engine.melting.MantleLithology;
+import org.tectomelt.engine.melting.McKenzieBickle1988Peridotite;
 import org.tectomelt.engine.melting.MantleThermodynamics;
 
 /**
@@ -23,7 +25,10 @@ class EntropyConservationReferenceTest {
     private static final double C = 273.15;
 
     private static void assertEntropyConserved(double tpC, double water) {
-        Katz2003Peridotite katz = Katz2003Peridotite.fertile();
+        assertEntropyConserved(Katz2003Peridotite.fertile(), tpC, water);
+    }
+
+    private static void assertEntropyConserved(MantleLithology katz, double tpC, double water) {
         MantleThermodynamics th = katz.thermodynamics();
         MantleThermodynamics equal = new MantleThermodynamics(th.heatCapacity(), th.entropyOfFusion(),
                 th.solidExpansivity(), th.solidExpansivity(), th.solidDensity(), th.solidDensity());
@@ -52,5 +57,10 @@ class EntropyConservationReferenceTest {
     @Test
     void hydrousColumnConservesEntropy() {
         assertEntropyConserved(1350, 2e-4);
+    }
+
+    @Test
+    void aColumnWithTheMcKenzieBickleLawConservesEntropy() {
+        assertEntropyConserved(new McKenzieBickle1988Peridotite(), 1380, 0.0);
     }
 }
