@@ -610,6 +610,19 @@ async function drawFigure(figure, spec, last) {
     });
     series.push({ label: s.label, role: s.role, dots: s.dots, points });
   }
+  if (spec.seriesFrom) {
+    // one curve per element of an array (e.g. a profile per requested time), in sequence colours
+    const sf = spec.seriesFrom;
+    rowsOf(last.response, sf.data).forEach((e, i) => {
+      const pts = Array.isArray(e[sf.points]) ? e[sf.points] : [];
+      series.push({
+        label: sf.label.replace(/\{(\w+)\}/g, (_, k) => (typeof e[k] === "number" ? fmt(e[k], Number.isInteger(e[k]) ? 0 : 1) : String(e[k] ?? ""))),
+        role: `seq-${i % 6}`,
+        points: pts.map((p) => [typeof p[sf.x] === "number" ? p[sf.x] * (sf.scale || 1) : NaN,
+          typeof p[spec.y.key] === "number" ? p[spec.y.key] : NaN]),
+      });
+    });
+  }
   const levels = (spec.levels || []).map((l) => ({ y: sourceValue(l, last), label: l.label }));
   const marks = (spec.marks || []).map((mk) => ({ x: sourceValue(mk.x, last), y: sourceValue(mk.y, last), label: mk.label }));
   if (spec.pointsFrom) {

@@ -10,6 +10,7 @@ import java.util.Comparator;
 import java.util.Map;
 import java.util.stream.Stream;
 import org.openqa.selenium.By;
+import org.openqa.selenium.Dimension;
 import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.OutputType;
 import org.openqa.selenium.WebElement;
@@ -89,15 +90,20 @@ final class HeadlessChromium implements AutoCloseable {
         return (String) js("return document.getElementById('results').dataset.state");
     }
 
-    /** Saves a PNG of the window under target/browser/ and returns its path. */
+    /** Saves a PNG of the whole page (the window grown to the page's height) under target/browser/. */
     Path screenshot(String name) {
+        Dimension window = driver.manage().window().getSize();
         try {
+            long height = ((Number) js("return Math.ceil(document.documentElement.scrollHeight)")).longValue();
+            driver.manage().window().setSize(new Dimension(window.getWidth(), (int) Math.min(Math.max(height, 600), 8000)));
             Files.createDirectories(SCREENSHOTS);
             Path file = SCREENSHOTS.resolve(name + ".png");
             Files.write(file, driver.getScreenshotAs(OutputType.BYTES));
             return file;
         } catch (IOException e) {
             throw new UncheckedIOException(e);
+        } finally {
+            driver.manage().window().setSize(window);
         }
     }
 

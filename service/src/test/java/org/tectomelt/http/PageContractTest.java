@@ -137,6 +137,17 @@ class PageContractTest {
             }
             for (JsonNode p : t.path("plots")) {
                 String what = id + ": plot '" + p.get("title").asText() + "'";
+                if (p.has("seriesFrom")) {
+                    JsonNode sf = p.get("seriesFrom");
+                    JsonNode each = requireArray(w, response, sf.get("data"), what, problems);
+                    JsonNode points = each == null ? null : w.at(each, sf.get("points").asText());
+                    if (points == null || !"array".equals(points.path("type").asText())) {
+                        problems.add(what + ": " + sf.get("points").asText() + " is not an array in each element");
+                    } else {
+                        requireKey(w, w.resolve(points.get("items")), sf.get("x").asText(), what, problems);
+                        requireKey(w, w.resolve(points.get("items")), p.at("/y/key").asText(), what, problems);
+                    }
+                }
                 if (p.get("data").isEmpty()) {
                     continue;
                 }
