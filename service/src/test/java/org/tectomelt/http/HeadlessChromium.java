@@ -58,8 +58,9 @@ final class HeadlessChromium implements AutoCloseable {
         driver.manage().timeouts().scriptTimeout(Duration.ofSeconds(20));
     }
 
-    /** Opens {@code url} and waits until the page has loaded its configuration. */
+    /** Loads {@code url} afresh (not a same-page hash change) and waits until the page has loaded its configuration. */
     void open(String url) {
+        driver.get("about:blank");
         driver.get(url);
         waitFor(By.cssSelector("body[data-ready='true']"));
     }
