@@ -105,9 +105,17 @@ function headers(json) {
   return hd;
 }
 
+/**
+ * The absolute URL of an API path, resolved against the page's own address, so the page also
+ * works when the service is served under a path prefix behind a proxy.
+ */
+export function apiUrl(path) {
+  return new URL(path.replace(/^\//, ""), document.baseURI).href;
+}
+
 /** POST JSON; resolves to {ok, status, body, contentType} and never throws for HTTP errors. */
-async function post(url, body) {
-  const res = await fetch(url, { method: "POST", headers: headers(true), body: JSON.stringify(body) });
+async function post(path, body) {
+  const res = await fetch(apiUrl(path), { method: "POST", headers: headers(true), body: JSON.stringify(body) });
   const contentType = res.headers.get("Content-Type") || "";
   const text = await res.text();
   let parsed = null;
@@ -176,7 +184,7 @@ async function loadLithologies() {
     return;
   }
   try {
-    const res = await fetch(LITHOLOGIES, { headers: headers(false) });
+    const res = await fetch(apiUrl(LITHOLOGIES), { headers: headers(false) });
     if (res.ok) {
       const list = await res.json();
       if (Array.isArray(list) && list.length > 0) {
@@ -457,7 +465,7 @@ async function run(tool, form) {
     }
     return;
   }
-  state.last = { tool, body, values, url: location.origin + tool.endpoint, response: res.body };
+  state.last = { tool, body, values, url: apiUrl(tool.endpoint), response: res.body };
   await renderResults(state.last);
 }
 
