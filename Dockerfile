@@ -1,7 +1,9 @@
 # syntax=docker/dockerfile:1
 # Build: docker build -t tectomelt .
 # Run:   docker run --rm -p 7070:7070 tectomelt
-# Every setting is an environment variable (see README, "Configuration").
+# Every setting is an environment variable (see README, "Configuration" and "Running it for a group").
+# Stop: SIGTERM closes the port and lets requests in flight finish for TECTOMELT_SHUTDOWN_GRACE_MS
+# (12 s by default), so give Docker more than that: docker run --stop-timeout 15 ...
 
 FROM maven:3.9-eclipse-temurin-17 AS build
 WORKDIR /src
@@ -20,6 +22,7 @@ COPY --from=build /src/service/target/tectomelt.jar /app/tectomelt.jar
 ENV HOST=0.0.0.0 \
     PORT=7070 \
     JAVA_TOOL_OPTIONS="-Xmx256m -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError"
+STOPSIGNAL SIGTERM
 USER tectomelt
 EXPOSE 7070
 HEALTHCHECK --interval=30s --timeout=3s --start-period=10s --retries=3 \

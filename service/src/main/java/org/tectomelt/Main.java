@@ -30,6 +30,7 @@ public final class Main {
         Javalin app = App.create(config);
         Runtime.getRuntime().addShutdownHook(new Thread(app::stop, "tectomelt-shutdown"));
         app.start(config.host(), config.port());
+        LOG.info("settings: {}", config);
         LOG.info("tectomelt {} listening on http://{}:{}/", App.VERSION, config.host(), app.port());
     }
 }

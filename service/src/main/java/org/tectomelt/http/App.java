@@ -1,6 +1,8 @@
 package org.tectomelt.http;
 
 import io.javalin.Javalin;
+import io.javalin.http.Context;
+import io.javalin.http.Handler;
 import io.javalin.http.HandlerType;
 import io.javalin.http.staticfiles.Location;
 import java.io.IOException;
@@ -9,9 +11,14 @@ import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Properties;
+import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.tectomelt.Config;
 
-/** Factory: configuration in, unstarted Javalin app out (routes, problem mapping, static page). */
+/**
+ * Factory: configuration in, unstarted Javalin app out (routes, problem mapping, static page, and
+ * the shared-server machinery: access control, CORS, the heavy-route limiter and budget, ETags, the
+ * result cache, metrics and graceful shutdown).
+ */
 public final class App {
 
     /** The service version, from the build. */
@@ -37,37 +44,99 @@ public final class App {
 
     /** Builds the app with an explicit route list (tests add failing routes with it). */
     static Javalin create(Config config, RequestObserver observer, List<Route> routes) {
-        return Javalin.create(c -> {
+        return create(config, observer, routes, new Heavy(config));
+    }
+
+    /** Builds the app with an explicit route list and heavy-route limiter (tests saturate it). */
+    static Javalin create(Config config, RequestObserver observer, List<Route> routes, Heavy heavy) {
+        ResultCache cache = new ResultCache(config.cacheMegabytes());
+        Metrics metrics = new Metrics(heavy, cache);
+        RequestKey keys = new RequestKey(VERSION + ";" + config.resultFingerprint());
+        AccessControl access = new AccessControl(config.token());
+        Javalin app = Javalin.create(c -> {
             c.startup.showJavalinBanner = false;
             c.startup.showOldJavalinVersionWarning = false;
             c.http.maxRequestSize = config.maxBodyBytes();
             c.http.prefer405over404 = true;
+            c.appData(Metrics.KEY, metrics);
             c.staticFiles.add(sf -> {
                 sf.hostedPath = "/";
                 sf.directory = "/public";
                 sf.location = Location.CLASSPATH;
             });
+            Cors.configure(c, config.corsOrigins());
+            // graceful stop: connectors stop accepting, in-flight requests get up to the grace period
+            c.jetty.modifyServer(server -> {
+                server.setStopTimeout(config.shutdownGraceMillis());
+                server.setHandler(new GracefulHandler());
+            });
             c.routes.before(RequestPlumbing::assignRequestId);
+            // after every before-handler (the CORS plugin's among them), so refusals carry CORS headers
+            c.routes.beforeMatched(ctx -> Cors.acceptUnlistedOrigin(ctx, config.corsOrigins()));
+            c.routes.beforeMatched(access::check);
             c.routes.beforeMatched(ctx -> RequestPlumbing.checkBody(ctx, config.maxBodyBytes()));
             for (Route r : routes) {
+                Handler h = serve(r, heavy, cache, keys);
                 if (r.method() == HandlerType.GET) {
-                    c.routes.get(r.path(), r.handler());
+                    c.routes.get(r.path(), h);
                 } else if (r.method() == HandlerType.POST) {
-                    c.routes.post(r.path(), r.handler());
+                    c.routes.post(r.path(), h);
                 } else {
                     throw new IllegalArgumentException("unsupported method " + r.method());
                 }
             }
             Problems.register(c.routes);
-            c.requestLogger.http((ctx, ms) -> RequestPlumbing.finished(ctx, ms, observer));
+            c.requestLogger.http((ctx, ms) -> {
+                metrics.finished(ctx, ms);
+                RequestPlumbing.finished(ctx, ms, observer);
+            });
+            c.events.serverStopped(metrics::close);
         });
+        return app;
+    }
+
+    /**
+     * Wraps a route's handler in what its kind asks for: the {@code If-None-Match} check, then for
+     * heavy routes the result cache and the limiter with its budget; the {@code ETag} on success.
+     */
+    private static Handler serve(Route r, Heavy heavy, ResultCache cache, RequestKey keys) {
+        if (r.kind() == Route.Kind.LIVE) {
+            return r.handler();
+        }
+        return ctx -> {
+            String etag = keys.etag(ctx);
+            if (etag != null && RequestKey.matches(ctx.header("If-None-Match"), etag)) {
+                ctx.header("ETag", etag).status(304);
+                return;
+            }
+            if (r.heavy()) {
+                byte[] hit = cache.get(etag);
+                if (hit != null) {
+                    Responses.bytes(ctx, hit);
+                } else {
+                    heavy.run(ctx, r.handler());
+                    if (succeeded(ctx)) {
+                        cache.put(etag, Responses.written(ctx));
+                    }
+                }
+            } else {
+                r.handler().handle(ctx);
+            }
+            if (etag != null && succeeded(ctx)) {
+                ctx.header("ETag", etag);
+            }
+        };
+    }
+
+    private static boolean succeeded(Context ctx) {
+        return ctx.status().getCode() == 200 && Responses.written(ctx) != null;
     }
 
     /** Every route the service serves; the spec-consistency test reads this same list. */
     public static List<Route> routes(Config config) {
         List<Route> all = new ArrayList<>();
         all.addAll(MetaRoutes.routes());
-        all.addAll(PressureRoutes.routes());
+        all.addAll(PressureRoutes.routes(config));
         // thermal: geotherm routes
         all.addAll(GeothermRoutes.routes());
 
@@ -83,6 +152,7 @@ public final class App {
         // crust: crustal heating budget and sill model
 
         // operations: metrics and the like
+        all.addAll(OperationsRoutes.routes());
 
         return List.copyOf(all);
     }

@@ -51,6 +51,8 @@ public final class Json {
         SimpleModule finiteOnly = new SimpleModule("finite-numbers");
         finiteOnly.addSerializer(Double.class, new FiniteDoubleSerializer());
         finiteOnly.addSerializer(double.class, new FiniteDoubleSerializer());
+        finiteOnly.addDeserializer(Double.class, new StrictDoubleDeserializer(Double.class));
+        finiteOnly.addDeserializer(double.class, new StrictDoubleDeserializer(double.class));
         JsonMapper mapper = JsonMapper.builder()
                 .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
                 .enable(DeserializationFeature.FAIL_ON_NULL_FOR_PRIMITIVES)
@@ -113,7 +115,10 @@ public final class Json {
             return ApiProblem.invalid(path(u), "is not a known field here; known fields: " + known);
         }
         if (e instanceof InvalidFormatException f) {
-            return ApiProblem.invalid(path(f), "has the wrong type or format; expected " + describe(f.getTargetType()));
+            String field = path(f);
+            return field.isEmpty()
+                    ? ApiProblem.malformed("The request body must be a JSON object")
+                    : ApiProblem.invalid(field, "has the wrong type or format; expected " + describe(f.getTargetType()));
         }
         if (e instanceof MismatchedInputException mi) {
             String field = path(mi);
@@ -197,6 +202,52 @@ public final class Json {
         int nl = s.indexOf('\n');
         String line = nl < 0 ? s : s.substring(0, nl);
         return line.length() > 200 ? line.substring(0, 200) + "…" : line;
+    }
+
+    /**
+     * Reads a JSON number into a double, and nothing else: Jackson's own deserializer would take the
+     * strings "NaN" and "Infinity" (and so let a non-finite value past any check that forgets it),
+     * and turns a number beyond ±1.8e308 into Infinity. Both are refused here, naming the field.
+     */
+    private static final class StrictDoubleDeserializer
+            extends com.fasterxml.jackson.databind.deser.std.StdScalarDeserializer<Double> {
+        private static final long serialVersionUID = 1L;
+        private final boolean primitive;
+
+        StrictDoubleDeserializer(Class<?> type) {
+            super(type);
+            this.primitive = type.isPrimitive();
+        }
+
+        @Override
+        public Double deserialize(com.fasterxml.jackson.core.JsonParser p,
+                                  com.fasterxml.jackson.databind.DeserializationContext ctxt) throws IOException {
+            com.fasterxml.jackson.core.JsonToken t = p.currentToken();
+            if (t == com.fasterxml.jackson.core.JsonToken.VALUE_NUMBER_INT
+                    || t == com.fasterxml.jackson.core.JsonToken.VALUE_NUMBER_FLOAT) {
+                double d = p.getDoubleValue();
+                if (!Double.isFinite(d)) {
+                    throw JsonMappingException.from(p, "the number " + p.getText()
+                            + " is beyond the range of a double (about ±1.8e308)");
+                }
+                return d;
+            }
+            return (Double) ctxt.handleUnexpectedToken(primitive ? double.class : Double.class, p);
+        }
+
+        @Override
+        public Double getNullValue(com.fasterxml.jackson.databind.DeserializationContext ctxt)
+                throws JsonMappingException {
+            if (primitive) {
+                return (Double) ctxt.reportInputMismatch(this, "null where a number is required");
+            }
+            return null;
+        }
+
+        @Override
+        public LogicalType logicalType() {
+            return LogicalType.Float;
+        }
     }
 
     /** Writes finite doubles; a NaN or Infinity in a response is a bug and fails the request. */

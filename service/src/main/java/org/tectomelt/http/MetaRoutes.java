@@ -19,7 +19,7 @@ final class MetaRoutes {
 
     static List<Route> routes() {
         return List.of(
-                Route.get("/v1/health", MetaRoutes::health),
+                Route.liveGet("/v1/health", MetaRoutes::health),
                 Route.get("/openapi.yaml", MetaRoutes::spec));
     }
 

@@ -3,6 +3,7 @@ package org.tectomelt.http;
 import io.javalin.http.Context;
 import java.util.ArrayList;
 import java.util.List;
+import org.tectomelt.Config;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.thermal.LithostaticColumn;
 import org.tectomelt.engine.units.Units;
@@ -10,14 +11,12 @@ import org.tectomelt.engine.units.Units;
 /** {@code POST /v1/pressure}: lithostatic pressure at depths, or depths of pressures. */
 final class PressureRoutes {
 
-    /** Most depths or pressures in one request. */
-    static final int MAX_POINTS = 5000;
-
     private PressureRoutes() {
     }
 
-    static List<Route> routes() {
-        return List.of(Route.post("/v1/pressure", PressureRoutes::pressure));
+    /** A cheap route: at most {@code TECTOMELT_MAX_PROFILE_POINTS} closed-form evaluations. */
+    static List<Route> routes(Config config) {
+        return List.of(Route.post("/v1/pressure", ctx -> pressure(ctx, config.maxProfilePoints())));
     }
 
     /** Request body. */
@@ -33,7 +32,7 @@ final class PressureRoutes {
     record PressureResponse(List<Point> points, List<ModelInfo> models) {
     }
 
-    static void pressure(Context ctx) {
+    static void pressure(Context ctx, int maxPoints) {
         PressureRequest req = Json.read(ctx.bodyAsBytes(), PressureRequest.class);
         Validation v = new Validation();
         double crustKm = v.optional("crustThicknessKm", req.crustThicknessKm(), 0, 0, 100);
@@ -48,7 +47,8 @@ final class PressureRoutes {
             v.throwIfInvalid();
         }
         String name = byDepth ? "depthsKm" : "pressuresGPa";
-        List<Double> values = v.list(name, byDepth ? req.depthsKm() : req.pressuresGPa(), 1, MAX_POINTS);
+        List<Double> values = v.list(name, byDepth ? req.depthsKm() : req.pressuresGPa(), 1, maxPoints,
+                "TECTOMELT_MAX_PROFILE_POINTS");
         double max = byDepth ? Units.mToKm(LithostaticColumn.MAX_DEPTH_M) : 25;
         for (int i = 0; i < values.size(); i++) {
             Double x = values.get(i);

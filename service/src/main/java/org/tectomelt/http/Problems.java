@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Map;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.tectomelt.engine.BudgetExceededException;
 import org.tectomelt.engine.EngineException;
 
 /**
@@ -21,6 +22,7 @@ public final class Problems {
     public static final String PROBLEM_JSON = "application/problem+json";
 
     private static final Logger LOG = LoggerFactory.getLogger(Problems.class);
+    private static final String TYPE_ATTR = "tectomelt.problemType";
 
     private Problems() {
     }
@@ -30,6 +32,9 @@ public final class Problems {
         routes.exception(ApiProblem.class, (e, ctx) -> write(ctx, e));
         routes.exception(EngineException.class, (e, ctx) -> write(ctx, new ApiProblem(400, "outside-model-range",
                 "Outside what the model can compute", e.getMessage(), List.of(), Map.of())));
+        routes.exception(BudgetExceededException.class, (e, ctx) -> write(ctx, new ApiProblem(503, "over-budget",
+                "Computation budget exceeded", e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS); ask for fewer points,"
+                        + " a coarser grid or a shorter duration", List.of(), Map.of())));
         routes.exception(HttpResponseException.class, (e, ctx) -> write(ctx, fromStatus(e.getStatus(), ctx)));
         routes.exception(Exception.class, (e, ctx) -> {
             LOG.error("unexpected failure, requestId={} {} {}", RequestPlumbing.requestId(ctx), ctx.method(),
@@ -76,7 +81,13 @@ public final class Problems {
             body.put("errors", p.errors());
         }
         p.headers().forEach(ctx::header);
+        ctx.attribute(TYPE_ATTR, p.type());
         ctx.status(p.status()).contentType(PROBLEM_JSON).result(Json.write(body));
+    }
+
+    /** The type slug of the problem written for this request ({@code validation}, {@code busy}…), or null. */
+    static String problemType(Context ctx) {
+        return ctx.attribute(TYPE_ATTR);
     }
 
     private static boolean isProblem(Context ctx) {

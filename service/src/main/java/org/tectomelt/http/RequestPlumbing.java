@@ -64,14 +64,24 @@ final class RequestPlumbing {
     }
 
     private static String matchedRoute(Context ctx) {
+        String route = endpointPath(ctx);
+        return route == null ? ctx.path() : route;
+    }
+
+    /** The template of the route that served this request, or null when none matched. */
+    static String endpointPath(Context ctx) {
         try {
-            Endpoint e = ctx.endpoints().lastHttpEndpoint();
-            if (e != null && e.method != HandlerType.BEFORE && e.method != HandlerType.AFTER) {
+            // the matched endpoint, even when a before-matched check refused the request (401, 413, 415)
+            Endpoint e = ctx.endpoints().matchedHttpEndpoint();
+            if (e == null) {
+                e = ctx.endpoints().lastHttpEndpoint();
+            }
+            if (e != null && e.method.isHttpMethod()) {
                 return e.path;
             }
         } catch (RuntimeException ignored) {
             // no endpoint matched
         }
-        return ctx.path();
+        return null;
     }
 }

@@ -11,16 +11,55 @@ import io.javalin.http.HandlerType;
  * @param method  HTTP method
  * @param path    path template as written in the spec
  * @param handler thin handler: parse, validate, call the engine, write JSON
+ * @param kind    how the app serves it (see {@link Kind})
  */
-public record Route(HandlerType method, String path, Handler handler) {
+public record Route(HandlerType method, String path, Handler handler, Kind kind) {
 
-    /** A GET route. */
-    public static Route get(String path, Handler handler) {
-        return new Route(HandlerType.GET, path, handler);
+    /** How the app serves a route. */
+    public enum Kind {
+        /**
+         * Fast and deterministic (milliseconds, bounded by the caps): served at once; a successful
+         * JSON answer carries an {@code ETag} and honours {@code If-None-Match}.
+         */
+        CHEAP,
+        /**
+         * Long computations (sill model, long columns, large batches): at most
+         * {@code TECTOMELT_HEAVY_CONCURRENCY} at once (503 with {@code Retry-After} beyond, after
+         * {@code TECTOMELT_HEAVY_QUEUE_MS} of waiting), a wall-clock budget the handler reads with
+         * {@link Heavy#deadline}, results kept in the bounded result cache; ETag as for CHEAP.
+         */
+        HEAVY,
+        /** An answer that changes from call to call (metrics, liveness): no ETag, never cached. */
+        LIVE
     }
 
-    /** A POST route. */
+    /** A cheap route, as in the first release. */
+    public Route(HandlerType method, String path, Handler handler) {
+        this(method, path, handler, Kind.CHEAP);
+    }
+
+    /** A cheap GET route. */
+    public static Route get(String path, Handler handler) {
+        return new Route(HandlerType.GET, path, handler, Kind.CHEAP);
+    }
+
+    /** A cheap POST route. */
     public static Route post(String path, Handler handler) {
-        return new Route(HandlerType.POST, path, handler);
+        return new Route(HandlerType.POST, path, handler, Kind.CHEAP);
+    }
+
+    /** A heavy POST route: concurrency-limited, with a wall-clock budget and a result cache. */
+    public static Route heavyPost(String path, Handler handler) {
+        return new Route(HandlerType.POST, path, handler, Kind.HEAVY);
+    }
+
+    /** A GET route whose answer changes from call to call. */
+    public static Route liveGet(String path, Handler handler) {
+        return new Route(HandlerType.GET, path, handler, Kind.LIVE);
+    }
+
+    /** True for {@link Kind#HEAVY}. */
+    public boolean heavy() {
+        return kind == Kind.HEAVY;
     }
 }

@@ -124,6 +124,33 @@ public final class Validation {
         return value;
     }
 
+    /**
+     * A list whose length must lie in [min, max], where {@code max} is a server cap set by the
+     * environment variable {@code capVariable}; the message names the variable, so a caller who hits
+     * the cap knows it is the server's setting and not the model's limit.
+     */
+    public <T> List<T> list(String name, List<T> value, int min, int max, String capVariable) {
+        if (value != null && value.size() > max) {
+            error(name, "must have between " + min + " and " + max + " entries (server cap " + capVariable
+                    + "), got " + value.size());
+            return value;
+        }
+        return list(name, value, min, max);
+    }
+
+    /**
+     * A size (cells × steps, a duration) that must not exceed a server cap set by the environment
+     * variable {@code capVariable}. Returns whether it is within the cap.
+     */
+    public boolean cap(String name, double size, double max, String what, String capVariable) {
+        if (!(size <= max)) {
+            error(name, what + " " + format(size) + " exceeds the server cap of " + format(max) + " ("
+                    + capVariable + ")");
+            return false;
+        }
+        return true;
+    }
+
     /** Records an error when {@code ok} is false. Returns {@code ok}. */
     public boolean check(boolean ok, String name, String message) {
         if (!ok) {

@@ -38,6 +38,20 @@ class ProblemContractTest {
     }
 
     @Test
+    void notANumberAndInfinityAreNotNumbersInJson() {
+        for (String word : new String[] {"\"NaN\"", "\"Infinity\"", "\"-Infinity\""}) {
+            assertInvalidField(TestServer.json("{\"depthsKm\": [31, " + word + "]}").post(PRESSURE), "depthsKm[1]")
+                    .body("errors[0].message", containsString("expected a number"));
+            assertInvalidField(TestServer.json("{\"depthsKm\": [31], \"crustThicknessKm\": " + word + "}")
+                    .post(PRESSURE), "crustThicknessKm");
+        }
+        // beyond the range of a double: named, not turned into Infinity
+        assertInvalidField(TestServer.json("{\"depthsKm\": [1e400]}").post(PRESSURE), "depthsKm[0]")
+                .body("errors[0].message", containsString("beyond the range of a double"));
+        assertProblem(TestServer.json("\"\"").post(PRESSURE), 400, "malformed-json");
+    }
+
+    @Test
     void anUnknownFieldIsNamedSoAMissingUnitSuffixIsCaught() {
         assertInvalidField(TestServer.json("{\"depthsKm\": [31], \"crustThickness\": 35}").post(PRESSURE),
                 "crustThickness")
@@ -112,7 +126,7 @@ class ProblemContractTest {
         routes.add(Route.get("/v1/boom", ctx -> {
             throw new IllegalStateException("secret internal state 0xDEADBEEF");
         }));
-        Javalin app = App.create(Config.defaults().withPort(0), RequestObserver.NONE, routes).start("127.0.0.1", 0);
+        Javalin app = App.create(TestApps.config(java.util.Map.of()), RequestObserver.NONE, routes).start("127.0.0.1", 0);
         try {
             var r = RestAssured.given().baseUri("http://127.0.0.1").port(app.port())
                     .header("X-Request-Id", "trace-500").get("/v1/boom");
@@ -129,7 +143,7 @@ class ProblemContractTest {
     void aNonFiniteNumberCanNeverReachAResponse() {
         List<Route> routes = new ArrayList<>(App.routes(Config.defaults()));
         routes.add(Route.get("/v1/nan", ctx -> Responses.json(ctx, java.util.Map.of("x", Double.NaN))));
-        Javalin app = App.create(Config.defaults().withPort(0), RequestObserver.NONE, routes).start("127.0.0.1", 0);
+        Javalin app = App.create(TestApps.config(java.util.Map.of()), RequestObserver.NONE, routes).start("127.0.0.1", 0);
         try {
             var r = RestAssured.given().baseUri("http://127.0.0.1").port(app.port()).get("/v1/nan");
             assertProblem(r, 500, "internal").body(not(containsString("NaN")));

@@ -1,0 +1,201 @@
+#!/usr/bin/env bash
+# Load test of the packaged service with wrk, over loopback only.
+#
+# Starts service/target/tectomelt.jar with the container's heap settings on 127.0.0.1 (a free
+# port), then for each endpoint runs wrk and reports requests/s, p50 and p99 latency, failed
+# responses and socket errors, and the server's resident memory (VmRSS from /proc) after each run.
+# With --soak it instead drives all endpoints together at a moderate rate for a while and fails on
+# any error or on resident memory above the limit.
+#
+# Endpoints are "GET:/path" or "POST:/path=@body.json" (a file) or "POST:/path={...}" (inline).
+# Default: GET:/v1/health (the framework's ceiling) and POST:/v1/pressure with
+# .ci/load/bodies/pressure.json. Add routes as they land, e.g.
+#   POST:/v1/melt-fraction=@.ci/load/bodies/melt-fraction.json
+#
+# Examples (from the repository root, after mvn -B -q -DskipTests package):
+#   bash .ci/load/wrk-bench.sh                                   # 3 runs × 10 s, -t1 -c32
+#   bash .ci/load/wrk-bench.sh --runs 5 --duration 20 GET:/v1/health POST:/v1/pressure=@.ci/load/bodies/pressure.json
+#   bash .ci/load/wrk-bench.sh --soak 30                          # what .ci/run does
+#   bash .ci/load/wrk-bench.sh --soak 3600 --connections 16       # the long soak for the lab machine
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+
+JAR=service/target/tectomelt.jar
+DURATION=10
+THREADS=1
+CONNECTIONS=32
+RUNS=3
+WARMUP=5
+HEAP=256m
+SOAK=0
+DELAY_MS=0
+MAX_RSS_MIB=512
+OUT=""
+SERVER_ENV=("TECTOMELT_CACHE_MB=0")   # measure computation, not the result cache
+ENDPOINTS=()
+
+usage() { sed -n '2,22p' "$0" | sed 's/^# \{0,1\}//'; exit "${1:-0}"; }
+
+while [ $# -gt 0 ]; do
+  case "$1" in
+    --jar) JAR="$2"; shift 2 ;;
+    --duration) DURATION="$2"; shift 2 ;;
+    --threads) THREADS="$2"; shift 2 ;;
+    --connections) CONNECTIONS="$2"; shift 2 ;;
+    --runs) RUNS="$2"; shift 2 ;;
+    --warmup) WARMUP="$2"; shift 2 ;;
+    --heap) HEAP="$2"; shift 2 ;;
+    --soak) SOAK="$2"; shift 2 ;;
+    --delay-ms) DELAY_MS="$2"; shift 2 ;;
+    --max-rss-mib) MAX_RSS_MIB="$2"; shift 2 ;;
+    --env) SERVER_ENV+=("$2"); shift 2 ;;
+    --out) OUT="$2"; shift 2 ;;
+    -h|--help) usage 0 ;;
+    -*) echo "unknown option $1" >&2; usage 2 ;;
+    *) ENDPOINTS+=("$1"); shift ;;
+  esac
+done
+if [ ${#ENDPOINTS[@]} -eq 0 ]; then
+  ENDPOINTS=("GET:/v1/health" "POST:/v1/pressure=@.ci/load/bodies/pressure.json")
+fi
+command -v wrk >/dev/null || { echo "wrk is not installed (Debian package wrk)" >&2; exit 2; }
+[ -f "$JAR" ] || { echo "no $JAR: run mvn -B -q -DskipTests package first" >&2; exit 2; }
+
+WORK=$(mktemp -d)
+SERVER_PID=""
+cleanup() {
+  if [ -n "$SERVER_PID" ] && kill -0 "$SERVER_PID" 2>/dev/null; then
+    kill "$SERVER_PID" 2>/dev/null || true
+    wait "$SERVER_PID" 2>/dev/null || true
+  fi
+  [ -n "${KEEP_WORK:-}" ] || rm -rf "$WORK"
+}
+trap cleanup EXIT
+
+# ---- endpoints → one Lua request table each
+lua_string() { python3 -c 'import json,sys; print(json.dumps(sys.stdin.read()))'; }
+endpoint_lua() {   # prints Lua table entries {method, path, body} for the given endpoint specs
+  local spec method rest path body
+  for spec in "$@"; do
+    method=${spec%%:*}; rest=${spec#*:}
+    if [[ "$rest" == *=* ]]; then
+      path=${rest%%=*}; body=${rest#*=}
+      if [[ "$body" == @* ]]; then body=$(cat "${body#@}"); fi
+    else
+      path=$rest; body=""
+    fi
+    printf '  {method = "%s", path = "%s", body = %s},\n' "$method" "$path" "$(printf '%s' "$body" | lua_string)"
+  done
+}
+make_script() {    # $1 = script file, rest = endpoint specs
+  local file=$1; shift
+  {
+    echo "local endpoints = {"
+    endpoint_lua "$@"
+    echo "}"
+    cat <<LUA
+local reqs = {}
+-- built in init, once wrk has set the Host header
+init = function(args)
+  for i, e in ipairs(endpoints) do
+    local headers = {}
+    if e.body ~= "" then headers["Content-Type"] = "application/json" end
+    if os.getenv("TECTOMELT_TOKEN") then headers["Authorization"] = "Bearer " .. os.getenv("TECTOMELT_TOKEN") end
+    reqs[i] = wrk.format(e.method, e.path, headers, e.body ~= "" and e.body or nil)
+  end
+end
+local n = 0
+request = function()
+  n = n + 1
+  return reqs[(n % #reqs) + 1]
+end
+local delay_ms = ${DELAY_MS}
+if delay_ms > 0 then delay = function() return delay_ms end end
+done = function(summary, latency, requests)
+  local secs = summary.duration / 1e6
+  io.write(string.format("RESULT requests=%d rps=%.1f p50_ms=%.3f p99_ms=%.3f max_ms=%.3f status_errors=%d socket_errors=%d\n",
+    summary.requests, summary.requests / secs, latency:percentile(50) / 1000, latency:percentile(99) / 1000,
+    latency.max / 1000, summary.errors.status,
+    summary.errors.connect + summary.errors.read + summary.errors.write + summary.errors.timeout))
+end
+LUA
+  } > "$file"
+}
+
+# ---- server
+rss_mib() { awk '/^VmRSS:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
+# CPU time the server used (user + system, clock ticks): per request it does not depend on how
+# busy the machine is, unlike requests/s
+cpu_ticks() { awk '{print $14 + $15}' "/proc/$SERVER_PID/stat"; }
+CLK_TCK=$(getconf CLK_TCK)
+hwm_mib() { awk '/^VmHWM:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
+
+env HOST=127.0.0.1 PORT=0 "${SERVER_ENV[@]}" \
+  java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError -jar "$JAR" > "$WORK/server.log" 2>&1 &
+SERVER_PID=$!
+PORT=""
+for _ in $(seq 1 150); do
+  PORT=$(sed -n 's#.*listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$WORK/server.log" | head -1)
+  [ -n "$PORT" ] && break
+  kill -0 "$SERVER_PID" 2>/dev/null || { cat "$WORK/server.log" >&2; exit 1; }
+  sleep 0.2
+done
+[ -n "$PORT" ] || { echo "server did not start" >&2; cat "$WORK/server.log" >&2; exit 1; }
+BASE="http://127.0.0.1:$PORT"
+
+echo "# machine: $(nproc) cores, $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2 | sed 's/^ *//'), load average $(cut -d' ' -f1-3 /proc/loadavg)"
+echo "# server: java -Xmx$HEAP -XX:+UseSerialGC ($(java -version 2>&1 | head -1)), ${SERVER_ENV[*]}, pid $SERVER_PID, $BASE"
+echo "# wrk $(wrk -v 2>&1 | head -1 | cut -d' ' -f2) -t$THREADS -c$CONNECTIONS, RSS after start: $(rss_mib) MiB"
+
+run_wrk() {   # $1 = seconds, $2 = lua script; prints the RESULT line
+  wrk -t"$THREADS" -c"$CONNECTIONS" -d"${1}s" --timeout 10s -s "$2" "$BASE" > "$WORK/wrk.out" 2>&1 || true
+  grep '^RESULT' "$WORK/wrk.out" || { cat "$WORK/wrk.out" >&2; echo "RESULT requests=0 rps=0 p50_ms=0 p99_ms=0 max_ms=0 status_errors=1 socket_errors=1"; }
+}
+field() { sed -n "s/.* $1=\([^ ]*\).*/\1/p" <<< " $2"; }
+
+FAILED=0
+if [ "$SOAK" -gt 0 ]; then
+  make_script "$WORK/soak.lua" "${ENDPOINTS[@]}"
+  [ "$DELAY_MS" -gt 0 ] || true
+  echo "# soak: ${SOAK} s over ${#ENDPOINTS[@]} endpoints, -c$CONNECTIONS, delay ${DELAY_MS} ms per request and connection"
+  line=$(run_wrk "$SOAK" "$WORK/soak.lua")
+  rss=$(rss_mib); hwm=$(hwm_mib)
+  echo "| soak s | requests | req/s | p50 ms | p99 ms | failed responses | socket errors | RSS MiB | peak RSS MiB |"
+  echo "|---|---|---|---|---|---|---|---|---|"
+  echo "| $SOAK | $(field requests "$line") | $(field rps "$line") | $(field p50_ms "$line") | $(field p99_ms "$line") | $(field status_errors "$line") | $(field socket_errors "$line") | $rss | $hwm |"
+  if [ "$(field status_errors "$line")" != 0 ] || [ "$(field socket_errors "$line")" != 0 ]; then
+    echo "soak FAILED: errors" >&2; FAILED=1
+  fi
+  if [ "$(field requests "$line")" = 0 ]; then echo "soak FAILED: no requests" >&2; FAILED=1; fi
+  if [ "$hwm" -gt "$MAX_RSS_MIB" ]; then echo "soak FAILED: peak RSS $hwm MiB > $MAX_RSS_MIB MiB" >&2; FAILED=1; fi
+  curl -fsS "$BASE/v1/health" > /dev/null || { echo "soak FAILED: server not healthy afterwards" >&2; FAILED=1; }
+  exit $FAILED
+fi
+
+i=0
+for spec in "${ENDPOINTS[@]}"; do
+  i=$((i + 1)); make_script "$WORK/e$i.lua" "$spec"
+  run_wrk "$WARMUP" "$WORK/e$i.lua" > /dev/null   # JIT warm-up, not reported
+done
+{
+  echo "| run | endpoint | req/s | p50 ms | p99 ms | failed responses | socket errors | server CPU µs/request | RSS MiB after |"
+  echo "|---|---|---|---|---|---|---|---|---|"
+} | tee "$WORK/table.md"
+for run in $(seq 1 "$RUNS"); do
+  i=0
+  for spec in "${ENDPOINTS[@]}"; do
+    i=$((i + 1))
+    before=$(cpu_ticks)
+    line=$(run_wrk "$DURATION" "$WORK/e$i.lua")
+    after=$(cpu_ticks)
+    cpu=$(awk -v t=$((after - before)) -v n="$(field requests "$line")" -v hz="$CLK_TCK" \
+      'BEGIN { if (n > 0) printf "%.0f", t / hz * 1e6 / n; else print "-" }')
+    label=${spec%%=*}
+    echo "| $run | ${label/:/ } | $(field rps "$line") | $(field p50_ms "$line") | $(field p99_ms "$line") | $(field status_errors "$line") | $(field socket_errors "$line") | $cpu | $(rss_mib) |" | tee -a "$WORK/table.md"
+    [ "$(field status_errors "$line")" = 0 ] && [ "$(field socket_errors "$line")" = 0 ] || FAILED=1
+  done
+done
+echo "# peak RSS $(hwm_mib) MiB (limit $MAX_RSS_MIB MiB)"
+[ "$(hwm_mib)" -le "$MAX_RSS_MIB" ] || { echo "peak RSS above $MAX_RSS_MIB MiB" >&2; FAILED=1; }
+if [ -n "$OUT" ]; then cp "$WORK/table.md" "$OUT"; fi
+exit $FAILED

@@ -1,0 +1,83 @@
+package org.tectomelt.http;
+
+import io.javalin.http.Context;
+import io.javalin.http.HandlerType;
+import java.nio.charset.StandardCharsets;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Optional bearer-token access control for a shared server ({@code TECTOMELT_TOKEN} or
+ * {@code TECTOMELT_TOKEN_FILE}). When a token is configured, every {@code /v1} route except
+ * {@code /v1/health}, and {@code /metrics}, require {@code Authorization: Bearer <token>}; the page,
+ * its static files and {@code /openapi.yaml} stay open so people can read what the service does.
+ * CORS preflight requests ({@code OPTIONS}) carry no credentials by design and pass.
+ *
+ * <p>The comparison is constant-time: both sides are hashed with SHA-256 and compared with
+ * {@link MessageDigest#isEqual}, so neither the content nor the length of the token leaks through
+ * response timing.
+ */
+final class AccessControl {
+
+    private final byte[] expectedHash;
+
+    /** @param token the configured token; empty for an open server */
+    AccessControl(String token) {
+        this.expectedHash = token.isEmpty() ? null : sha256(token);
+    }
+
+    /** True when a token is required. */
+    boolean enabled() {
+        return expectedHash != null;
+    }
+
+    /** Whether {@code path} needs the token (when one is configured). */
+    static boolean protects(String path) {
+        return (path.startsWith("/v1/") && !path.equals("/v1/health")) || path.equals("/metrics");
+    }
+
+    /**
+     * Lets the request through or throws 401.
+     *
+     * @throws ApiProblem 401 {@code unauthorized} with a {@code WWW-Authenticate} challenge
+     */
+    void check(Context ctx) {
+        if (expectedHash == null || ctx.method() == HandlerType.OPTIONS || !protects(ctx.path())) {
+            return;
+        }
+        String header = ctx.header("Authorization");
+        if (header == null || header.isBlank()) {
+            throw unauthorized("Bearer realm=\"tectomelt\"",
+                    "This server requires an access token: send Authorization: Bearer <token>");
+        }
+        String given = bearer(header);
+        if (given == null || !MessageDigest.isEqual(sha256(given), expectedHash)) {
+            throw unauthorized("Bearer realm=\"tectomelt\", error=\"invalid_token\"",
+                    "The access token is not valid for this server");
+        }
+    }
+
+    /** The token of a {@code Bearer} credential, or null when the scheme is another one. */
+    private static String bearer(String header) {
+        String h = header.trim();
+        if (h.length() < 7 || !h.regionMatches(true, 0, "Bearer ", 0, 7)) {
+            return null;
+        }
+        return h.substring(7).trim();
+    }
+
+    private static ApiProblem unauthorized(String challenge, String detail) {
+        return new ApiProblem(401, "unauthorized", "Access token required", detail, List.of(),
+                Map.of("WWW-Authenticate", challenge));
+    }
+
+    private static byte[] sha256(String s) {
+        try {
+            return MessageDigest.getInstance("SHA-256").digest(s.getBytes(StandardCharsets.UTF_8));
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is required of every Java platform", e);
+        }
+    }
+}

@@ -1,0 +1,103 @@
+package org.tectomelt.http;
+
+import io.javalin.http.Context;
+import java.time.Duration;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.Semaphore;
+import java.util.concurrent.TimeUnit;
+import org.tectomelt.Config;
+import org.tectomelt.engine.Deadline;
+
+/**
+ * What a heavy route gets from the app: one of {@code TECTOMELT_HEAVY_CONCURRENCY} slots and a
+ * wall-clock budget of {@code TECTOMELT_HEAVY_BUDGET_MS}.
+ *
+ * <p>A heavy request waits at most {@code TECTOMELT_HEAVY_QUEUE_MS} for a slot; if none frees up it
+ * is refused with 503 {@code /problems/busy} and a {@code Retry-After} header, so a burst of sweeps
+ * can neither exhaust memory nor tie up the threads that serve the cheap routes. The handler reads
+ * its budget with {@link #deadline(Context)} and passes it to the engine, whose long loops poll it.
+ */
+public final class Heavy {
+
+    /** Seconds a refused client is told to wait before retrying. */
+    static final int RETRY_AFTER_SECONDS = 2;
+
+    private static final String DEADLINE_ATTR = "tectomelt.deadline";
+
+    private final Semaphore slots;
+    private final int concurrency;
+    private final long queueMillis;
+    private final Duration budget;
+
+    Heavy(Config config) {
+        this(config.heavyConcurrency(), config.heavyQueueMillis(), Duration.ofMillis(config.heavyBudgetMillis()));
+    }
+
+    Heavy(int concurrency, long queueMillis, Duration budget) {
+        this.slots = new Semaphore(concurrency, true);
+        this.concurrency = concurrency;
+        this.queueMillis = queueMillis;
+        this.budget = budget;
+    }
+
+    /**
+     * The wall-clock budget of this request, to hand to the engine. {@link Deadline#none()} on
+     * routes that are not heavy.
+     */
+    public static Deadline deadline(Context ctx) {
+        Deadline d = ctx.attribute(DEADLINE_ATTR);
+        return d == null ? Deadline.none() : d;
+    }
+
+    /** Heavy requests being computed now. */
+    int inFlight() {
+        return concurrency - slots.availablePermits();
+    }
+
+    /** The configured number of slots. */
+    int concurrency() {
+        return concurrency;
+    }
+
+    /**
+     * Runs {@code work} in a slot with a fresh deadline attached to {@code ctx}.
+     *
+     * @throws ApiProblem 503 {@code busy} when no slot frees up in time
+     */
+    void run(Context ctx, io.javalin.http.Handler work) throws Exception {
+        boolean acquired;
+        try {
+            acquired = queueMillis == 0 ? slots.tryAcquire() : slots.tryAcquire(queueMillis, TimeUnit.MILLISECONDS);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            acquired = false;
+        }
+        if (!acquired) {
+            throw busy();
+        }
+        try {
+            ctx.attribute(DEADLINE_ATTR, Deadline.after(budget));
+            work.handle(ctx);
+        } finally {
+            slots.release();
+        }
+    }
+
+    /** Takes every slot (tests use it to saturate the limiter); returns how many were taken. */
+    int drain() {
+        return slots.drainPermits();
+    }
+
+    /** Gives back {@code n} slots taken by {@link #drain()}. */
+    void refill(int n) {
+        slots.release(n);
+    }
+
+    private ApiProblem busy() {
+        return new ApiProblem(503, "busy", "Server busy",
+                "All " + concurrency + " slots for long computations are in use (TECTOMELT_HEAVY_CONCURRENCY); "
+                        + "retry after " + RETRY_AFTER_SECONDS + " s",
+                List.of(), Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS)));
+    }
+}
