@@ -37,6 +37,10 @@ echo "== GET /openapi.yaml"
 curl -sS --fail-with-body "${AUTH[@]}" -o /dev/null -w 'specification: HTTP %{http_code}, %{size_download} bytes\n' \
      "$URL/openapi.yaml"
 
+echo "== GET /metrics"
+curl -sS --fail-with-body "${AUTH[@]}" -o /dev/null -w 'metrics: HTTP %{http_code}, %{size_download} bytes of Prometheus text\n' \
+     "$URL/metrics"
+
 # Pressure at three depths under the made-up Harrow Plateau (42 km of crust).
 post /v1/pressure '{"depthsKm": [20, 42, 100], "crustThicknessKm": 42}'
 
