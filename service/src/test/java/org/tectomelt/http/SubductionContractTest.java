@@ -10,21 +10,14 @@ import static org.hamcrest.Matchers.hasSize;
 import static org.hamcrest.Matchers.not;
 import static org.hamcrest.Matchers.nullValue;
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertNull;
-import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.tectomelt.http.Problem.assertInvalidField;
 import static org.tectomelt.http.Problem.assertProblem;
 
 import io.restassured.http.ContentType;
 import io.restassured.path.json.JsonPath;
-import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.Config;
-import org.tectomelt.engine.ModelInfo;
-import org.tectomelt.engine.melting.Katz2003Peridotite;
-import org.tectomelt.engine.melting.Lithology;
-import org.tectomelt.engine.melting.MeltState;
 
 /** {@code POST /v1/settings/subduction}. */
 class SubductionContractTest {
@@ -176,60 +169,11 @@ class SubductionContractTest {
 
     @Test
     void aDryOnlyLithologyIsRefusedWithTheHydrousOnesListed() {
-        Lithology dry = new Lithology() {
-            @Override
-            public ModelInfo info() {
-                return new ModelInfo("dry-rock", "test stand-in", "");
-            }
-
-            @Override
-            public String name() {
-                return "dry rock";
-            }
-
-            @Override
-            public Kind kind() {
-                return Kind.MANTLE;
-            }
-
-            @Override
-            public boolean hydrous() {
-                return false;
-            }
-
-            @Override
-            public double minPressure() {
-                return 0;
-            }
-
-            @Override
-            public double maxPressure() {
-                return 5e9;
-            }
-
-            @Override
-            public double maxBulkWater() {
-                return 0;
-            }
-
-            @Override
-            public double drySolidus(double p) {
-                return 1400;
-            }
-
-            @Override
-            public MeltState melt(double p, double t, double bulkWater) {
-                return new MeltState(0, 1400, 1400, 2000, 0, false, false, List.of());
-            }
-        };
-        Katz2003Peridotite katz = Katz2003Peridotite.fertile();
-        Validation v = new Validation();
-        assertNull(SubductionRoutes.hydrousLithology(v, "dry-rock", List.of(katz, dry)));
-        ApiProblem p = org.junit.jupiter.api.Assertions.assertThrows(ApiProblem.class, v::throwIfInvalid);
-        assertEquals("lithology", p.errors().get(0).field());
-        assertTrue(p.errors().get(0).message().contains("ignores water"));
-        assertTrue(p.errors().get(0).message().contains("[peridotite-katz2003]"));
-        assertSame(katz, SubductionRoutes.hydrousLithology(new Validation(), null, List.of(katz, dry)));
+        // McKenzie & Bickle (1988) is dry-only in the catalogue: flux melting must refuse it by name
+        assertInvalidField(TestServer.json("{\"pressureGPa\": 3, \"wedgeTemperatureC\": 1300, \"bulkWaterWtPct\": 0.5,"
+                + " \"lithology\": \"peridotite-mckenzie-bickle1988\"}").post(PATH), "lithology")
+                .body("errors[0].message", containsString("ignores water"))
+                .body("errors[0].message", containsString("peridotite-katz2003"));
     }
 
     @Test

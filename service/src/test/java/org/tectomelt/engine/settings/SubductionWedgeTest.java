@@ -9,10 +9,8 @@ import java.util.List;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.EngineException;
-import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
-import org.tectomelt.engine.melting.Lithology;
-import org.tectomelt.engine.melting.MeltState;
+import org.tectomelt.engine.melting.McKenzieBickle1988Peridotite;
 
 /** Identities, limits and numerics of the wedge calculation (engine unit tests). */
 class SubductionWedgeTest {
@@ -27,58 +25,10 @@ class SubductionWedgeTest {
     }
     private final Katz2003Peridotite katz = Katz2003Peridotite.fertile();
 
-    /** A rock that ignores water, standing in for the dry-only lithologies of the catalogue. */
-    private static final Lithology DRY_ROCK = new Lithology() {
-        @Override
-        public ModelInfo info() {
-            return new ModelInfo("dry-test-rock", "test stand-in", "");
-        }
-
-        @Override
-        public String name() {
-            return "dry test rock";
-        }
-
-        @Override
-        public Kind kind() {
-            return Kind.MANTLE;
-        }
-
-        @Override
-        public boolean hydrous() {
-            return false;
-        }
-
-        @Override
-        public double minPressure() {
-            return 0;
-        }
-
-        @Override
-        public double maxPressure() {
-            return 5e9;
-        }
-
-        @Override
-        public double maxBulkWater() {
-            return 0;
-        }
-
-        @Override
-        public double drySolidus(double p) {
-            return 1400;
-        }
-
-        @Override
-        public MeltState melt(double p, double t, double bulkWater) {
-            return new MeltState(0, 1400, 1400, 2000, 0, false, false, List.of());
-        }
-    };
-
     @Test
     void aLithologyThatIgnoresWaterIsRefused() {
-        EngineException e = assertThrows(EngineException.class, () -> new SubductionWedge(DRY_ROCK));
-        assertTrue(e.getMessage().contains("dry-test-rock"));
+        EngineException e = assertThrows(EngineException.class, () -> new SubductionWedge(new McKenzieBickle1988Peridotite()));
+        assertTrue(e.getMessage().contains("peridotite-mckenzie-bickle1988"), e.getMessage());
     }
 
     @Test
