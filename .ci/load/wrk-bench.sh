@@ -135,7 +135,7 @@ env HOST=127.0.0.1 PORT=0 "${SERVER_ENV[@]}" \
 SERVER_PID=$!
 PORT=""
 for _ in $(seq 1 150); do
-  PORT=$(sed -n 's#.*listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$WORK/server.log" | head -1)
+  PORT=$(sed -n 's#.*listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$WORK/server.log" | sed -n 1p)
   [ -n "$PORT" ] && break
   kill -0 "$SERVER_PID" 2>/dev/null || { cat "$WORK/server.log" >&2; exit 1; }
   sleep 0.2
@@ -144,8 +144,8 @@ done
 BASE="http://127.0.0.1:$PORT"
 
 echo "# machine: $(nproc) cores, $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2 | sed 's/^ *//'), load average $(cut -d' ' -f1-3 /proc/loadavg)"
-echo "# server: java -Xmx$HEAP -XX:+UseSerialGC ($(java -version 2>&1 | head -1)), ${SERVER_ENV[*]}, pid $SERVER_PID, $BASE"
-echo "# wrk $(wrk -v 2>&1 | head -1 | cut -d' ' -f2) -t$THREADS -c$CONNECTIONS, RSS after start: $(rss_mib) MiB"
+echo "# server: java -Xmx$HEAP -XX:+UseSerialGC ($(java -version 2>&1 | sed -n 1p)), ${SERVER_ENV[*]}, pid $SERVER_PID, $BASE"
+echo "# wrk $(wrk -v 2>&1 | sed -n 1p | cut -d' ' -f2) -t$THREADS -c$CONNECTIONS, RSS after start: $(rss_mib) MiB"
 
 run_wrk() {   # $1 = seconds, $2 = lua script; prints the RESULT line
   wrk -t"$THREADS" -c"$CONNECTIONS" -d"${1}s" --timeout 10s -s "$2" "$BASE" > "$WORK/wrk.out" 2>&1 || true

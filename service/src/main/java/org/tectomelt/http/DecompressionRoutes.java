@@ -51,7 +51,7 @@ final class DecompressionRoutes {
 
     static List<Route> routes() {
         return List.of(
-                Route.post("/v1/decompression-melting", DecompressionRoutes::column),
+                Route.heavyPost("/v1/decompression-melting", DecompressionRoutes::column),
                 Route.post("/v1/settings/mid-ocean-ridge", DecompressionRoutes::ridge),
                 Route.post("/v1/settings/hotspot", DecompressionRoutes::hotspot),
                 Route.post("/v1/settings/continental-rift", DecompressionRoutes::rift));
