@@ -9,12 +9,21 @@ import static org.hamcrest.Matchers.hasItem;
 import static org.hamcrest.Matchers.hasSize;
 import static org.hamcrest.Matchers.lessThan;
 import static org.hamcrest.Matchers.notNullValue;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.tectomelt.http.Problem.assertInvalidField;
 import static org.tectomelt.http.Problem.assertProblem;
 
 import io.restassured.http.ContentType;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.Config;
+import org.tectomelt.engine.crust.ConductivityLaw;
+import org.tectomelt.engine.crust.InitialState;
+import org.tectomelt.engine.crust.MeltingIntervals;
+import org.tectomelt.engine.crust.Rock;
+import org.tectomelt.engine.crust.SillModel;
+import org.tectomelt.engine.units.Units;
 
 /** {@code POST /v1/crustal-heating/sill}. */
 class CrustalHeatingSillContractTest {
@@ -62,9 +71,10 @@ class CrustalHeatingSillContractTest {
 
     @Test
     void theIssuesExampleWithRepeatedSillsStacksThemAndMeltsTheCrust() {
-        // the field layout of the issue's example, with explicit thermal properties
+        // the field layout of the issue's example, with explicit thermal properties (10 m cells instead
+        // of 5 m to keep the suite quick)
         TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 28, \"repeat\": {\"count\": 10, "
-                        + "\"intervalKyr\": 20}", ", \"columnDepthKm\": 40, \"durationKyr\": 500, \"gridSpacingM\": 5, "
+                        + "\"intervalKyr\": 20}", ", \"columnDepthKm\": 40, \"durationKyr\": 500, \"gridSpacingM\": 10, "
                         + "\"outputEveryKyr\": 5"))
                 .post(PATH).then()
                 .statusCode(200)
@@ -75,7 +85,7 @@ class CrustalHeatingSillContractTest {
                 .body("summary.peakCrustMeltThicknessM", greaterThan(1.0))
                 .body("summary.peakTimeKyr", greaterThan(0.0))
                 .body("summary.energyErrorFraction", lessThan(1e-3))
-                .body("numerics.cells", equalTo(8500))
+                .body("numerics.cells", equalTo(4250))
                 .body("models.id", hasItem("sill-stacking-annen-sparks2002"));
     }
 
@@ -214,6 +224,23 @@ class CrustalHeatingSillContractTest {
                 + "\"topDepthKm\": 10}, \"durationKyr\": 10}").post(PATH), "crust.meltCurve");
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"lithology\": \"komatiite\"",
                 ", \"durationKyr\": 10")).post(PATH), "intrusion.lithology");
+    }
+
+    @Test
+    void theIssuesPerformanceCaseFitsTheDefaultCaps() {
+        // 2 Myr, 20 stacked 500 m sills, a 60 km column at 10 m cells, output every 10 kyr (run in
+        // SillModelBenchmark: about 2.7e7 cell-steps); here only what is checked before running
+        double kyr = Units.SECONDS_PER_KYR;
+        double c0 = Units.ZERO_CELSIUS_K;
+        Rock rock = new Rock(2900, 1100, 3e5, ConductivityLaw.constant(2.3), MeltingIntervals.linear(c0 + 850, c0 + 1050));
+        SillModel.Setup s = new SillModel.Setup(rock, rock, new InitialState.Uniform(c0 + 500),
+                new SillModel.Intrusions(500, 30e3, c0 + 1230, 20, 100 * kyr, SillModel.Stacking.UNDER), 60e3, 10,
+                2000 * kyr, 10 * kyr, List.of(), 10, SillModel.Numerics.DEFAULT);
+        assertEquals(7000, s.finalCells());
+        assertTrue(s.finalCells() <= CrustalHeatingRoutes.MAX_CELLS);
+        assertTrue(s.minimumCellSteps() < Config.DEFAULT_MAX_SILL_CELL_STEPS / 3.0, "bound " + s.minimumCellSteps());
+        assertTrue(2000 / 10 + 1 <= Config.DEFAULT_MAX_PROFILE_POINTS);
+        assertTrue(2.0 <= Config.DEFAULT_MAX_SILL_DURATION_MYR);
     }
 
     @Test
