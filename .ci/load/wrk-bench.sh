@@ -17,6 +17,9 @@
 #   bash .ci/load/wrk-bench.sh --runs 5 --duration 20 GET:/v1/health POST:/v1/pressure=@.ci/load/bodies/pressure.json
 #   bash .ci/load/wrk-bench.sh --soak 30                          # what .ci/run does
 #   bash .ci/load/wrk-bench.sh --soak 3600 --connections 16       # the long soak for the lab machine
+#   bash .ci/load/wrk-bench.sh --runs 6 --jvm-opts "-Xms256m -XX:+AlwaysPreTouch"  # RSS with the heap touched
+# Other options: --threads N, --warmup SECS, --heap SIZE, --delay-ms MS, --max-rss-mib N,
+# --env VAR=VALUE (for the server), --out FILE (the table as Markdown), --jar PATH.
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 
@@ -27,6 +30,7 @@ CONNECTIONS=32
 RUNS=3
 WARMUP=5
 HEAP=256m
+JVM_OPTS=""
 SOAK=0
 DELAY_MS=0
 MAX_RSS_MIB=512
@@ -34,7 +38,7 @@ OUT=""
 SERVER_ENV=("TECTOMELT_CACHE_MB=0")   # measure computation, not the result cache
 ENDPOINTS=()
 
-usage() { sed -n '2,22p' "$0" | sed 's/^# \{0,1\}//'; exit "${1:-0}"; }
+usage() { awk 'NR > 1 && /^#/ { sub(/^# ?/, ""); print; next } NR > 1 { exit }' "$0"; exit "${1:-0}"; }
 
 while [ $# -gt 0 ]; do
   case "$1" in
@@ -45,6 +49,7 @@ while [ $# -gt 0 ]; do
     --runs) RUNS="$2"; shift 2 ;;
     --warmup) WARMUP="$2"; shift 2 ;;
     --heap) HEAP="$2"; shift 2 ;;
+    --jvm-opts) JVM_OPTS="$2"; shift 2 ;;
     --soak) SOAK="$2"; shift 2 ;;
     --delay-ms) DELAY_MS="$2"; shift 2 ;;
     --max-rss-mib) MAX_RSS_MIB="$2"; shift 2 ;;
@@ -131,7 +136,7 @@ CLK_TCK=$(getconf CLK_TCK)
 hwm_mib() { awk '/^VmHWM:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
 
 env HOST=127.0.0.1 PORT=0 "${SERVER_ENV[@]}" \
-  java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError -jar "$JAR" > "$WORK/server.log" 2>&1 &
+  java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -jar "$JAR" > "$WORK/server.log" 2>&1 &
 SERVER_PID=$!
 PORT=""
 for _ in $(seq 1 150); do
@@ -144,7 +149,7 @@ done
 BASE="http://127.0.0.1:$PORT"
 
 echo "# machine: $(nproc) cores, $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2 | sed 's/^ *//'), load average $(cut -d' ' -f1-3 /proc/loadavg)"
-echo "# server: java -Xmx$HEAP -XX:+UseSerialGC ($(java -version 2>&1 | sed -n 1p)), ${SERVER_ENV[*]}, pid $SERVER_PID, $BASE"
+echo "# server: java -Xmx$HEAP -XX:+UseSerialGC $JVM_OPTS ($(java -version 2>&1 | sed -n 1p)), ${SERVER_ENV[*]}, pid $SERVER_PID, $BASE"
 echo "# wrk $(wrk -v 2>&1 | sed -n 1p | cut -d' ' -f2) -t$THREADS -c$CONNECTIONS, RSS after start: $(rss_mib) MiB"
 
 run_wrk() {   # $1 = seconds, $2 = lua script; prints the RESULT line
