@@ -76,3 +76,24 @@ post /v1/settings/continental-rift '{"potentialTemperatureC": 1360, "stretchingF
 # Flux melting in the wedge of the made-up Tessaly arc: 100 km, 1300 °C, 0.4 wt% water from the slab.
 post /v1/settings/subduction '{"depthKm": 100, "wedgeTemperatureC": 1300, "bulkWaterWtPct": 0.4,
                                "slabWaterFluxKgPerMPerYr": 5000, "maxWaterWtPct": 0.5}'
+
+# Heating budget under the made-up Harrow Plateau: how much basalt brings pelitic crust from
+# 450 to 850 °C? (No-loss energy balance, a lower bound on the basalt.)
+post /v1/crustal-heating/budget '{"crust": {"initialTemperatureC": 450, "densityKgPerM3": 2750, "heatCapacityJPerKgK": 1050,
+                                            "latentHeatJPerKg": 280000,
+                                            "meltCurve": [{"temperatureC": 750, "meltFraction": 0}, {"temperatureC": 850, "meltFraction": 0.25},
+                                                          {"temperatureC": 1000, "meltFraction": 0.6}]},
+                                  "intrusion": {"temperatureC": 1230, "densityKgPerM3": 2900, "heatCapacityJPerKgK": 1100,
+                                                "latentHeatJPerKg": 400000, "meltingInterval": {"solidusC": 1000, "liquidusC": 1200},
+                                                "thicknessM": 500},
+                                  "finalTemperatureC": 850}'
+
+# One 250 m basalt sill at 28 km in that crust, followed for 100 kyr (series every 25 kyr).
+post /v1/crustal-heating/sill '{"crust": {"initialTemperatureC": 450, "conductivityWPerMK": 2.5, "densityKgPerM3": 2750,
+                                          "heatCapacityJPerKgK": 1050, "latentHeatJPerKg": 280000,
+                                          "meltCurve": [{"temperatureC": 750, "meltFraction": 0}, {"temperatureC": 850, "meltFraction": 0.25},
+                                                        {"temperatureC": 1000, "meltFraction": 0.6}]},
+                                "intrusion": {"temperatureC": 1230, "thicknessM": 250, "topDepthKm": 28, "conductivityWPerMK": 2.5,
+                                              "densityKgPerM3": 2900, "heatCapacityJPerKgK": 1100, "latentHeatJPerKg": 400000,
+                                              "meltingInterval": {"solidusC": 1000, "liquidusC": 1200}},
+                                "durationKyr": 100, "outputEveryKyr": 25}'

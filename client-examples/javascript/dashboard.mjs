@@ -84,6 +84,25 @@ const PANELS = [
       ["magma production", `${(1e6 * r.magmaProductionKm3PerYrPerKm).toFixed(1)} km³/Myr per km of arc`],
     ],
   },
+  {
+    title: "Invented Harrow Plateau: basalt needed to bring pelite from 450 to 850 °C",
+    request: () => call("POST", "/v1/crustal-heating/budget", {
+      crust: {
+        initialTemperatureC: 450, densityKgPerM3: 2750, heatCapacityJPerKgK: 1050, latentHeatJPerKg: 280000,
+        meltCurve: [{ temperatureC: 750, meltFraction: 0 }, { temperatureC: 850, meltFraction: 0.25 },
+          { temperatureC: 1000, meltFraction: 0.6 }],
+      },
+      intrusion: {
+        temperatureC: 1230, densityKgPerM3: 2900, heatCapacityJPerKgK: 1100, latentHeatJPerKg: 400000,
+        meltingInterval: { solidusC: 1000, liquidusC: 1200 },
+      },
+      finalTemperatureC: 850,
+    }),
+    rows: (r) => [
+      ["crustal melt fraction reached", `${(100 * r.crustMeltFraction).toFixed(0)} %`],
+      ["basalt per metre of crust (lower bound)", `${r.basaltToCrustThicknessRatio.toFixed(3)} m`],
+    ],
+  },
 ];
 
 function box(title, rows) {

@@ -311,6 +311,53 @@ class PageBrowserTest {
         browser.screenshot("ridge");
     }
 
+    @Test
+    void heatingBudgetMatchesTheEnergyBalanceWorkedByHand() {
+        browser.open(page("budget"));
+        // the form's defaults: pelitic crust 450 -> 850 °C (its curve gives F = 0.25 at 850 °C),
+        // basalt at 1230 °C crystallising wholly over its 1000-1200 °C interval
+        assertEquals("done", browser.submit());
+        // REFERENCES §3.3: qb = ρb [cb (Tb0 - Tf) + Xb Lb], qc = ρc [cc (Tf - Tc0) + F Lc], hb/hc = qc/qb
+        double qb = 2900 * (1100 * (1230 - 850) + 1.0 * 400_000);
+        double qc = 2750 * (1050 * (850 - 450) + 0.25 * 280_000);
+        assertEquals(25.0, summary("crustMeltFraction"), 0.05);
+        assertEquals(qb, summary("heatReleasedJPerM3"), qb * 1e-3, "shown to 4 significant digits");
+        assertEquals(qc, summary("heatRequiredJPerM3"), qc * 1e-3);
+        assertEquals(qc / qb, summary("basaltToCrustThicknessRatio"), 0.0006);
+        // 500 m of intrusion brings hb / (hb/hc) of crust to the target
+        assertEquals(500 / (qc / qb), summary("crustThicknessBroughtToTargetM"), 0.6);
+        assertTrue(text("#note").contains("lower bound") || text("#note").contains("no-loss") || text("#note").contains("loss"),
+                "the no-loss caveat is shown: " + text("#note"));
+        browser.screenshot("budget");
+    }
+
+    @Test
+    void sillModelDrawsCrustalMeltAgainstTimeFromItsSeries() throws Exception {
+        browser.open(page("sill"));
+        browser.fill("durationKyr", "300");
+        browser.fill("outputEveryKyr", "5");
+        browser.fill("profileTimesKyr", "0, 50, 150, 300");
+        assertEquals("done", browser.submit());
+        browser.driver.findElement(By.id("download-json")).click();
+        JsonNode json = JSON.readTree(browser.downloaded("tectomelt-sill.json").toFile());
+        JsonNode series = json.get("series");
+        double peak = 0;
+        for (JsonNode p : series) {
+            peak = Math.max(peak, p.get("crustMeltThicknessM").asDouble());
+        }
+        assertTrue(peak > 0, "ten 250 m basalt sills at 1230 °C melt pelitic crust at 450 °C");
+        assertEquals(json.at("/summary/peakCrustMeltThicknessM").asDouble(), summary("summary.peakCrustMeltThicknessM"), 0.051);
+
+        WebElement meltPlot = browser.driver.findElement(By.cssSelector("#plots figure[data-plot='Crustal melt against time'] svg"));
+        WebElement melt = meltPlot.findElement(By.cssSelector("path.curve.role-melt"));
+        assertEquals(String.valueOf(series.size()), melt.getAttribute("data-points"), "one vertex per time of the series");
+        assertTrue(meltPlot.getText().contains("Time (kyr)") && meltPlot.getText().contains("Thickness (m)"), meltPlot.getText());
+        WebElement profiles = browser.driver.findElement(By.cssSelector("#plots figure[data-plot='Temperature profiles'] svg"));
+        assertEquals(4, profiles.findElements(By.cssSelector("path.curve")).size(), "a profile per requested time");
+        assertTrue(profiles.getText().contains("150 kyr"), profiles.getText());
+        browser.screenshot("sill");
+    }
+
     /** Runs {@code body} (which may await) in the page with the page's modules as {@code plot} and {@code app}. */
     @SuppressWarnings("unchecked")
     private static Map<String, Object> inPage(String body) {
