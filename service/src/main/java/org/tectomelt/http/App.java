@@ -141,7 +141,7 @@ public final class App {
         all.addAll(GeothermRoutes.routes());
 
         // melting: lithologies, melt fraction, solidus crossings
-        all.addAll(MeltingRoutes.routes());
+        all.addAll(MeltingRoutes.routes(config));
 
         // settings: decompression column, ridge, hotspot, rift
         all.addAll(DecompressionRoutes.routes());

@@ -4,6 +4,7 @@ import io.javalin.http.Context;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.tectomelt.Config;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.melting.CrustalLithology;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
@@ -25,10 +26,6 @@ import org.tectomelt.engine.units.Units;
  */
 final class MeltingRoutes {
 
-    /** Most points in one melt-fraction batch. */
-    static final int MAX_POINTS = 10_000;
-    /** Most samples in one path (points, or an adiabat's depth/step). */
-    static final int MAX_PATH_SAMPLES = 10_000;
     /** Most points in a caller's melt curve. */
     static final int MAX_CURVE_POINTS = 1000;
     /** Temperature range accepted anywhere (°C). */
@@ -41,11 +38,17 @@ final class MeltingRoutes {
     private MeltingRoutes() {
     }
 
-    static List<Route> routes() {
+    /**
+     * Cheap routes: a batch holds at most {@code TECTOMELT_MAX_BATCH_POINTS} points (default 10,000,
+     * about 1 µs each), a path at most {@code TECTOMELT_MAX_PROFILE_POINTS} samples (default 5,000).
+     */
+    static List<Route> routes(Config config) {
+        int batch = config.maxBatchPoints();
+        int profile = config.maxProfilePoints();
         return List.of(
                 Route.get("/v1/lithologies", MeltingRoutes::lithologies),
-                Route.post("/v1/melt-fraction", MeltingRoutes::meltFraction),
-                Route.post("/v1/solidus-crossings", MeltingRoutes::solidusCrossings));
+                Route.post("/v1/melt-fraction", ctx -> meltFraction(ctx, batch)),
+                Route.post("/v1/solidus-crossings", ctx -> solidusCrossings(ctx, profile)));
     }
 
     // ---- records -------------------------------------------------------------------------
@@ -140,7 +143,7 @@ final class MeltingRoutes {
         Responses.json(ctx, out);
     }
 
-    static void meltFraction(Context ctx) {
+    static void meltFraction(Context ctx, int maxPoints) {
         MeltFractionRequest req = Json.read(ctx.bodyAsBytes(), MeltFractionRequest.class);
         Validation v = new Validation();
         Lithology lithology = lithology(v, req.lithology(), req.meltCurve());
@@ -162,7 +165,7 @@ final class MeltingRoutes {
                     r.warnings(), lithology.citations()));
             return;
         }
-        List<PressureTemperature> points = v.list("points", req.points(), 1, MAX_POINTS);
+        List<PressureTemperature> points = v.list("points", req.points(), 1, maxPoints, "TECTOMELT_MAX_BATCH_POINTS");
         double[] ps = new double[points.size()];
         double[] ts = new double[points.size()];
         for (int i = 0; i < points.size() && lithology != null; i++) {
@@ -183,7 +186,7 @@ final class MeltingRoutes {
         Responses.json(ctx, new MeltFractionBatchResponse(lithology.id(), results, lithology.citations()));
     }
 
-    static void solidusCrossings(Context ctx) {
+    static void solidusCrossings(Context ctx, int maxSamples) {
         SolidusCrossingsRequest req = Json.read(ctx.bodyAsBytes(), SolidusCrossingsRequest.class);
         Validation v = new Validation();
         Lithology lithology = lithology(v, req.lithology(), req.meltCurve());
@@ -260,10 +263,10 @@ final class MeltingRoutes {
             double depth = va.optional("maxDepthKm", a.maxDepthKm(), Math.min(DEFAULT_ADIABAT_DEPTH_KM, maxDepthKm),
                     1, maxDepthKm);
             double step = va.optional("depthStepKm", a.depthStepKm(), DEFAULT_ADIABAT_STEP_KM, 0.01, 50);
-            if (va.ok() && Math.ceil(depth / step - 1e-9) + 1 > MAX_PATH_SAMPLES) {
-                va.error("depthStepKm", String.format(Locale.ROOT,
-                        "gives %.0f samples over %s km; at most %d: use a larger step", Math.ceil(depth / step) + 1,
-                        Validation.format(depth), MAX_PATH_SAMPLES));
+            if (va.ok()) {
+                va.cap("depthStepKm", Math.ceil(depth / step - 1e-9) + 1, maxSamples,
+                        "the sample count (over " + Validation.format(depth) + " km at this step)",
+                        "TECTOMELT_MAX_PROFILE_POINTS");
             }
             v.throwIfInvalid();
             if (mantle instanceof McKenzieBickle1988Peridotite) {
@@ -272,7 +275,8 @@ final class MeltingRoutes {
             result = SolidusCrossings.alongAdiabat(mantle, water, column, Units.celsiusToKelvin(tp),
                     Units.kmToM(depth), Units.kmToM(step));
         } else {
-            List<PathSample> samples = v.at("path").list("points", path.points(), 2, MAX_PATH_SAMPLES);
+            List<PathSample> samples = v.at("path").list("points", path.points(), 2, maxSamples,
+                    "TECTOMELT_MAX_PROFILE_POINTS");
             List<PathPoint> points = new ArrayList<>(samples.size());
             for (int i = 0; i < samples.size(); i++) {
                 PathSample s = samples.get(i);

@@ -48,6 +48,24 @@ class MeltingContractTest {
     }
 
     @Test
+    void theCatalogueIsTaggedAndRevalidated() {
+        String tag = TestServer.given().get("/v1/lithologies").then().statusCode(200).extract().header("ETag");
+        assertEquals(true, tag != null && !tag.isBlank(), "an ETag on the catalogue");
+        TestServer.given().header("If-None-Match", tag).get("/v1/lithologies").then().statusCode(304);
+    }
+
+    @Test
+    void pathsLongerThanTheServerCapAreRefusedNamingTheCap() {
+        StringBuilder body = new StringBuilder("{\"lithology\": \"basalt\", \"path\": {\"points\": [");
+        for (int i = 0; i <= Config.defaults().maxProfilePoints(); i++) {
+            body.append(i == 0 ? "" : ",").append("{\"depthKm\": 10, \"temperatureC\": 900}");
+        }
+        body.append("]}}");
+        assertInvalidField(TestServer.json(body.toString()).post(CROSSINGS), "path.points")
+                .body("errors[0].message", containsString("TECTOMELT_MAX_PROFILE_POINTS"));
+    }
+
+    @Test
     void aSinglePointGivesTheMeltStateWithTheModelCited() {
         // REFERENCES §2.1 [calc]: Katz et al. (2003), dry, F(1 GPa, 1300 °C) = 0.1293
         TestServer.json("{\"lithology\": \"peridotite-katz2003\", \"pressureGPa\": 1, \"temperatureC\": 1300}")
