@@ -109,7 +109,7 @@ final class BodyArbitraries {
             case "number" -> {
                 double min = s.path("minimum").asDouble(-1e6);
                 double max = s.path("maximum").asDouble(1e6);
-                Arbitrary<JsonNode> inRange = Arbitraries.doubles().between(min, max).ofScale(6).map(DoubleNode::valueOf);
+                Arbitrary<JsonNode> inRange = Arbitraries.doubles().between(min, max).ofScale(10).map(DoubleNode::valueOf);
                 yield s.has("default") ? Arbitraries.frequencyOf(
                         net.jqwik.api.Tuple.of(9, inRange), net.jqwik.api.Tuple.of(1, Arbitraries.just(s.get("default"))))
                         : inRange;
