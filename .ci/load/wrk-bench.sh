@@ -61,7 +61,7 @@ while [ $# -gt 0 ]; do
   esac
 done
 if [ ${#ENDPOINTS[@]} -eq 0 ]; then
-  ENDPOINTS=("GET:/v1/health" "POST:/v1/pressure=@.ci/load/bodies/pressure.json")
+  ENDPOINTS=("GET:/v1/health" "POST:/v1/pressure=@.ci/load/bodies/pressure.json" "POST:/v1/melt-fraction=@.ci/load/bodies/melt-fraction.json" "POST:/v1/settings/mid-ocean-ridge=@.ci/load/bodies/mid-ocean-ridge.json")
 fi
 command -v wrk >/dev/null || { echo "wrk is not installed (Debian package wrk)" >&2; exit 2; }
 [ -f "$JAR" ] || { echo "no $JAR: run mvn -B -q -DskipTests package first" >&2; exit 2; }
