@@ -158,6 +158,19 @@ class SpecFuzzProperties {
 
     // ---------------------------------------------------------------- the invariants
 
+    /** The body-size cap of the app under test (its configuration has no override). */
+    private static final long MAX_BODY_BYTES = TestApps.config(java.util.Map.of()).maxBodyBytes();
+
+    private static void assertServerAlive(Case c) {
+        try {
+            HttpResponse<String> h = client.send(HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + app.port()
+                    + "/v1/health")).timeout(Duration.ofSeconds(30)).GET().build(), HttpResponse.BodyHandlers.ofString());
+            assertEquals(200, h.statusCode(), "health after an oversized body");
+        } catch (Exception e) {
+            throw new AssertionError("the server did not answer after an oversized body: " + e + " for " + c, e);
+        }
+    }
+
     /** Sends {@code c} and checks the invariants; returns the problem body for a 4xx, null for a 200. */
     private static JsonNode check(Case c) {
         HttpResponse<byte[]> r;
@@ -169,6 +182,13 @@ class SpecFuzzProperties {
                             .POST(HttpRequest.BodyPublishers.ofByteArray(c.mutation().body())).build(),
                     HttpResponse.BodyHandlers.ofByteArray());
         } catch (Exception e) {
+            if (c.mutation().body().length > MAX_BODY_BYTES) {
+                // Over the body cap the server answers 413 as soon as it sees Content-Length and
+                // closes the connection without reading the rest, so a client still writing may
+                // see a broken pipe instead of the 413. What matters is that the server lives on.
+                assertServerAlive(c);
+                return null;
+            }
             throw new AssertionError("request failed: " + e + " for " + c, e);
         }
         int status = r.statusCode();
