@@ -138,7 +138,7 @@ public final class App {
         all.addAll(MetaRoutes.routes());
         all.addAll(PressureRoutes.routes(config));
         // thermal: geotherm routes
-        all.addAll(GeothermRoutes.routes());
+        all.addAll(GeothermRoutes.routes(config));
 
         // melting: lithologies, melt fraction, solidus crossings
         all.addAll(MeltingRoutes.routes(config));

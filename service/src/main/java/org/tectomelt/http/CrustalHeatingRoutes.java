@@ -52,7 +52,6 @@ final class CrustalHeatingRoutes {
     static final String LAW_GABBRO = "miao2014-gabbro";
     static final List<String> LAWS = List.of(LAW_CONSTANT, LAW_GRANITE, LAW_GABBRO);
     static final List<String> STACKINGS = List.of("under", "over");
-    static final List<String> HEAT_PRODUCTIONS = List.of("exponential", "two-layer");
     /** The intrusion's lithology when none is named. */
     static final String DEFAULT_INTRUSION = "basalt";
 
@@ -483,7 +482,7 @@ final class CrustalHeatingRoutes {
                     ContinentalGeotherm.REDUCED_FRACTION, 0, 1);
             hrKm = gv.optional("heatProductionScaleKm", geo.heatProductionScaleKm(),
                     Units.mToKm(ContinentalGeotherm.HEAT_PRODUCTION_SCALE), 1, 50);
-            String mode = gv.optionalChoice("heatProduction", geo.heatProduction(), "exponential", HEAT_PRODUCTIONS);
+            String mode = gv.optionalChoice("heatProduction", geo.heatProduction(), "exponential", GeothermRoutes.HEAT_PRODUCTIONS);
             distribution = "two-layer".equals(mode) ? ContinentalGeotherm.HeatProduction.TWO_LAYER
                     : ContinentalGeotherm.HeatProduction.EXPONENTIAL;
             surfaceC = gv.optional("surfaceTemperatureC", geo.surfaceTemperatureC(), 0, -50, 100);

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.OptionalDouble;
 import java.util.Set;
 import java.util.function.DoubleFunction;
+import org.tectomelt.Config;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.thermal.ConductiveGeotherm;
 import org.tectomelt.engine.thermal.ContinentalGeotherm;
@@ -27,8 +28,6 @@ import org.tectomelt.engine.units.Units;
  */
 final class GeothermRoutes {
 
-    /** Most depths in one geotherm. */
-    static final int MAX_POINTS = 5000;
     /** Default depth range (km). */
     static final double MAX_DEPTH_KM = 300;
     /** Default depth step (km). */
@@ -53,8 +52,9 @@ final class GeothermRoutes {
     private GeothermRoutes() {
     }
 
-    static List<Route> routes() {
-        return List.of(Route.post("/v1/geotherm", GeothermRoutes::geotherm));
+    static List<Route> routes(Config config) {
+        int maxPoints = config.maxProfilePoints();
+        return List.of(Route.post("/v1/geotherm", ctx -> geotherm(ctx, maxPoints)));
     }
 
     /** Request body. */
@@ -162,9 +162,9 @@ final class GeothermRoutes {
         }
     }
 
-    static void geotherm(Context ctx) {
+    static void geotherm(Context ctx, int maxPoints) {
         GeothermRequest req = Json.read(ctx.bodyAsBytes(), GeothermRequest.class);
-        BuiltGeotherm b = build(new Validation(), req);
+        BuiltGeotherm b = build(new Validation(), req, maxPoints);
         double[] depths = b.depths();
         double[] temperatures = new double[depths.length];
         List<Point> points = new ArrayList<>(depths.length);
@@ -189,7 +189,7 @@ final class GeothermRoutes {
      * Validates a geotherm request and builds its geotherm; field names are reported under
      * {@code v}'s prefix. Throws the 400 problem when anything is invalid.
      */
-    static BuiltGeotherm build(Validation v, GeothermRequest req) {
+    static BuiltGeotherm build(Validation v, GeothermRequest req, int maxPoints) {
         double tpC = v.optional("potentialTemperatureC", req.potentialTemperatureC(), Double.NaN, 1000, 2000);
         double maxKm = v.optional("maxDepthKm", req.maxDepthKm(), MAX_DEPTH_KM, 1,
                 Units.mToKm(Geotherm.MAX_DEPTH_M));
@@ -199,8 +199,9 @@ final class GeothermRoutes {
                     + Validation.format(stepKm));
         } else if (v.ok()) {
             long n = Geotherm.pointCount(Units.kmToM(maxKm), Units.kmToM(stepKm));
-            v.check(n <= MAX_POINTS, "stepKm", "gives " + n + " depths from 0 to " + Validation.format(maxKm)
-                    + " km; at most " + MAX_POINTS + " are allowed: raise stepKm or lower maxDepthKm");
+            v.check(n <= maxPoints, "stepKm", "gives " + n + " depths from 0 to " + Validation.format(maxKm)
+                    + " km; at most " + maxPoints + " are allowed (server cap TECTOMELT_MAX_PROFILE_POINTS): "
+                    + "raise stepKm or lower maxDepthKm");
         }
         if (req.lithosphere() == null && req.potentialTemperatureC() == null) {
             v.error("lithosphere", "is required unless potentialTemperatureC is given (for the adiabat alone); "

@@ -225,7 +225,7 @@ final class MeltingRoutes {
         SolidusCrossings.Result result;
         if (path.geotherm() != null) {
             Validation vg = v.at("path").at("geotherm");
-            GeothermRoutes.BuiltGeotherm g = GeothermRoutes.build(vg, path.geotherm());
+            GeothermRoutes.BuiltGeotherm g = GeothermRoutes.build(vg, path.geotherm(), maxSamples);
             double[] depths = g.depths();
             double deepest = depths[depths.length - 1];
             if (g.column().pressureAt(deepest) > lithology.hardMaxPressure()) {
