@@ -16,6 +16,8 @@ final class RequestPlumbing {
     static final String REQUEST_ID_HEADER = "X-Request-Id";
     private static final String REQUEST_ID_ATTR = "tectomelt.requestId";
     private static final Pattern SAFE_ID = Pattern.compile("[A-Za-z0-9._:-]{1,64}");
+    /** Refused bodies up to this many times the cap are read and dropped before the 413. */
+    static final long DRAIN_FACTOR = 16;
     private static final Logger ACCESS = LoggerFactory.getLogger("tectomelt.access");
 
     private RequestPlumbing() {
@@ -42,6 +44,7 @@ final class RequestPlumbing {
         }
         long declared = ctx.req().getContentLengthLong();
         if (declared > maxBodyBytes) {
+            discardBody(ctx, declared, maxBodyBytes);
             throw new ApiProblem(413, "body-too-large", "Request body too large",
                     "The body has " + declared + " bytes; the limit is " + maxBodyBytes
                             + " (TECTOMELT_MAX_BODY_BYTES)", List.of(), Map.of());
@@ -51,6 +54,25 @@ final class RequestPlumbing {
             throw new ApiProblem(415, "unsupported-media-type", "Unsupported media type",
                     "Send the body as application/json (got " + (ct == null ? "no Content-Type" : ct) + ")",
                     List.of(), Map.of());
+        }
+    }
+
+    /**
+     * Reads and drops a refused body (without keeping it) when it is at most
+     * {@value #DRAIN_FACTOR} times the cap, so the client, still sending, gets to read the 413
+     * instead of a broken pipe. Larger bodies are not read: the connection is closed on them.
+     */
+    private static void discardBody(Context ctx, long declared, long maxBodyBytes) {
+        if (declared > DRAIN_FACTOR * maxBodyBytes) {
+            return;
+        }
+        byte[] sink = new byte[8192];
+        try (java.io.InputStream in = ctx.req().getInputStream()) {
+            while (in.read(sink) >= 0) {
+                // dropped
+            }
+        } catch (java.io.IOException e) {
+            // the client went away: nothing left to answer
         }
     }
 
