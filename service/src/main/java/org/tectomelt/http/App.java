@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Properties;
 import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.tectomelt.Config;
+import org.tectomelt.contract.Invoker;
 
 /**
  * Factory: configuration in, unstarted Javalin app out (routes, problem mapping, static page, and
@@ -59,6 +60,7 @@ public final class App {
             c.http.maxRequestSize = config.maxBodyBytes();
             c.http.prefer405over404 = true;
             c.appData(Metrics.KEY, metrics);
+            c.appData(Heavy.KEY, heavy);
             c.staticFiles.add(sf -> {
                 sf.hostedPath = "/";
                 sf.directory = "/public";
@@ -110,7 +112,7 @@ public final class App {
                 return;
             }
             if (r.heavy()) {
-                byte[] hit = cache.get(etag);
+                Responses.Written hit = cache.get(etag);
                 if (hit != null) {
                     Responses.bytes(ctx, hit);
                 } else {
@@ -136,7 +138,8 @@ public final class App {
     public static List<Route> routes(Config config) {
         List<Route> all = new ArrayList<>();
         all.addAll(MetaRoutes.routes());
-        all.addAll(PressureRoutes.routes(config));
+        // every computation registered in org.tectomelt.operations, served by the one generic handler
+        all.addAll(OperationHandler.routes(Invoker.of(config)));
         // thermal: geotherm routes
         all.addAll(GeothermRoutes.routes(config));
 
