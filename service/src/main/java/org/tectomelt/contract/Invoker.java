@@ -100,6 +100,21 @@ public final class Invoker {
         return new Prepared<>(op, Json.bind(obj, op.requestType()));
     }
 
+    /**
+     * Parses a request body and prepares it. A body the tree parser refuses (too deep, say) is read
+     * once more straight into the request record, whose first wrong member is then named.
+     */
+    public <Q extends Record, R extends Record> Prepared<Q, R> prepare(Operation<Q, R> op, byte[] body) {
+        JsonNode tree;
+        try {
+            tree = Json.readTree(body);
+        } catch (MalformedBodyException e) {
+            Json.read(body, op.requestType());   // throws the field-naming failure when there is one
+            throw e;
+        }
+        return prepare(op, tree);
+    }
+
     /** {@link #prepare} then run. */
     public <Q extends Record, R extends Record> R run(Operation<Q, R> op, JsonNode body, Deadline deadline) {
         return prepare(op, body).run(deadline);

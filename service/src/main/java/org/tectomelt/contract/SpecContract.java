@@ -110,9 +110,12 @@ public final class SpecContract {
      * @return every violation, in the order found (empty when the body conforms)
      */
     public List<Violation> check(String path, ObjectNode body, List<Cap> caps) {
-        removeNulls(body);
+        List<Violation> out = new ArrayList<>();
+        clean(body, new StringBuilder(), out);
+        if (!out.isEmpty()) {
+            return out;
+        }
         List<Error> errors = schema(path).validate(body);
-        List<Violation> out = new ArrayList<>(errors.size());
         for (Error e : errors) {
             String field = field(e);
             if ("maxItems".equals(e.getKeyword()) && capped(field, caps)) {
@@ -238,23 +241,37 @@ public final class SpecContract {
         }
     }
 
-    private static void removeNulls(JsonNode node) {
+    /**
+     * Removes null members (absent) and reports numbers beyond the range of a double (the parser
+     * makes them infinite), naming the field.
+     */
+    private static void clean(JsonNode node, StringBuilder path, List<Violation> out) {
+        int mark = path.length();
         if (node instanceof ObjectNode obj) {
             Iterator<Map.Entry<String, JsonNode>> it = obj.fields();
             while (it.hasNext()) {
-                JsonNode v = it.next().getValue();
+                Map.Entry<String, JsonNode> e = it.next();
+                JsonNode v = e.getValue();
                 if (v.isNull()) {
                     it.remove();
-                } else if (v.isContainerNode()) {
-                    removeNulls(v);
+                } else if (v.isContainerNode() || v.isNumber()) {
+                    path.append(mark == 0 ? "" : ".").append(e.getKey());
+                    clean(v, path, out);
+                    path.setLength(mark);
                 }
             }
         } else if (node instanceof ArrayNode arr) {
-            for (JsonNode item : arr) {
-                if (item.isContainerNode()) {
-                    removeNulls(item);
+            for (int i = 0; i < arr.size(); i++) {
+                JsonNode item = arr.get(i);
+                if (item.isContainerNode() || item.isNumber()) {
+                    path.append('[').append(i).append(']');
+                    clean(item, path, out);
+                    path.setLength(mark);
                 }
             }
+        } else if (node.isFloatingPointNumber() && !Double.isFinite(node.doubleValue())) {
+            out.add(new Violation(path.toString(), "is invalid: the number is beyond the range of a double"
+                    + " (about ±1.8e308)"));
         }
     }
 

@@ -14,6 +14,8 @@ import java.util.Properties;
 import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.tectomelt.Config;
 import org.tectomelt.contract.Invoker;
+import org.tectomelt.contract.SpecContract;
+import org.tectomelt.operations.Operations;
 
 /**
  * Factory: configuration in, unstarted Javalin app out (routes, problem mapping, static page, and
@@ -134,12 +136,24 @@ public final class App {
         return ctx.status().getCode() == 200 && Responses.written(ctx) != null;
     }
 
+    /**
+     * The app enforcing the request rules of another spec document (a test builds one on a modified
+     * copy of the spec to show a range changes with no Java edit).
+     */
+    public static Javalin create(Config config, SpecContract spec) {
+        return create(config, RequestObserver.NONE, routes(config, spec));
+    }
+
     /** Every route the service serves; the spec-consistency test reads this same list. */
     public static List<Route> routes(Config config) {
+        return routes(config, SpecContract.standard());
+    }
+
+    private static List<Route> routes(Config config, SpecContract spec) {
         List<Route> all = new ArrayList<>();
         all.addAll(MetaRoutes.routes());
         // every computation registered in org.tectomelt.operations, served by the one generic handler
-        all.addAll(OperationHandler.routes(Invoker.of(config)));
+        all.addAll(OperationHandler.routes(new Invoker(spec, Operations.of(config))));
         // thermal: geotherm routes
         all.addAll(GeothermRoutes.routes(config));
 

@@ -48,10 +48,8 @@ final class OperationHandler {
     private static <Q extends Record, R extends Record> void handle(Context ctx, Invoker invoker, Operation<Q, R> op)
             throws Exception {
         JsonNode body = RequestKey.parsedBody(ctx);
-        if (body == null) {
-            body = Json.readTree(ctx.bodyAsBytes());
-        }
-        Invoker.Prepared<Q, R> prepared = invoker.prepare(op, body);
+        Invoker.Prepared<Q, R> prepared = body != null ? invoker.prepare(op, body)
+                : invoker.prepare(op, ctx.bodyAsBytes());
         if (prepared.cost() == Cost.HEAVY && !Heavy.inSlot(ctx)) {
             // a heavy request of a cheap operation (a large batch): limiter and budget as for heavy routes
             Heavy heavy = ctx.appData(Heavy.KEY);
