@@ -95,7 +95,7 @@ import org.tectomelt.engine.thermal.LithostaticColumn;
 public record DecompressionColumn(MantleLithology lithology, MantleThermodynamics thermodynamics,
                                   double potentialTemperature, double bulkWater, double lidDepth,
                                   Upwelling upwelling, double outputStep, LithostaticColumn pressures,
-                                  double crustDensity) {
+                                  double crustDensity) implements MeltingColumn {
 
     /** The isentropic melting equation. */
     public static final ModelInfo INFO = new ModelInfo("isentropic-melting-katz2003",
@@ -217,6 +217,17 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
                 outputStep, pressures, density);
     }
 
+    /** Batch: the solid residue holds D·X_melt while melting, all the bulk water below the solidus. */
+    private double residueWater(double f, double waterInMelt) {
+        return bulkWater > 0 && f > 0 ? lithology.waterPartition() * waterInMelt : bulkWater;
+    }
+
+    /** Batch melting, always. */
+    @Override
+    public MeltingMode mode() {
+        return MeltingMode.BATCH;
+    }
+
     /** Temperature (K) of the melt-free solid adiabat at pressure {@code p} (Pa). */
     public double adiabatTemperature(double p) {
         MantleThermodynamics th = thermodynamics;
@@ -237,12 +248,6 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
      */
     public OptionalDouble onsetPressure() {
         return onsetBelow(lithology.hardMaxPressure(), true);
-    }
-
-    /** Depth (m) of the onset, or empty. */
-    public OptionalDouble onsetDepth() {
-        OptionalDouble p = onsetPressure();
-        return p.isPresent() ? OptionalDouble.of(pressures.depthAt(p.getAsDouble())) : OptionalDouble.empty();
     }
 
     private double excess(double p) {
@@ -307,7 +312,8 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
 
     private ColumnResult noMelt(Optional<ColumnState> onset, List<String> warnings) {
         return new ColumnResult(this, onset, Optional.empty(), 0.0, 0.0, 0.0, 0.0, 0.0, OptionalDouble.empty(),
-                List.of(), dedupe(warnings));
+                List.of(), dedupe(warnings), List.of(new LithologyMelting(lithology, 1.0,
+                        onset.filter(o -> o.depth() > lidDepth), 0.0, 0.0, 0.0)));
     }
 
     /** Every model the result rests on. */
@@ -544,7 +550,7 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             double tTop = solidAtTop ? adiabatTemperature(pTop) : rates.t;
             maxF = Math.max(maxF, fTop);
             if (profile.get(profile.size() - 1).depth() > zTop + GRID_SLACK) {
-                profile.add(solidAtTop ? new ProfilePoint(zTop, pTop, tTop, 0.0, 0.0, 0.0)
+                profile.add(solidAtTop ? new ProfilePoint(zTop, pTop, tTop, 0.0, 0.0, 0.0, bulkWater)
                         : point(zTop, branch, y[0], -rates.dfdp));
             }
             ColumnState top = new ColumnState(zTop, pTop, tTop, fTop);
@@ -564,7 +570,8 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
                         + "saturation law makes the productivity strongly negative");
             }
             return new ColumnResult(DecompressionColumn.this, Optional.of(onset), Optional.of(top), maxF,
-                    integral / height, integral, thickness, crust, meanP, profile, dedupe(warnings));
+                    integral / height, integral, thickness, crust, meanP, profile, dedupe(warnings),
+                    List.of(new LithologyMelting(lithology, 1.0, Optional.of(onset), maxF, fTop, integral > 0 ? 1.0 : 0.0)));
         }
 
         /** Integrates the current branch from height t0 to the top or an event; returns the height reached. */
@@ -690,14 +697,14 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             double t = lithology.temperatureOnBranch(p, f, bulkWater, b == 1);
             double water = bulkWater > 0 && f > 0 ? lithology.waterInMelt(p, f, bulkWater) : 0.0;
             maxF = Math.max(maxF, f);
-            return new ProfilePoint(z, p, t, f, productivity + 0.0, water);
+            return new ProfilePoint(z, p, t, f, productivity + 0.0, water, residueWater(f, water));
         }
 
         /** Solid-adiabat points between a frozen depth and the next onset (or the top). */
         private void emitSolid(double zFrom, double zTo) {
             while (nextGrid > zTo + GRID_SLACK && nextGrid < zFrom) {
                 double p = pressures.pressureAt(nextGrid);
-                profile.add(new ProfilePoint(nextGrid, p, adiabatTemperature(p), 0.0, 0.0, 0.0));
+                profile.add(new ProfilePoint(nextGrid, p, adiabatTemperature(p), 0.0, 0.0, 0.0, bulkWater));
                 nextGrid -= outputStep;
             }
         }
