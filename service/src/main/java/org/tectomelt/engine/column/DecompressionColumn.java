@@ -148,22 +148,8 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
         if (lithology == null || thermodynamics == null || upwelling == null || pressures == null) {
             throw new IllegalArgumentException("lithology, thermodynamics, upwelling and pressures are required");
         }
-        if (!(potentialTemperature > 0) || !Double.isFinite(potentialTemperature)) {
-            throw new EngineException("potential temperature must be a positive temperature in kelvin");
-        }
-        if (!(bulkWater >= 0) || bulkWater > lithology.maxBulkWater()) {
-            throw new EngineException(String.format(Locale.ROOT, "%s accepts bulk water between 0 and %.3g wt%%",
-                    lithology.name(), lithology.maxBulkWater() * 100));
-        }
-        if (!(lidDepth >= 0) || lidDepth > LithostaticColumn.MAX_DEPTH_M) {
-            throw new EngineException("lid depth must be between 0 and 700 km");
-        }
-        if (!(outputStep >= MIN_OUTPUT_STEP) || !Double.isFinite(outputStep)) {
-            throw new EngineException("output step must be at least 10 m");
-        }
-        if (!(crustDensity > 0)) {
-            throw new EngineException("crust density must be positive");
-        }
+        checkCommon(potentialTemperature, lidDepth, outputStep, crustDensity);
+        checkWater(lithology, bulkWater);
     }
 
     /**
@@ -341,24 +327,55 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
         a.add("water: batch melting, the bulk water stays in the system and partitions between residue and melt "
                 + "(as in the adiabatic calculations of Katz et al. 2003); fractional extraction would dry the "
                 + "residue after about 1 % melting");
-        a.add(lidDepth > 0
-                ? String.format(Locale.ROOT, "melting stops at the base of a lid at %.1f km", lidDepth / 1e3)
-                : "no lid: melting continues up to the surface");
-        a.add(upwelling == Upwelling.PASSIVE
-                ? "passive (triangular) upwelling: melt thickness = ∫F dz over the column (McKenzie & Bickle 1988); "
-                        + "mean melting pressure weighted by melt production and by the share of columns reaching each "
-                        + "level (Plank & Langmuir 1992)"
-                : "active (columnar) upwelling: every parcel crosses the whole column, melt thickness = F_max × "
-                        + "melting height; mean melting pressure weighted by melt production");
-        a.add(String.format(Locale.ROOT, "crustal thickness = melt thickness × ρs/ρc with ρs = %.0f and ρc = %.0f "
-                + "kg/m³: all melt is extracted and crystallises as crust", th.solidDensity(), crustDensity));
-        a.add(String.format(Locale.ROOT, "pressure from depth: lithostatic, mantle %.0f kg/m³%s, g = %.2f m/s²",
-                pressures.mantleDensity(), pressures.crustThicknessM() > 0
-                        ? String.format(Locale.ROOT, " below %.1f km of crust at %.0f kg/m³",
-                        pressures.crustThicknessM() / 1e3, pressures.crustDensity()) : "", pressures.gravity()));
+        a.addAll(regimeAssumptions(this));
         a.add(String.format(Locale.ROOT, "numerics: Dormand-Prince 8(5,3) adaptive integration in u = F^(1/n) "
                 + "(restarted at cpx exhaustion), relative tolerance %.0e", RELATIVE_TOLERANCE));
         return a;
+    }
+
+    /** The lid, upwelling, crust and pressure assumptions every column states. */
+    static List<String> regimeAssumptions(MeltingColumn c) {
+        LithostaticColumn pressures = c.pressures();
+        return List.of(c.lidDepth() > 0
+                        ? String.format(Locale.ROOT, "melting stops at the base of a lid at %.1f km", c.lidDepth() / 1e3)
+                        : "no lid: melting continues up to the surface",
+                c.upwelling() == Upwelling.PASSIVE
+                        ? "passive (triangular) upwelling: melt thickness = ∫F dz over the column (McKenzie & Bickle "
+                                + "1988); mean melting pressure weighted by melt production and by the share of columns "
+                                + "reaching each level (Plank & Langmuir 1992)"
+                        : "active (columnar) upwelling: every parcel crosses the whole column, melt thickness = F_max × "
+                                + "melting height; mean melting pressure weighted by melt production",
+                String.format(Locale.ROOT, "crustal thickness = melt thickness × ρs/ρc with ρs = %.0f and ρc = %.0f "
+                        + "kg/m³: all melt is extracted and crystallises as crust", c.thermodynamics().solidDensity(),
+                        c.crustDensity()),
+                String.format(Locale.ROOT, "pressure from depth: lithostatic, mantle %.0f kg/m³%s, g = %.2f m/s²",
+                        pressures.mantleDensity(), pressures.crustThicknessM() > 0
+                                ? String.format(Locale.ROOT, " below %.1f km of crust at %.0f kg/m³",
+                                pressures.crustThicknessM() / 1e3, pressures.crustDensity()) : "", pressures.gravity()));
+    }
+
+    /** Checks the bulk water against what the lithology accepts. */
+    static void checkWater(MantleLithology lithology, double bulkWater) {
+        if (!(bulkWater >= 0) || bulkWater > lithology.maxBulkWater()) {
+            throw new EngineException(String.format(Locale.ROOT, "%s accepts bulk water between 0 and %.3g wt%%",
+                    lithology.name(), lithology.maxBulkWater() * 100));
+        }
+    }
+
+    /** Checks the inputs every column shares. */
+    static void checkCommon(double potentialTemperature, double lidDepth, double outputStep, double crustDensity) {
+        if (!(potentialTemperature > 0) || !Double.isFinite(potentialTemperature)) {
+            throw new EngineException("potential temperature must be a positive temperature in kelvin");
+        }
+        if (!(lidDepth >= 0) || lidDepth > LithostaticColumn.MAX_DEPTH_M) {
+            throw new EngineException("lid depth must be between 0 and 700 km");
+        }
+        if (!(outputStep >= MIN_OUTPUT_STEP) || !Double.isFinite(outputStep)) {
+            throw new EngineException("output step must be at least 10 m");
+        }
+        if (!(crustDensity > 0)) {
+            throw new EngineException("crust density must be positive");
+        }
     }
 
     // ---------------------------------------------------------------------------------------------

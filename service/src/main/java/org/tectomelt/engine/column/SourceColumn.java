@@ -101,26 +101,12 @@ public record SourceColumn(MantleSource source, double potentialTemperature, dou
         if (source == null || upwelling == null || pressures == null) {
             throw new IllegalArgumentException("source, upwelling and pressures are required");
         }
-        if (!(potentialTemperature > 0) || !Double.isFinite(potentialTemperature)) {
-            throw new EngineException("potential temperature must be a positive temperature in kelvin");
-        }
+        DecompressionColumn.checkCommon(potentialTemperature, lidDepth, outputStep, crustDensity);
         MantleLithology per = source.peridotite();
-        if (!(bulkWater >= 0) || bulkWater > per.maxBulkWater()) {
-            throw new EngineException(String.format(Locale.ROOT, "%s accepts bulk water between 0 and %.3g wt%%",
-                    per.name(), per.maxBulkWater() * 100));
-        }
+        DecompressionColumn.checkWater(per, bulkWater);
         if (bulkWater > 0 && source.mode() != MeltingMode.BATCH && !(per.waterPartition() > 0)) {
             throw new EngineException(per.id() + " states no water partition coefficient, so it cannot run "
                     + source.mode().apiName() + " melting with water; allowed: batch");
-        }
-        if (!(lidDepth >= 0) || lidDepth > LithostaticColumn.MAX_DEPTH_M) {
-            throw new EngineException("lid depth must be between 0 and 700 km");
-        }
-        if (!(outputStep >= DecompressionColumn.MIN_OUTPUT_STEP) || !Double.isFinite(outputStep)) {
-            throw new EngineException("output step must be at least 10 m");
-        }
-        if (!(crustDensity > 0)) {
-            throw new EngineException("crust density must be positive");
         }
     }
 
@@ -283,17 +269,7 @@ public record SourceColumn(MantleSource source, double potentialTemperature, dou
                     + "Langmuir 2003); batch until F reaches it; the system's water falls as "
                     + "X0((1 - F)/(1 - phi))^(1/(D + phi(1 - D)) - 1)", source.retainedMeltFraction()));
         }
-        a.add(lidDepth > 0
-                ? String.format(Locale.ROOT, "melting stops at the base of a lid at %.1f km", lidDepth / 1e3)
-                : "no lid: melting continues up to the surface");
-        a.add(upwelling == Upwelling.PASSIVE
-                ? "passive (triangular) upwelling: melt thickness = ∫F dz over the column (McKenzie & Bickle 1988); "
-                        + "mean melting pressure weighted by melt production and by the share of columns reaching each "
-                        + "level (Plank & Langmuir 1992)"
-                : "active (columnar) upwelling: every parcel crosses the whole column, melt thickness = F_max × "
-                        + "melting height; mean melting pressure weighted by melt production");
-        a.add(String.format(Locale.ROOT, "crustal thickness = melt thickness × ρs/ρc with ρs = %.0f and ρc = %.0f "
-                + "kg/m³: all melt is extracted and crystallises as crust", th.solidDensity(), crustDensity));
+        a.addAll(DecompressionColumn.regimeAssumptions(this));
         a.add(String.format(Locale.ROOT, "numerics: entropy balance solved exactly at steps of at most %.0f m "
                 + "(trapezoidal in the expansivity term), temperature to %.0e K", Math.min(MAX_STEP_M, outputStep),
                 TEMPERATURE_TOLERANCE_K));
