@@ -66,16 +66,8 @@ public sealed interface Distribution {
             finite(out, at + ".mean", mean);
             positive(out, at + ".sd", sd);
             if (out.isEmpty()) {
-                double lo = mean - SUPPORT_SIGMAS * sd;
-                double hi = mean + SUPPORT_SIGMAS * sd;
-                if (!range.contains(lo) || !range.contains(hi)) {
-                    out.add(new InputProblem(field, String.format(Locale.ROOT,
-                            "normal(mean %s, sd %s): mean ± 4 sd = [%s, %s] leaves the field's range %s; draws are "
-                                    + "never clipped: give truncatedNormal {mean, sd, min, max} with min and max "
-                                    + "inside %s, or a smaller sd",
-                            FieldRange.num(mean), FieldRange.num(sd), FieldRange.num(lo), FieldRange.num(hi),
-                            range.describe(), range.describe())));
-                }
+                central(out, field, range, "normal(mean " + FieldRange.num(mean) + ", sd " + FieldRange.num(sd)
+                        + "): mean ± 4 sd", mean - SUPPORT_SIGMAS * sd, mean + SUPPORT_SIGMAS * sd, "a smaller sd");
             }
             return out;
         }
@@ -236,16 +228,9 @@ public sealed interface Distribution {
             finite(out, at + ".mu", mu);
             positive(out, at + ".sigma", sigma);
             if (out.isEmpty()) {
-                double lo = Math.exp(mu - SUPPORT_SIGMAS * sigma);
-                double hi = Math.exp(mu + SUPPORT_SIGMAS * sigma);
-                if (!Double.isFinite(hi) || !range.contains(lo) || !range.contains(hi)) {
-                    out.add(new InputProblem(field, String.format(Locale.ROOT,
-                            "lognormal(mu %s, sigma %s): exp(mu ± 4 sigma) = [%s, %s] leaves the field's range %s; "
-                                    + "draws are never clipped: give a smaller sigma, or truncatedNormal {mean, sd, "
-                                    + "min, max} with min and max inside %s",
-                            FieldRange.num(mu), FieldRange.num(sigma), FieldRange.num(lo), FieldRange.num(hi),
-                            range.describe(), range.describe())));
-                }
+                central(out, field, range, "lognormal(mu " + FieldRange.num(mu) + ", sigma " + FieldRange.num(sigma)
+                        + "): exp(mu ± 4 sigma)", Math.exp(mu - SUPPORT_SIGMAS * sigma),
+                        Math.exp(mu + SUPPORT_SIGMAS * sigma), "a smaller sigma");
             }
             return out;
         }
@@ -350,6 +335,17 @@ public sealed interface Distribution {
     private static void positive(List<InputProblem> out, String field, double x) {
         if (!(x > 0) || !Double.isFinite(x)) {
             out.add(new InputProblem(field, "must be a positive finite number, got " + FieldRange.num(x)));
+        }
+    }
+
+    /** An unbounded family's central interval [lo, hi] (±4 sd) must lie inside the field's range. */
+    private static void central(List<InputProblem> out, String field, FieldRange range, String what, double lo,
+                                double hi, String alternative) {
+        if (!Double.isFinite(lo) || !Double.isFinite(hi) || !range.contains(lo) || !range.contains(hi)) {
+            out.add(new InputProblem(field, String.format(Locale.ROOT,
+                    "%s = [%s, %s] leaves the field's range %s; draws are never clipped: give truncatedNormal {mean, "
+                            + "sd, min, max} with min and max inside %s, or %s", what, FieldRange.num(lo),
+                    FieldRange.num(hi), range.describe(), range.describe(), alternative)));
         }
     }
 

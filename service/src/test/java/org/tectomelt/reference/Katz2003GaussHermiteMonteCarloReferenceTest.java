@@ -4,13 +4,9 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Map;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.function.DoubleUnaryOperator;
 import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
 import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
@@ -21,7 +17,6 @@ import org.tectomelt.studies.MonteCarlo;
 import org.tectomelt.studies.StudyModel;
 import org.tectomelt.studies.Summary;
 import org.tectomelt.studies.UncertainInputs;
-import org.tectomelt.studies.Workers;
 
 /**
  * Forward Monte Carlo through a non-linear model against quadrature: the Katz et al. (2003) dry
@@ -40,18 +35,6 @@ class Katz2003GaussHermiteMonteCarloReferenceTest {
     private static final double P_PA = 1e9;
     private static final Katz2003Peridotite KATZ = Katz2003Peridotite.fertile();
     private static final int N = 200_000;
-    private static ExecutorService pool;
-
-    @BeforeAll
-    static void startPool() {
-        pool = Executors.newFixedThreadPool(2);
-    }
-
-    @AfterAll
-    static void stopPool() {
-        pool.shutdownNow();
-    }
-
     private static double meltFraction(double temperatureC) {
         return KATZ.meltFraction(P_PA, Units.celsiusToKelvin(temperatureC), 0.0);
     }
@@ -92,7 +75,7 @@ class Katz2003GaussHermiteMonteCarloReferenceTest {
         UncertainInputs inputs = UncertainInputs.of(Map.of("temperatureC", new Distribution.Normal(mu, sigma)),
                 Map.of("temperatureC", FieldRange.closed(-273.15, 3000)), "uncertainty.inputs.");
         MonteCarlo.Result r = MonteCarlo.run(model, inputs, Map.of("meltFraction", "1"), N, 7,
-                Workers.on(pool, 2), Deadline.none());
+                StudyWorkers.two(), Deadline.none());
         Summary s = r.summaries().get("meltFraction");
         double se = s.sd() / Math.sqrt(N);
         assertEquals(quadrature, s.mean(), 3 * se, "Monte Carlo mean within 3 standard errors of Gauss–Hermite");

@@ -5,10 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Map;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
@@ -20,7 +16,6 @@ import org.tectomelt.studies.PosteriorInversion;
 import org.tectomelt.studies.SamplingInversion;
 import org.tectomelt.studies.StudyModel;
 import org.tectomelt.studies.UncertainInputs;
-import org.tectomelt.studies.Workers;
 
 /**
  * Inversion round trip on the mid-ocean-ridge crust (McKenzie &amp; Bickle 1988 column with the
@@ -37,18 +32,6 @@ class MidOceanRidgeInversionRoundTripTest {
 
     private static final double TP_C = 1350;
     private static final double RATE_MM_PER_YR = 60;
-    private static ExecutorService pool;
-
-    @BeforeAll
-    static void startPool() {
-        pool = Executors.newFixedThreadPool(2);
-    }
-
-    @AfterAll
-    static void stopPool() {
-        pool.shutdownNow();
-    }
-
     private static double crustKm(double tpC) {
         return Units.mToKm(new MidOceanRidge(Katz2003Peridotite.fertile(), Units.celsiusToKelvin(tpC), 0.0,
                 Units.mmPerYrToMPerS(RATE_MM_PER_YR)).solve().crustalThickness());
@@ -62,7 +45,7 @@ class MidOceanRidgeInversionRoundTripTest {
         double crust = crustKm(TP_C);
         SamplingInversion.Result r = SamplingInversion.run(RIDGE, new SamplingInversion.Setup(
                 "potentialTemperatureC", "°C", TP_RANGE, 1250, 1450, "crustalThicknessKm",
-                new Observation(crust, 1e-5), UncertainInputs.none(), 20, 1, 16), Workers.on(pool, 2),
+                new Observation(crust, 1e-5), UncertainInputs.none(), 20, 1, 16), StudyWorkers.two(),
                 Deadline.none());
         assertEquals(20, r.solved());
         assertEquals(TP_C, r.summary().mean(), 0.1, "round trip within 0.1 K");
@@ -74,7 +57,7 @@ class MidOceanRidgeInversionRoundTripTest {
         double crust = crustKm(TP_C);
         PosteriorInversion.Result r = PosteriorInversion.run(RIDGE, new PosteriorInversion.Setup(
                 "potentialTemperatureC", TP_RANGE, 1251, 1451, 101, Map.of("crustalThicknessKm",
-                new Observation(crust, 1e-3)), UncertainInputs.none(), 1, 1), Workers.on(pool, 2), Deadline.none());
+                new Observation(crust, 1e-3)), UncertainInputs.none(), 1, 1), StudyWorkers.two(), Deadline.none());
         assertNotNull(r.estimate());
         assertEquals(TP_C, r.estimate().mode(), 0.1, "mode within 0.1 K (the grid spacing is 2 K)");
         assertTrue(r.warnings().stream().anyMatch(w -> w.contains("narrower than two grid spacings")),
@@ -92,14 +75,14 @@ class MidOceanRidgeInversionRoundTripTest {
 
         PosteriorInversion.Result post = PosteriorInversion.run(RIDGE, new PosteriorInversion.Setup(
                 "potentialTemperatureC", TP_RANGE, 1300, 1400, 201, Map.of("crustalThicknessKm", obs),
-                UncertainInputs.none(), 1, 1), Workers.on(pool, 2), Deadline.none());
+                UncertainInputs.none(), 1, 1), StudyWorkers.two(), Deadline.none());
         assertEquals(expected, post.estimate().sd(), 0.10 * expected, "posterior sd ≈ σ/|d crust/d Tp|");
         assertEquals(TP_C, post.estimate().mean(), 0.1 * expected, "posterior centred on the true Tp");
         assertTrue(post.massAtMin() < 1e-4 && post.massAtMax() < 1e-4, "the bounds are far in the tails");
 
         SamplingInversion.Result sampled = SamplingInversion.run(RIDGE, new SamplingInversion.Setup(
                 "potentialTemperatureC", "°C", TP_RANGE, 1250, 1450, "crustalThicknessKm", obs,
-                UncertainInputs.none(), 1000, 3, 16), Workers.on(pool, 2), Deadline.none());
+                UncertainInputs.none(), 1000, 3, 16), StudyWorkers.two(), Deadline.none());
         assertEquals(1000, sampled.solved());
         // three standard errors of a sd from 1000 normal draws: 3/√(2·999) ≈ 6.7 % (REFERENCES §5), inside 10 %
         assertEquals(expected, sampled.summary().sd(), 0.10 * expected, "sampled roots' sd ≈ σ/|d crust/d Tp|");

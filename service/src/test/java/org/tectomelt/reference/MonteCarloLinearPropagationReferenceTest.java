@@ -3,10 +3,6 @@ package org.tectomelt.reference;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.util.Map;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.thermal.LithostaticColumn;
@@ -17,7 +13,6 @@ import org.tectomelt.studies.MonteCarlo;
 import org.tectomelt.studies.StudyModel;
 import org.tectomelt.studies.Summary;
 import org.tectomelt.studies.UncertainInputs;
-import org.tectomelt.studies.Workers;
 
 /**
  * Forward Monte Carlo through a linear relation against its closed form: lithostatic pressure
@@ -32,18 +27,6 @@ class MonteCarloLinearPropagationReferenceTest {
 
     private static final double DEPTH_M = 100e3;
     private static final int N = 20_000;
-    private static ExecutorService pool;
-
-    @BeforeAll
-    static void startPool() {
-        pool = Executors.newFixedThreadPool(2);
-    }
-
-    @AfterAll
-    static void stopPool() {
-        pool.shutdownNow();
-    }
-
     /** Pressure (GPa) at 100 km in a mantle-only column of the given density (kg/m³). */
     private static final StudyModel PRESSURE = in -> Map.of("pressureGPa", Units.paToGpa(
             new LithostaticColumn(0, LithostaticColumn.CRUST_DENSITY, in.get("mantleDensityKgPerM3"),
@@ -53,7 +36,7 @@ class MonteCarloLinearPropagationReferenceTest {
         UncertainInputs inputs = UncertainInputs.of(Map.of("mantleDensityKgPerM3", density),
                 Map.of("mantleDensityKgPerM3", FieldRange.closed(2000, 4500)), "uncertainty.inputs.");
         MonteCarlo.Result r = MonteCarlo.run(PRESSURE, inputs, Map.of("pressureGPa", "GPa"), N, 42,
-                Workers.on(pool, 2), Deadline.none());
+                StudyWorkers.two(), Deadline.none());
         assertEquals(N, r.evaluated(), "no draw leaves [2000, 4500] kg/m³ at mean ± 4 sd");
         assertEquals(0, r.failed());
         return r.summaries().get("pressureGPa");
