@@ -1,7 +1,7 @@
 // The page: builds one form per entry of tools.json, calls the API, shows a summary table,
 // SVG plots, downloads and a "copy as curl" command. Everything is served by this service.
 
-import { mountPlot, PALETTE, breakJumps, dataDomain, niceScale, saveBlob, shortCitation, interpolate } from "./plot.js";
+import { mountPlot, wrapText, PALETTE, OVERLAY_COLOURS, breakJumps, dataDomain, niceScale, saveBlob, shortCitation, interpolate } from "./plot.js";
 
 const TOKEN_KEY = "tectomelt.token";
 const MELT_FRACTION = "/v1/melt-fraction";
@@ -1160,14 +1160,25 @@ async function redrawFigure(spec) {
   if (!entry || !last) {
     return;
   }
+  const token = {};
+  entry.pending = token;
   const fig = await figureSpec(spec, last, comparedRuns(last.tool).length ? comparedRuns(last.tool) : [last]);
+  if (entry.pending !== token || state.last !== last) {
+    return; // a later change of the overlays is being drawn
+  }
   if (entry.sharedY && !fig.plot.zoomed) {
     fig.plot.y.domain = entry.sharedY;
   }
   entry.holder.replaceChildren();
-  entry.handle = mountPlot(entry.holder, fig.plot, { width: Math.floor(entry.figure.clientWidth || 480), readout: entry.readout });
+  const width = Math.floor(entry.figure.clientWidth || 480);
+  entry.handle = mountPlot(entry.holder, fig.plot, { width, readout: entry.readout, titleLines: titleRoom(last.tool, width) });
   entry.notes.replaceChildren(...fig.notes.map((n) => h("figcaption", { class: "plot-note" }, n)));
   entry.figure.dataset.overlays = String(fig.plot.series.filter((x) => x.role === "extra").length);
+}
+
+/** Title lines to leave room for, so that the frames of panels side by side stay level. */
+function titleRoom(tool, width) {
+  return Math.min(2, Math.max(1, ...(tool.plots || []).map((p) => wrapText(p.title, 14, width - 72).length)));
 }
 
 function slug(s) {
@@ -1197,7 +1208,7 @@ function mountFigure(figure, spec, fig, last) {
   const notes = h("div", { class: "plot-notes" });
   figure.append(tools, holder, readout);
   const width = Math.floor(figure.clientWidth || 480);
-  const handle = mountPlot(holder, fig.plot, { width, readout });
+  const handle = mountPlot(holder, fig.plot, { width, readout, titleLines: titleRoom(last.tool, width) });
   const entry = { figure, handle, spec, holder, readout, notes, sharedY: fig.plot.zoomed ? null : fig.plot.y.domain };
   state.plots.push(entry);
   const file = `tectomelt-${last.tool.id}-${slug(spec.title)}`;
@@ -1300,7 +1311,7 @@ async function extraSolidi(ids, pairs, spec) {
       notes.push(`Solidus of ${lithologyName(id)} not drawn: ${res.body && res.body.detail ? res.body.detail : "HTTP " + res.status}`);
       return;
     }
-    series[k] = { label: `solidus, ${lithologyName(id)}`, role: "extra", color: PALETTE[(PALETTE.length - 1 - k + PALETTE.length) % PALETTE.length],
+    series[k] = { label: `solidus, ${lithologyName(id)}`, role: "extra", color: OVERLAY_COLOURS[k % OVERLAY_COLOURS.length],
       points: results.map((r, i) => [r.solidusC, samples[i].y]) };
   });
   await Promise.all(jobs);
@@ -1480,7 +1491,7 @@ function fitPlotWidths() {
   for (const { figure, handle } of state.plots) {
     const w = Math.floor(figure.clientWidth);
     if (w > 0 && Math.abs(w - handle.svg.frame.W) > 2) {
-      handle.redraw(w);
+      handle.redraw(w, { titleLines: state.last ? titleRoom(state.last.tool, w) : 1 });
     }
   }
 }

@@ -23,6 +23,9 @@ export const ROLES = ["path", "adiabat", "melting", "solidus", "liquidus", "melt
  */
 export const PALETTE = ["#1f4e8c", "#c0571b", "#2e8b57", "#8b3a8f", "#9a7d0a", "#3d3d3d"];
 
+/** Colours for extra curves drawn over a result (other rocks' solidi), apart from the role colours. */
+export const OVERLAY_COLOURS = ["#0f7f95", "#b8326a", "#6d8b18", "#7a4b2a", "#4361c2", "#d4860b"];
+
 /** The plot styles: injected once into the page and copied into every exported SVG. */
 export const PLOT_CSS = `
 svg.plot { background: #fff; font-family: system-ui, "DejaVu Sans", Arial, sans-serif; }
@@ -258,6 +261,15 @@ export function dataDomain(spec) {
     }
   }
   let x = [Math.min(...xs), Math.max(...xs)], y = [Math.min(...ys), Math.max(...ys)];
+  // a curve lying on the frame is hard to see: leave a little room, but never cross zero for it
+  const pad = (r) => {
+    const d = 0.03 * (r[1] - r[0]);
+    return [r[0] >= 0 && r[0] - d < 0 ? 0 : r[0] - d, r[1] <= 0 && r[1] + d > 0 ? 0 : r[1] + d];
+  };
+  x = pad(x);
+  if (!spec.invertY) {
+    y = pad(y);
+  }
   // a mark on the frame would be cut in half: leave it some room
   const xSpan = x[1] - x[0] || Math.abs(x[0]) || 1;
   for (const mk of spec.marks || []) {
@@ -340,15 +352,18 @@ function curveSamples(screenSeries) {
  *   series: [{label, role, color?, points: [[x, y]], dots?, extras?: [string per point]}],
  *   levels: [{y, label}], marks: [{x, y, label}], y2: {label, unit, pairs: [[y, value]]},
  *   legendTitle?}
- * @param options {width (px, default 480), plotHeight (px, default 300), viewport: {x, y},
- *   provenance: string drawn as a small last line}
+ * @param options {width (px, default 480), plotHeight (px; by default from the width), viewport: {x, y},
+ *   provenance: string drawn as a small last line, titleLines: room for this many title lines
+ *   (so that panels side by side keep their frames level)}
  * @returns an <svg> element whose `frame` property maps data to pixels (for interaction)
  */
 export function drawPlot(spec, options) {
   const opt = options || {};
   const W = Math.max(260, Math.round(opt.width || 480));
-  const ph = Math.round(opt.plotHeight || 300);
   const series = spec.series || [];
+  const pwGuess = W - 64 - 18;
+  const ph = Math.round(opt.plotHeight || (spec.invertY ? Math.min(440, Math.max(280, pwGuess * 1.1))
+    : Math.min(360, Math.max(220, pwGuess * 0.7))));
   const items = series.filter((s) => s.points.some(([x, y]) => isFinite(x) && isFinite(y)) && s.legend !== false);
   const markItems = (spec.marks || []).filter((mk) => isFinite(mk.x) && isFinite(mk.y));
   const legendRows = items.map((s) => ({ label: s.label, role: s.role, color: s.color }));
@@ -367,7 +382,7 @@ export function drawPlot(spec, options) {
   const provLines = opt.provenance ? wrapText(opt.provenance, FONT.provenance, W - 16) : [];
   const provH = provLines.length * 13 + (provLines.length ? 4 : 0);
   const titleLines = wrapText(spec.title, FONT.title, W - 64 - 8).slice(0, 2);
-  const titleH = (titleLines.length - 1) * 17;
+  const titleH = (Math.max(titleLines.length, opt.titleLines || 1) - 1) * 17;
   const right = spec.y2 ? 58 : 18;
   const m = spec.invertY ? { l: 64, r: right, t: 66 + titleH } : { l: 64, r: right, t: 34 + titleH };
   const bottomAxis = spec.invertY ? 12 : 48;
@@ -714,7 +729,7 @@ function nearestPoint(frame, spec, X, Y) {
  * @param options drawPlot options plus {readout: element to write the readout into,
  *   onView(viewport) called after every zoom or pan}
  * @returns {svg, spec, viewport(), setViewport(v), zoom(factor, cx?, cy?), pan(fx, fy), reset(),
- *   redraw(width?), markup(provenance), png(provenance, density)}
+ *   redraw(width?, options?), markup(provenance), png(provenance, density)}
  */
 export function mountPlot(holder, spec, options) {
   injectPlotCss();
@@ -754,10 +769,12 @@ export function mountPlot(holder, spec, options) {
       const dx = (f.x[1] - f.x[0]) * fx, dy = (f.y[1] - f.y[0]) * fy;
       handle.setViewport({ x: [f.x[0] + dx, f.x[1] + dx], y: [f.y[0] + dy, f.y[1] + dy] });
     },
-    redraw(width) {
+    /** Draws again, at a new width and with other drawPlot options if given. */
+    redraw(width, more) {
       if (width) {
         opt.width = width;
       }
+      Object.assign(opt, more || {});
       render();
     },
     markup(provenance) {

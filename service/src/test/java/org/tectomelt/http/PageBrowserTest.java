@@ -1054,7 +1054,7 @@ class PageBrowserTest {
             browser.waitFor(By.cssSelector("#plots figure[data-plot='Geotherm'] input[data-overlay='solidus'][value='" + id + "']:checked"));
         }
         new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(20))
-                .until(d -> figureSvg("Geotherm").findElements(By.cssSelector("path.curve.role-extra")).size() == 3);
+                .until(d -> d.findElements(By.cssSelector("#plots figure[data-plot='Geotherm'] svg.plot path.curve.role-extra")).size() == 3);
         WebElement svg = figureSvg("Geotherm");
         Map<String, Object> f = frameOf(svg);
         String legend = svg.getText();
@@ -1116,7 +1116,7 @@ class PageBrowserTest {
 
         browser.driver.findElement(By.cssSelector("#plots input[data-overlay='isopleths']")).click();
         new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(20))
-                .until(d -> figureSvg("Pressure–temperature diagram").findElements(By.cssSelector("path.curve.role-isopleth")).isEmpty());
+                .until(d -> d.findElements(By.cssSelector("#plots svg.plot path.curve.role-isopleth")).isEmpty());
         assertEquals(1, figureSvg("Pressure–temperature diagram").findElements(By.cssSelector("path.curve.role-cpx-out")).size());
     }
 
