@@ -1305,10 +1305,9 @@ async function extraSolidi(ids, pairs, spec) {
       notes.push(`Solidus of ${lithologyName(id)} not drawn: its model covers ${range[0]}–${range[1]} GPa, outside this plot.`);
       return;
     }
-    const res = await post(MELT_FRACTION, { lithology: id, points: samples.map((s) => ({ pressureGPa: s.p, temperatureC: 800 })) });
-    const results = res.ok && res.body && Array.isArray(res.body.results) ? res.body.results : null;
+    const { results, error } = await meltBatch(id, 0, samples.map((s) => ({ pressureGPa: s.p, temperatureC: 800 })));
     if (!results) {
-      notes.push(`Solidus of ${lithologyName(id)} not drawn: ${res.body && res.body.detail ? res.body.detail : "HTTP " + res.status}`);
+      notes.push(`Solidus of ${lithologyName(id)} not drawn: ${error}`);
       return;
     }
     series[k] = { label: `solidus, ${lithologyName(id)}`, role: "extra", color: OVERLAY_COLOURS[k % OVERLAY_COLOURS.length],
@@ -1355,6 +1354,27 @@ async function adiabatCurve(spec, last) {
 function wetLabel(last, waterField) {
   const w = last.values[waterField];
   return typeof w === "number" && w > 0 ? `, ${w} wt% water` : "";
+}
+
+/**
+ * One batch call of the melt-fraction endpoint: {results} (one per point, in order) or {error}
+ * saying why there are none.
+ */
+async function meltBatch(lithology, water, points) {
+  const body = { lithology, points };
+  if (water > 0) {
+    body.bulkWaterWtPct = water;
+  }
+  let res;
+  try {
+    res = await post(MELT_FRACTION, body);
+  } catch (e) {
+    return { error: String(e.message || e) };
+  }
+  if (res.ok && res.body && Array.isArray(res.body.results)) {
+    return { results: res.body.results };
+  }
+  return { error: res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}` };
 }
 
 /** Where along a row of increasing temperatures a quantity first reaches `level` (linear), or NaN. */
@@ -1409,20 +1429,10 @@ async function solidusCurves(spec, rows, last) {
   if (samples.length === 0) {
     return { series: [], note: "Solidus and liquidus not drawn: no pressures within the model's range." };
   }
-  const body = { lithology, points: samples.map((s) => ({ pressureGPa: s.pressureGPa, temperatureC: s.temperatureC })) };
-  if (water > 0) {
-    body.bulkWaterWtPct = water;
-  }
-  let res;
-  try {
-    res = await post(MELT_FRACTION, body);
-  } catch (e) {
-    return { series: [], note: "Solidus and liquidus not drawn: " + (e.message || e) };
-  }
-  const results = res.ok && res.body && Array.isArray(res.body.results) ? res.body.results : null;
+  const { results, error } = await meltBatch(lithology, water,
+    samples.map((s) => ({ pressureGPa: s.pressureGPa, temperatureC: s.temperatureC })));
   if (!results) {
-    const why = res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}`;
-    return { series: [], note: "Solidus and liquidus not drawn: " + why };
+    return { series: [], note: "Solidus and liquidus not drawn: " + error };
   }
   const name = lithologyName(lithology);
   const out = [{ label: `solidus, ${name}${wetLabel(last, cfg.water)}`, role: "solidus",
@@ -1451,17 +1461,7 @@ async function meltGrid(lithology, water, samples, edge) {
       points.push({ pressureGPa: p, temperatureC: t });
     }
   }
-  const body = { lithology, points };
-  if (water > 0) {
-    body.bulkWaterWtPct = water;
-  }
-  let res;
-  try {
-    res = await post(MELT_FRACTION, body);
-  } catch (e) {
-    return null;
-  }
-  const results = res.ok && res.body && Array.isArray(res.body.results) ? res.body.results : null;
+  const { results } = await meltBatch(lithology, water, points);
   if (!results) {
     return null;
   }
@@ -1563,14 +1563,7 @@ export function toCsv(tool, response) {
 
 function download(last, kind) {
   const text = kind === "csv" ? toCsv(last.tool, last.response) : JSON.stringify(last.response, null, 2) + "\n";
-  const blob = new Blob([text], { type: kind === "csv" ? "text/csv" : "application/json" });
-  const a = h("a", { href: URL.createObjectURL(blob), download: `tectomelt-${last.tool.id}.${kind}` });
-  document.body.append(a);
-  a.click();
-  setTimeout(() => {
-    URL.revokeObjectURL(a.href);
-    a.remove();
-  }, 1000);
+  saveBlob(new Blob([text], { type: kind === "csv" ? "text/csv" : "application/json" }), `tectomelt-${last.tool.id}.${kind}`);
 }
 
 function shellQuote(s) {
