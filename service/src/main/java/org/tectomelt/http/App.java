@@ -154,11 +154,8 @@ public final class App {
         all.addAll(MetaRoutes.routes());
         // every computation registered in org.tectomelt.operations, served by the one generic handler
         all.addAll(OperationHandler.routes(new Invoker(spec, Operations.of(config))));
-        // thermal: geotherm routes
-        all.addAll(GeothermRoutes.routes(config));
-
-        // melting: lithologies, melt fraction, solidus crossings
-        all.addAll(MeltingRoutes.routes(config));
+        // melting: the lithology catalogue
+        all.addAll(MeltingRoutes.routes());
 
         // settings: decompression column, ridge, hotspot, rift
         all.addAll(DecompressionRoutes.routes());

@@ -483,7 +483,7 @@ final class CrustalHeatingRoutes {
                     ContinentalGeotherm.REDUCED_FRACTION, 0, 1);
             hrKm = gv.optional("heatProductionScaleKm", geo.heatProductionScaleKm(),
                     Units.mToKm(ContinentalGeotherm.HEAT_PRODUCTION_SCALE), 1, 50);
-            String mode = gv.optionalChoice("heatProduction", geo.heatProduction(), "exponential", GeothermRoutes.HEAT_PRODUCTIONS);
+            String mode = gv.optionalChoice("heatProduction", geo.heatProduction(), "exponential", List.of("exponential", "two-layer"));
             distribution = "two-layer".equals(mode) ? ContinentalGeotherm.HeatProduction.TWO_LAYER
                     : ContinentalGeotherm.HeatProduction.EXPONENTIAL;
             surfaceC = gv.optional("surfaceTemperatureC", geo.surfaceTemperatureC(), 0, -50, 100);

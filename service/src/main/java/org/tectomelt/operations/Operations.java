@@ -32,7 +32,9 @@ public final class Operations {
     public static Operations of(Config config) {
         return new Operations(List.of(
                 new PressureOperation(config),
+                new GeothermOperation(config),
                 new MeltFractionOperation(config),
+                new SolidusCrossingsOperation(config),
                 new MidOceanRidgeOperation()));
     }
 
