@@ -157,12 +157,6 @@ public final class App {
         // melting: the lithology catalogue
         all.addAll(MeltingRoutes.routes());
 
-        // settings: decompression column, ridge, hotspot, rift
-        all.addAll(DecompressionRoutes.routes());
-
-        // settings: subduction
-        all.addAll(SubductionRoutes.routes());
-
         // crust: crustal heating budget and sill model
         all.addAll(CrustalHeatingRoutes.routes(config));
 

@@ -35,7 +35,11 @@ public final class Operations {
                 new GeothermOperation(config),
                 new MeltFractionOperation(config),
                 new SolidusCrossingsOperation(config),
-                new MidOceanRidgeOperation()));
+                new DecompressionOperation(),
+                new MidOceanRidgeOperation(),
+                new HotspotOperation(),
+                new ContinentalRiftOperation(),
+                new SubductionOperation()));
     }
 
     /** Every operation with the embedded default caps. */
