@@ -157,9 +157,6 @@ public final class App {
         // melting: the lithology catalogue
         all.addAll(MeltingRoutes.routes());
 
-        // crust: crustal heating budget and sill model
-        all.addAll(CrustalHeatingRoutes.routes(config));
-
         // operations: metrics and the like
         all.addAll(OperationsRoutes.routes());
 

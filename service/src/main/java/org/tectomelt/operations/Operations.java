@@ -39,7 +39,9 @@ public final class Operations {
                 new MidOceanRidgeOperation(),
                 new HotspotOperation(),
                 new ContinentalRiftOperation(),
-                new SubductionOperation()));
+                new SubductionOperation(),
+                new HeatBudgetOperation(),
+                new SillModelOperation(config)));
     }
 
     /** Every operation with the embedded default caps. */
