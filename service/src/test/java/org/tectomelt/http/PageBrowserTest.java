@@ -1216,6 +1216,8 @@ class PageBrowserTest {
         box.findElement(By.id("sweep-start")).click();
 
         org.openqa.selenium.support.ui.WebDriverWait wait = new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(60));
+        // the run's page redraws itself every second while the run is active
+        wait.ignoring(org.openqa.selenium.StaleElementReferenceException.class);
         wait.until(d -> d.getCurrentUrl().contains("#/runs/"));
         String id = browser.driver.getCurrentUrl().replaceAll(".*#/runs/", "");
         wait.until(d -> "succeeded".equals(d.findElement(By.id("run-status")).getAttribute("data-status")));
