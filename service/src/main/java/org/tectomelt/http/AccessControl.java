@@ -33,7 +33,7 @@ final class AccessControl {
         return expectedHash != null;
     }
 
-    /** Whether {@code path} needs the token (when one is configured). */
+    /** Whether the route template {@code path} needs the token (when one is configured). */
     static boolean protects(String path) {
         return (path.startsWith("/v1/") && !path.equals("/v1/health")) || path.equals("/metrics");
     }
@@ -44,7 +44,10 @@ final class AccessControl {
      * @throws ApiProblem 401 {@code unauthorized} with a {@code WWW-Authenticate} challenge
      */
     void check(Context ctx) {
-        if (expectedHash == null || ctx.method() == HandlerType.OPTIONS || !protects(ctx.path())) {
+        // decided on the route that will serve the request, not on the raw path: /metrics/ is /metrics
+        String route = RequestPlumbing.endpointPath(ctx);
+        if (expectedHash == null || ctx.method() == HandlerType.OPTIONS
+                || !protects(route == null ? ctx.path() : route)) {
             return;
         }
         String header = ctx.header("Authorization");

@@ -11,7 +11,6 @@ import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Properties;
-import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.tectomelt.Config;
 
 /**
@@ -65,11 +64,8 @@ public final class App {
                 sf.location = Location.CLASSPATH;
             });
             Cors.configure(c, config.corsOrigins());
-            // graceful stop: connectors stop accepting, in-flight requests get up to the grace period
-            c.jetty.modifyServer(server -> {
-                server.setStopTimeout(config.shutdownGraceMillis());
-                server.setHandler(new GracefulHandler());
-            });
+            // graceful stop, bodies read without a thread, threads per client, problem+json from Jetty itself
+            c.jetty.modifyServer(server -> JettySetup.configure(server, config));
             c.routes.before(RequestPlumbing::assignRequestId);
             // after every before-handler (the CORS plugin's among them), so refusals carry CORS headers
             c.routes.beforeMatched(ctx -> Cors.acceptUnlistedOrigin(ctx, config.corsOrigins()));
@@ -90,7 +86,12 @@ public final class App {
                 metrics.finished(ctx, ms);
                 RequestPlumbing.finished(ctx, ms, observer);
             });
-            c.events.serverStopped(metrics::close);
+            // heavy work still running when the grace period ends has no one left to answer: cancel it
+            c.events.serverStopping(() -> heavy.cancelAllAfter(config.shutdownGraceMillis()));
+            c.events.serverStopped(() -> {
+                heavy.cancelAll();
+                metrics.close();
+            });
         });
         return app;
     }

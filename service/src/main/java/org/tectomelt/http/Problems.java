@@ -34,9 +34,18 @@ public final class Problems {
                 "Outside what the model can compute", e.getMessage(), List.of(), Map.of())));
         routes.exception(BudgetExceededException.class, (e, ctx) -> write(ctx, new ApiProblem(503, "over-budget",
                 "Computation budget exceeded", e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS); ask for fewer points,"
-                        + " a coarser grid or a shorter duration", List.of(), Map.of())));
+                        + " a coarser grid or a shorter duration", List.of(),
+                Map.of("Retry-After", String.valueOf(Heavy.RETRY_AFTER_SECONDS)))));
         routes.exception(HttpResponseException.class, (e, ctx) -> write(ctx, fromStatus(e.getStatus(), ctx)));
+        routes.exception(Json.NonFiniteResult.class, (e, ctx) -> write(ctx, new ApiProblem(400, "outside-model-range",
+                "Outside what the model can compute", "The model gave no finite number for " + e.field()
+                        + " at these inputs: " + inputsOf(ctx) + "; move them away from the edge of their ranges",
+                List.of(), Map.of())));
         routes.exception(Exception.class, (e, ctx) -> {
+            if (clientIo(e)) {
+                write(ctx, RequestPlumbing.incompleteBody(ctx));
+                return;
+            }
             LOG.error("unexpected failure, requestId={} {} {}", RequestPlumbing.requestId(ctx), ctx.method(),
                     ctx.path(), e);
             write(ctx, new ApiProblem(500, "internal", "Internal error",
@@ -50,6 +59,33 @@ public final class Problems {
                 }
             });
         }
+    }
+
+    /**
+     * True when {@code e} comes from the client's connection while the body was read (it closed,
+     * or sent less than it declared): a client error, not the service's.
+     */
+    static boolean clientIo(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof java.io.IOException || t instanceof org.eclipse.jetty.http.BadMessageException) {
+                return true;
+            }
+            if (t.getCause() == t) {
+                break;
+            }
+        }
+        return false;
+    }
+
+    /** The request's body as sent, shortened, to name the inputs a model could not compute. */
+    private static String inputsOf(Context ctx) {
+        String body;
+        try {
+            body = new String(ctx.bodyAsBytes(), java.nio.charset.StandardCharsets.UTF_8).replaceAll("\\s+", " ");
+        } catch (RuntimeException e) {
+            body = "(unreadable)";
+        }
+        return body.length() <= 400 ? body : body.substring(0, 400) + "…";
     }
 
     /** A problem for a bare status code raised by the framework or the plumbing. */
