@@ -143,35 +143,11 @@ public final class Json {
         return ApiProblem.malformed("The request body is not valid JSON: " + what + locationOf(e));
     }
 
-    /**
-     * A computed value that is not a finite number reached the response writer. It is refused
-     * (never written as NaN or Infinity) and answered as a 400 naming the inputs.
-     */
-    public static final class NonFiniteResult extends RuntimeException {
-        private static final long serialVersionUID = 1L;
-        private final String field;
-
-        NonFiniteResult(String field) {
-            super("non-finite number in response at " + field);
-            this.field = field;
-        }
-
-        /** JSON pointer of the value in the response ({@code /meltPerWaterPercentPerWtPct}). */
-        public String field() {
-            return field;
-        }
-    }
-
     /** Serialises a response value. */
     public static byte[] write(Object value) {
         try {
             return MAPPER.writeValueAsBytes(value);
         } catch (JsonProcessingException e) {
-            for (Throwable t = e; t != null; t = t.getCause()) {
-                if (t instanceof NonFiniteResult n) {
-                    throw n;
-                }
-            }
             throw new IllegalStateException("response could not be serialised: " + e.getOriginalMessage(), e);
         }
     }
@@ -285,8 +261,8 @@ public final class Json {
         @Override
         public void serialize(Double value, JsonGenerator gen, SerializerProvider provider) throws IOException {
             if (!Double.isFinite(value)) {
-                throw JsonMappingException.from(gen, "non-finite number in response",
-                        new NonFiniteResult(gen.getOutputContext().pathAsPointer().toString()));
+                throw JsonMappingException.from(gen, "non-finite number in response at "
+                        + gen.getOutputContext().pathAsPointer());
             }
             // -0.0 (from a negated or rounded zero, or echoed from the request) is written as 0.0
             gen.writeNumber(value == 0.0 ? 0.0 : value);

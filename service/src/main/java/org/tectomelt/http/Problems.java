@@ -37,10 +37,6 @@ public final class Problems {
                         + " a coarser grid or a shorter duration", List.of(),
                 Map.of("Retry-After", String.valueOf(Heavy.RETRY_AFTER_SECONDS)))));
         routes.exception(HttpResponseException.class, (e, ctx) -> write(ctx, fromStatus(e.getStatus(), ctx)));
-        routes.exception(Json.NonFiniteResult.class, (e, ctx) -> write(ctx, new ApiProblem(400, "outside-model-range",
-                "Outside what the model can compute", "The model gave no finite number for " + e.field()
-                        + " at these inputs: " + inputsOf(ctx) + "; move them away from the edge of their ranges",
-                List.of(), Map.of())));
         routes.exception(Exception.class, (e, ctx) -> {
             if (clientIo(e)) {
                 write(ctx, RequestPlumbing.incompleteBody(ctx));
@@ -75,17 +71,6 @@ public final class Problems {
             }
         }
         return false;
-    }
-
-    /** The request's body as sent, shortened, to name the inputs a model could not compute. */
-    private static String inputsOf(Context ctx) {
-        String body;
-        try {
-            body = new String(ctx.bodyAsBytes(), java.nio.charset.StandardCharsets.UTF_8).replaceAll("\\s+", " ");
-        } catch (RuntimeException e) {
-            body = "(unreadable)";
-        }
-        return body.length() <= 400 ? body : body.substring(0, 400) + "…";
     }
 
     /** A problem for a bare status code raised by the framework or the plumbing. */
