@@ -11,6 +11,7 @@ import org.eclipse.jetty.server.Request;
 import org.eclipse.jetty.server.Response;
 import org.eclipse.jetty.server.handler.ErrorHandler;
 import org.eclipse.jetty.util.Callback;
+import org.tectomelt.contract.Json;
 
 /**
  * Errors that Jetty answers itself, before a request reaches the app: an unparseable request (no

@@ -69,6 +69,10 @@ public final class Problems {
      */
     static boolean clientIo(Throwable e) {
         for (Throwable t = e; t != null; t = t.getCause()) {
+            // a JSON (de)serialisation failure is an IOException too, but never the client's connection
+            if (t instanceof com.fasterxml.jackson.core.JacksonException) {
+                return false;
+            }
             if (t instanceof java.io.IOException || t instanceof org.eclipse.jetty.http.BadMessageException) {
                 return true;
             }

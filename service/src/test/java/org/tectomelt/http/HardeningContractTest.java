@@ -11,6 +11,7 @@ import static org.tectomelt.http.Problem.assertProblem;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import io.javalin.Javalin;
+import org.tectomelt.contract.Json;
 import io.restassured.http.ContentType;
 import java.io.ByteArrayOutputStream;
 import java.io.InputStream;
