@@ -5,12 +5,8 @@ import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import io.javalin.http.HandlerType;
 import io.javalin.http.staticfiles.Location;
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Properties;
 import org.tectomelt.Config;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.SpecContract;
@@ -24,7 +20,7 @@ import org.tectomelt.operations.Operations;
 public final class App {
 
     /** The service version, from the build. */
-    public static final String VERSION = loadVersion();
+    public static final String VERSION = BuildInfo.CURRENT.version();
 
     private App() {
     }
@@ -174,18 +170,5 @@ public final class App {
         all.addAll(OperationsRoutes.routes());
 
         return List.copyOf(all);
-    }
-
-    private static String loadVersion() {
-        try (InputStream in = App.class.getResourceAsStream("/tectomelt-version.properties")) {
-            if (in == null) {
-                return "dev";
-            }
-            Properties p = new Properties();
-            p.load(in);
-            return p.getProperty("version", "dev");
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
     }
 }

@@ -20,15 +20,80 @@ final class MetaRoutes {
     static List<Route> routes() {
         return List.of(
                 Route.liveGet("/v1/health", MetaRoutes::health),
+                Route.get("/v1/citations", MetaRoutes::citations),
                 Route.get("/openapi.yaml", MetaRoutes::spec));
     }
 
-    /** Health body. */
-    record Health(String status, String version) {
+    /** Health body: the build's version and the git commit it was built from. */
+    record Health(String status, String version, String commit) {
     }
 
     static void health(Context ctx) {
-        Responses.json(ctx, new Health("up", App.VERSION));
+        Responses.json(ctx, new Health("up", BuildInfo.CURRENT.version(), BuildInfo.CURRENT.commitLabel()));
+    }
+
+    /** One citable model. */
+    record Citation(String id, String citation, String doi, String bibtex) {
+    }
+
+    /** Body of {@code GET /v1/citations}. */
+    record Citations(Citation software, List<Citation> models) {
+    }
+
+    /** BibTeX media type ({@code Accept: application/x-bibtex} or {@code ?cite=bibtex}). */
+    static final String BIBTEX = "application/x-bibtex";
+
+    /** Every model the service can cite, and the software itself, as JSON or as one BibTeX file. */
+    static void citations(Context ctx) {
+        List<org.tectomelt.engine.ModelInfo> models = org.tectomelt.engine.ModelCatalogue.all();
+        if (wantsBibtex(ctx)) {
+            StringBuilder sb = new StringBuilder(softwareBibtex());
+            for (org.tectomelt.engine.ModelInfo m : models) {
+                sb.append('\n').append(m.bibtex().text());
+            }
+            ctx.contentType(BIBTEX + "; charset=utf-8").result(sb.toString());
+            return;
+        }
+        List<Citation> list = models.stream()
+                .map(m -> new Citation(m.id(), m.citation(), m.doi(), m.bibtex().text())).toList();
+        Responses.json(ctx, new Citations(new Citation("tectomelt", softwareCitation(), "", softwareBibtex()), list));
+    }
+
+    /** True when the caller asked for BibTeX: {@code ?cite=bibtex} or {@code Accept: application/x-bibtex}. */
+    static boolean wantsBibtex(Context ctx) {
+        String cite = ctx.queryParam("cite");
+        if (cite != null) {
+            if (!cite.equals("bibtex")) {
+                throw ApiProblem.invalid("cite", "must be bibtex, got '"
+                        + (cite.length() <= 20 ? cite : cite.substring(0, 20) + "…") + "'");
+            }
+            return true;
+        }
+        String accept = ctx.header("Accept");
+        if (accept == null) {
+            return false;
+        }
+        // the first of the two named wins: "application/json, application/x-bibtex" is JSON
+        String a = accept.toLowerCase(java.util.Locale.ROOT);
+        int bib = a.indexOf(BIBTEX);
+        int json = a.indexOf(Responses.JSON);
+        return bib >= 0 && (json < 0 || bib < json);
+    }
+
+    /** The software itself, as its CITATION.cff describes it, with this build's version and commit. */
+    static String softwareCitation() {
+        BuildInfo b = BuildInfo.CURRENT;
+        return "The tectomelt developers, tectomelt: melt estimates for tectonic settings from published models, "
+                + "version " + b.version() + " (commit " + b.commitLabel() + "), Apache-2.0";
+    }
+
+    static String softwareBibtex() {
+        BuildInfo b = BuildInfo.CURRENT;
+        return "@misc{tectomelt-" + b.version() + ",\n"
+                + "  author = {{The tectomelt developers}},\n"
+                + "  title = {tectomelt: melt estimates for tectonic settings from published models},\n"
+                + "  note = {Version " + b.version() + ", commit " + b.commitLabel() + ". Licence Apache-2.0},\n"
+                + "}\n";
     }
 
     static void spec(Context ctx) {

@@ -20,7 +20,18 @@ class MetaContractTest {
                 .contentType(startsWith("application/json"))
                 .body("status", equalTo("up"))
                 .body("version", equalTo(App.VERSION))
-                .body("version", matchesPattern("\\d+\\.\\d+\\.\\d+.*"));
+                .body("version", matchesPattern("\\d+\\.\\d+\\.\\d+.*"))
+                .body("version", equalTo(BuildInfo.CURRENT.version()))
+                // the git commit of the build (a fresh clone), or "unknown" where the build had no .git
+                .body("commit", matchesPattern("[0-9a-f]{40}(-dirty)?|unknown"))
+                .body("commit", equalTo(BuildInfo.CURRENT.commitLabel()));
+    }
+
+    @Test
+    void anUnfilledBuildPlaceholderReadsAsUnknown() {
+        org.junit.jupiter.api.Assertions.assertEquals("unknown", BuildInfo.known("${git.commit.id}", "unknown"));
+        org.junit.jupiter.api.Assertions.assertEquals("unknown", BuildInfo.known("", "unknown"));
+        org.junit.jupiter.api.Assertions.assertEquals("abc123", BuildInfo.known(" abc123 ", "unknown"));
     }
 
     @Test
