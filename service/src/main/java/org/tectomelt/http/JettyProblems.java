@@ -66,36 +66,27 @@ final class JettyProblems extends ErrorHandler {
         return Json.write(body);
     }
 
+    /** Type slug and title of each status Jetty answers by itself. */
+    private static final Map<Integer, String[]> KINDS = Map.ofEntries(
+            Map.entry(400, new String[] {"bad-request", "Bad request"}),
+            Map.entry(404, new String[] {"not-found", "Not found"}),
+            Map.entry(405, new String[] {"method-not-allowed", "Method not allowed"}),
+            Map.entry(408, new String[] {"request-timeout", "Request timeout"}),
+            Map.entry(413, new String[] {"body-too-large", "Request body too large"}),
+            Map.entry(414, new String[] {"uri-too-long", "URI too long"}),
+            Map.entry(415, new String[] {"unsupported-media-type", "Unsupported media type"}),
+            Map.entry(431, new String[] {"headers-too-large", "Request headers too large"}),
+            Map.entry(500, new String[] {"internal", "Internal error"}),
+            Map.entry(503, new String[] {"unavailable", "Service unavailable"}));
+
     private static String type(int status) {
-        return switch (status) {
-            case 400 -> "bad-request";
-            case 404 -> "not-found";
-            case 405 -> "method-not-allowed";
-            case 408 -> "request-timeout";
-            case 413 -> "body-too-large";
-            case 414 -> "uri-too-long";
-            case 415 -> "unsupported-media-type";
-            case 431 -> "headers-too-large";
-            case 500 -> "internal";
-            case 503 -> "unavailable";
-            default -> "http-" + status;
-        };
+        String[] k = KINDS.get(status);
+        return k == null ? "http-" + status : k[0];
     }
 
     private static String title(int status) {
-        return switch (status) {
-            case 400 -> "Bad request";
-            case 404 -> "Not found";
-            case 405 -> "Method not allowed";
-            case 408 -> "Request timeout";
-            case 413 -> "Request body too large";
-            case 414 -> "URI too long";
-            case 415 -> "Unsupported media type";
-            case 431 -> "Request headers too large";
-            case 500 -> "Internal error";
-            case 503 -> "Service unavailable";
-            default -> "HTTP " + status;
-        };
+        String[] k = KINDS.get(status);
+        return k == null ? "HTTP " + status : k[1];
     }
 
     /** Short printable ASCII, or null: a reason never carries a stack trace or control characters. */
