@@ -8,13 +8,15 @@ import java.net.ServerSocket;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.tectomelt.http.App;
+import org.tectomelt.runs.RunService;
+import org.tectomelt.runs.StorageUnavailableException;
 
 /**
  * Entry point: reads the configuration from the environment, builds the app and starts it.
  *
  * <p>Exit status: 0 after a clean stop (SIGTERM or Ctrl-C: the port closes, requests in flight get
- * {@code TECTOMELT_SHUTDOWN_GRACE_MS}); 2 for a bad setting; 3 when the address cannot be bound
- * (port in use, no permission). Each failure is one line on standard error, no stack trace.
+ * {@code TECTOMELT_SHUTDOWN_GRACE_MS}); 2 for a bad setting; 3 when the runs storage cannot be
+ * opened; 4 when the address cannot be bound (port in use, no permission). Each failure is one line on standard error, no stack trace.
  */
 public final class Main {
 
@@ -22,8 +24,10 @@ public final class Main {
 
     /** Exit status for a bad setting. */
     static final int EXIT_BAD_CONFIG = 2;
+    /** Exit status when the runs storage cannot be opened. */
+    static final int EXIT_NO_STORAGE = 3;
     /** Exit status when the address cannot be bound. */
-    static final int EXIT_CANNOT_BIND = 3;
+    static final int EXIT_CANNOT_BIND = 4;
 
     private Main() {
     }
@@ -35,8 +39,12 @@ public final class Main {
      */
     public static void main(String[] args) {
         Config config;
+        RunsConfig runsConfig;
+        Tokens tokens;
         try {
             config = Config.fromEnvironment(System.getenv());
+            runsConfig = RunsConfig.fromEnvironment(System.getenv());
+            tokens = Tokens.fromEnvironment(System.getenv(), config.token());
         } catch (IllegalArgumentException e) {
             System.err.println("tectomelt: bad configuration: " + e.getMessage());
             System.exit(EXIT_BAD_CONFIG);
@@ -48,7 +56,15 @@ public final class Main {
             System.exit(EXIT_CANNOT_BIND);
             return;
         }
-        Javalin app = App.create(config);
+        RunService runs;
+        try {
+            runs = RunService.open(runsConfig, App.evaluator(config));
+        } catch (StorageUnavailableException e) {
+            System.err.println("tectomelt: not starting: " + e.getMessage());
+            System.exit(EXIT_NO_STORAGE);
+            return;
+        }
+        Javalin app = App.create(config, tokens, runs);
         try {
             app.start(config.host(), config.port());
         } catch (RuntimeException e) {
@@ -72,6 +88,7 @@ public final class Main {
             Runtime.getRuntime().halt(0);
         }, "tectomelt-shutdown"));
         LOG.info("settings: {}", config);
+        LOG.info("runs: {}; {}", runsConfig, tokens);
         LOG.info("tectomelt {} listening on http://{}:{}/ ({})", App.VERSION, config.host(), app.port(),
                 reach(config.host()));
     }
