@@ -5,6 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.tectomelt.engine.column.DecompressionColumn;
+import org.tectomelt.engine.column.SourceColumn;
 import org.tectomelt.engine.crust.HeatBudget;
 import org.tectomelt.engine.crust.Miao2014Conductivity;
 import org.tectomelt.engine.crust.SillModel;
@@ -12,8 +13,11 @@ import org.tectomelt.engine.melting.CrustalLithology;
 import org.tectomelt.engine.melting.HuangWyllie1973Granite;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
 import org.tectomelt.engine.melting.McKenzieBickle1988Peridotite;
+import org.tectomelt.engine.melting.PertermannHirschmann2003Pyroxenite;
+import org.tectomelt.engine.melting.WaterSaturatedPeridotiteSolidus;
 import org.tectomelt.engine.settings.ContinentalRift;
 import org.tectomelt.engine.settings.Hotspot;
+import org.tectomelt.engine.settings.SlowSpreadingConductiveLid;
 import org.tectomelt.engine.thermal.ContinentalGeotherm;
 import org.tectomelt.engine.thermal.HalfSpaceCooling;
 import org.tectomelt.engine.thermal.LithostaticColumn;
@@ -39,12 +43,15 @@ public final class ModelCatalogue {
                 LithostaticColumn.INFO, HalfSpaceCooling.INFO, PlateCooling.INFO, PlateParameters.GDH1.source(),
                 PlateParameters.PS77.source(), ContinentalGeotherm.INFO, MantleAdiabat.INFO,
                 // melting laws
-                Katz2003Peridotite.INFO, McKenzieBickle1988Peridotite.INFO, HuangWyllie1973Granite.INFO,
+                Katz2003Peridotite.INFO, Katz2003Peridotite.EXPERIMENTAL_WET_INFO, McKenzieBickle1988Peridotite.INFO,
+                PertermannHirschmann2003Pyroxenite.INFO, WaterSaturatedPeridotiteSolidus.INFO, HuangWyllie1973Granite.INFO,
                 CrustalLithology.METAPELITE_INFO, CrustalLithology.AMPHIBOLITE_INFO,
                 CrustalLithology.AMPHIBOLITE_WOLF_WYLLIE_INFO, CrustalLithology.BASALT_INFO,
                 // columns and settings
                 DecompressionColumn.INFO, DecompressionColumn.PASSIVE_REGIME_INFO,
-                DecompressionColumn.MEAN_PRESSURE_INFO, Hotspot.LID_EFFECT_INFO, ContinentalRift.INFO,
+                DecompressionColumn.MEAN_PRESSURE_INFO, SourceColumn.TWO_LITHOLOGY_INFO, SourceColumn.FRACTIONAL_INFO,
+                SourceColumn.WATER_EXTRACTION_INFO, SlowSpreadingConductiveLid.INFO, Hotspot.LID_EFFECT_INFO,
+                ContinentalRift.INFO,
                 ContinentalRift.RIFT_MELTING_INFO,
                 // crust
                 HeatBudget.INFO, Miao2014Conductivity.INFO, SillModel.ANNEN_SPARKS_2002, SillModel.ENTHALPY_METHOD)) {
