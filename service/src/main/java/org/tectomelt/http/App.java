@@ -77,7 +77,8 @@ public final class App {
         ResultCache cache = new ResultCache(config.cacheMegabytes());
         Metrics metrics = new Metrics(heavy, cache);
         metrics.bindRuns(runs);
-        RequestKey keys = new RequestKey(VERSION + ";" + config.resultFingerprint());
+        RequestKey keys = new RequestKey(VERSION + ";" + BuildInfo.CURRENT.commitLabel() + ";"
+                + config.resultFingerprint());
         AccessControl access = new AccessControl(tokens);
         InteractiveLoad load = runs.interactiveLoad();
         Javalin app = Javalin.create(c -> {

@@ -80,6 +80,15 @@ final class MetaRoutes {
         return bib >= 0 && (json < 0 || bib < json);
     }
 
+    /** {@link #wantsBibtex} without refusing a bad {@code cite} (the handler refuses it). */
+    static boolean wantsBibtexQuietly(Context ctx) {
+        try {
+            return wantsBibtex(ctx);
+        } catch (ApiProblem e) {
+            return false;
+        }
+    }
+
     /** The software itself, as its CITATION.cff describes it, with this build's version and commit. */
     static String softwareCitation() {
         BuildInfo b = BuildInfo.CURRENT;
