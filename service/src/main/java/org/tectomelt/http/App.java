@@ -94,6 +94,12 @@ public final class App {
                 sf.directory = "/public";
                 sf.location = Location.CLASSPATH;
             });
+            // the API reference's renderer, from the packaged webjar (GET /docs loads it from here)
+            c.staticFiles.add(sf -> {
+                sf.hostedPath = MetaRoutes.DOCS_UI_PATH;
+                sf.directory = MetaRoutes.docsUiDirectory();
+                sf.location = Location.CLASSPATH;
+            });
             Cors.configure(c, config.corsOrigins());
             // graceful stop, bodies read without a thread, threads per client, problem+json from Jetty itself
             c.jetty.modifyServer(server -> JettySetup.configure(server, config));

@@ -5,6 +5,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.util.List;
+import java.util.Properties;
 
 /** Routes about the service itself: health and the OpenAPI document. */
 final class MetaRoutes {
@@ -21,7 +22,44 @@ final class MetaRoutes {
         return List.of(
                 Route.liveGet("/v1/health", MetaRoutes::health),
                 Route.get("/v1/citations", MetaRoutes::citations),
+                Route.get("/docs", MetaRoutes::docs),
                 Route.get("/openapi.yaml", MetaRoutes::spec));
+    }
+
+    /** Where the renderer's files are served (from the swagger-ui webjar in the jar). */
+    static final String DOCS_UI_PATH = "/docs/ui";
+
+    private static final byte[] DOCS = load("/docs/index.html");
+
+    /** The classpath folder of the packaged swagger-ui webjar, whatever its version. */
+    static String docsUiDirectory() {
+        Properties p = new Properties();
+        try (InputStream in = MetaRoutes.class.getResourceAsStream(
+                "/META-INF/maven/org.webjars/swagger-ui/pom.properties")) {
+            if (in == null) {
+                throw new IllegalStateException("the build did not package the swagger-ui webjar");
+            }
+            p.load(in);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+        return "/META-INF/resources/webjars/swagger-ui/" + p.getProperty("version");
+    }
+
+    /** {@code GET /docs}: the rendered API reference of {@code /openapi.yaml}, every file from this jar. */
+    static void docs(Context ctx) {
+        ctx.contentType("text/html; charset=utf-8").result(DOCS);
+    }
+
+    private static byte[] load(String resource) {
+        try (InputStream in = MetaRoutes.class.getResourceAsStream(resource)) {
+            if (in == null) {
+                throw new IllegalStateException("the build did not package " + resource);
+            }
+            return in.readAllBytes();
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
     }
 
     /** Health body: the build's version and the git commit it was built from. */

@@ -61,4 +61,19 @@ class MetaContractTest {
         TestServer.given().header("X-Request-Id", "bad id <script>").get("/v1/health").then()
                 .header("X-Request-Id", matchesPattern("[0-9a-f-]{36}"));
     }
+
+    @Test
+    void docsRendersTheSpecFromFilesInTheJar() {
+        String html = TestServer.given().get("/docs").then().statusCode(200)
+                .contentType(startsWith("text/html")).extract().asString();
+        org.junit.jupiter.api.Assertions.assertTrue(html.contains("src=\"/docs/ui/swagger-ui-bundle.js\""), html);
+        org.junit.jupiter.api.Assertions.assertFalse(html.contains("http://") || html.contains("https://"),
+                "no external resource: " + html);
+        TestServer.given().get("/docs/ui/swagger-ui-bundle.js").then().statusCode(200);
+        TestServer.given().get("/docs/ui/swagger-ui.css").then().statusCode(200);
+        String init = TestServer.given().get("/docs/reference.js").then().statusCode(200).extract().asString();
+        org.junit.jupiter.api.Assertions.assertTrue(init.contains("url: \"/openapi.yaml\"") && init.contains("validatorUrl: null"),
+                init);
+        TestServer.given().get("/").then().body(containsString("href=\"docs\""));
+    }
 }
