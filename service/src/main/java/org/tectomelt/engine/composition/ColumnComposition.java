@@ -212,9 +212,9 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         }
 
         CompositionResult integrate(double[] z, double[] p, double[] fCol, DoubleUnaryOperator cpxExhaustion) {
-            double[][] inst = new double[n][ne];
-            double[][] acc = new double[n][ne];
-            double[][] res = new double[n][ne];
+            double[] inst = new double[n * ne];
+            double[] acc = new double[n * ne];
+            double[] res = new double[n * ne];
             double[] fOut = new double[n];
             double[] w = new double[n];
             double[] cpx = new double[n];
@@ -230,9 +230,9 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 fOut[i] = f;
                 w[i] = mineralogy.garnetFraction(p[i]);
                 cpx[i] = (1 - w[i]) * m[0][CPX] + w[i] * m[1][CPX];
-                output(w[i], inst[i], acc[i], res[i]);
+                output(w[i], inst, acc, res, i * ne);
             }
-            return new CompositionResult(ColumnComposition.this, z.clone(), p.clone(), fOut, w, cpx, inst, acc, res);
+            return new CompositionResult(ColumnComposition.this, ne, z.clone(), p.clone(), fOut, w, cpx, inst, acc, res);
         }
 
         private double clampFraction(double x) {
@@ -291,10 +291,9 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                     s += mix[j] * ke[j];
                     pb += pMix[j] * ke[j];
                 }
-                double b = s + retained;
-                double x = -(pb + r) * h / b;
+                double hb = h / (s + retained);
                 double qa = q[e];
-                double qb = qa * Math.exp(-h * scale / b * Shaw1970.log1pOverX(x));
+                double qb = qa * Math.exp(-hb * scale * Shaw1970.log1pOverX(-(pb + r) * hb));
                 q[e] = qb;
                 extracted[e] += qa - qb;
             }
@@ -356,11 +355,12 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         }
 
         /** Concentrations at the current state for garnet share {@code w}. */
-        private void output(double w, double[] inst, double[] acc, double[] res) {
+        private void output(double w, double[] inst, double[] acc, double[] res, int at) {
             blend(w, mix, null);
             boolean open = f > phi;
             double retained = open ? r * (1 - f) : f;
-            double solid = 1 - f;
+            double perSolid = 1 / (1 - f);
+            double perMelt = f > 0 ? 1 / f : 0.0;
             for (int e = 0; e < ne; e++) {
                 double[] ke = k[e];
                 double s = 0;
@@ -368,9 +368,9 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                     s += mix[j] * ke[j];
                 }
                 double cl = q[e] / (s + retained);
-                inst[e] = cl;
-                res[e] = cl * s / solid;
-                acc[e] = f > 0 ? (extracted[e] + cl * retained) / f : cl;
+                inst[at + e] = cl;
+                res[at + e] = cl * s * perSolid;
+                acc[at + e] = f > 0 ? (extracted[e] + cl * retained) * perMelt : cl;
             }
         }
     }

@@ -17,14 +17,16 @@ public final class CompositionResult {
     private final double[] meltFraction;
     private final double[] garnetFraction;
     private final double[] cpx;
-    private final double[][] instantaneous;
-    private final double[][] accumulated;
-    private final double[][] residue;
+    private final int ne;
+    private final double[] instantaneous;
+    private final double[] accumulated;
+    private final double[] residue;
 
-    CompositionResult(ColumnComposition model, double[] depth, double[] pressure, double[] meltFraction,
-                      double[] garnetFraction, double[] cpx, double[][] instantaneous, double[][] accumulated,
-                      double[][] residue) {
+    CompositionResult(ColumnComposition model, int ne, double[] depth, double[] pressure, double[] meltFraction,
+                      double[] garnetFraction, double[] cpx, double[] instantaneous, double[] accumulated,
+                      double[] residue) {
         this.model = model;
+        this.ne = ne;
         this.depth = depth;
         this.pressure = pressure;
         this.meltFraction = meltFraction;
@@ -78,17 +80,17 @@ public final class CompositionResult {
 
     /** Instantaneous melt leaving (or in equilibrium with) the residue at point {@code i} (ppm). */
     public double instantaneousMelt(int i, int element) {
-        return instantaneous[i][element];
+        return instantaneous[i * ne + element];
     }
 
     /** All melt made up to point {@code i}, extracted and retained (ppm); the first drop at F = 0. */
     public double accumulatedMelt(int i, int element) {
-        return accumulated[i][element];
+        return accumulated[i * ne + element];
     }
 
     /** Solid residue at point {@code i} (ppm). */
     public double residue(int i, int element) {
-        return residue[i][element];
+        return residue[i * ne + element];
     }
 
     /** Index of {@code e} among the elements. */
@@ -117,7 +119,11 @@ public final class CompositionResult {
     public Pooled pooledActive() {
         requireMelt();
         int top = size() - 1;
-        return new Pooled(meltFraction[top], accumulated[top].clone(), residue[top].clone());
+        double[] melt = new double[ne];
+        double[] res = new double[ne];
+        System.arraycopy(accumulated, top * ne, melt, 0, ne);
+        System.arraycopy(residue, top * ne, res, 0, ne);
+        return new Pooled(meltFraction[top], melt, res);
     }
 
     /**
@@ -134,7 +140,6 @@ public final class CompositionResult {
      */
     public Pooled pooledPassive(double maxDepth) {
         requireMelt();
-        int ne = elements().size();
         double[] fc = new double[ne];
         double[] rc = new double[ne];
         double fInt = 0;
@@ -156,10 +161,12 @@ public final class CompositionResult {
             height += dz;
             for (int e = 0; e < ne; e++) {
                 // interpolate the products, so that F·C̄_L + (1 − F)·C_s = C₀ holds at the cut as well
-                double meltDeep = meltFraction[i] * accumulated[i][e];
-                double meltUp = fUp * accumulated[i + 1][e];
-                double resDeep = (1 - meltFraction[i]) * residue[i][e];
-                double resUp = (1 - fUp) * residue[i + 1][e];
+                int deep = i * ne + e;
+                int up = deep + ne;
+                double meltDeep = meltFraction[i] * accumulated[deep];
+                double meltUp = fUp * accumulated[up];
+                double resDeep = (1 - meltFraction[i]) * residue[deep];
+                double resUp = (1 - fUp) * residue[up];
                 fc[e] += 0.5 * dz * (meltUp + t * (meltDeep - meltUp) + meltUp);
                 rc[e] += 0.5 * dz * (resUp + t * (resDeep - resUp) + resUp);
             }
