@@ -33,7 +33,8 @@ public final class Operations {
         return new Operations(List.of(
                 new PressureOperation(config),
                 new MeltFractionOperation(config),
-                new MidOceanRidgeOperation()));
+                new MidOceanRidgeOperation(),
+                new MeltCompositionOperation()));
     }
 
     /** Every operation with the embedded default caps. */

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.tectomelt.engine.composition.CompositionTables;
 import org.tectomelt.engine.melting.Lithologies;
 import org.tectomelt.engine.thermal.LithostaticColumn;
 
@@ -24,7 +25,11 @@ class SpecDefaultsMatchEngineTest {
             new Pair("/v1/pressure", "crustDensityKgPerM3", LithostaticColumn.CRUST_DENSITY),
             new Pair("/v1/pressure", "mantleDensityKgPerM3", LithostaticColumn.MANTLE_DENSITY),
             new Pair("/v1/pressure", "gravityMPerS2", LithostaticColumn.G),
-            new Pair("/v1/settings/mid-ocean-ridge", "lithology", Lithologies.defaultMantle().id()));
+            new Pair("/v1/settings/mid-ocean-ridge", "lithology", Lithologies.defaultMantle().id()),
+            new Pair("/v1/melt-composition", "source", CompositionTables.defaultSource().id()),
+            new Pair("/v1/melt-composition", "partitionCoefficients",
+                    CompositionTables.defaultPartitionCoefficients().id()),
+            new Pair("/v1/melt-composition", "normalisation", CompositionTables.defaultNormalisation().id()));
 
     @Test
     void everyPairedDefaultIsTheEnginesValue() {
