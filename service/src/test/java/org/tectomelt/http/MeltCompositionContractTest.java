@@ -11,11 +11,14 @@ import static org.hamcrest.Matchers.nullValue;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.tectomelt.http.Problem.assertInvalidField;
+import static org.tectomelt.http.Problem.assertProblem;
 
+import io.restassured.http.ContentType;
 import io.restassured.path.json.JsonPath;
 import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.tectomelt.Config;
 
 /** {@code POST /v1/melt-composition}: results, the tables cited, CSV, and a 400 naming the field for bad input. */
 class MeltCompositionContractTest {
@@ -159,5 +162,17 @@ class MeltCompositionContractTest {
         assertEquals("Lu", j.getList("elements").get(24));
         Map<String, Object> melt = j.getMap("pooled.meltPpm");
         assertEquals(j.getList("elements"), List.copyOf(melt.keySet()));
+    }
+
+    @Test
+    void wrongMediaTypeAndOversizedBodiesAreRefused() {
+        assertProblem(TestServer.given().contentType(ContentType.TEXT).body("{}").post(PATH), 415,
+                "unsupported-media-type");
+        StringBuilder big = new StringBuilder("{" + RIDGE + ", \"elements\": [");
+        while (big.length() < Config.defaults().maxBodyBytes() + 10) {
+            big.append("\"La\",");
+        }
+        big.append("\"Sm\"]}");
+        assertProblem(TestServer.json(big.toString()).post(PATH), 413, "body-too-large");
     }
 }
