@@ -13,7 +13,7 @@ import org.tectomelt.engine.column.DecompressionColumn;
 import org.tectomelt.engine.composition.ColumnComposition;
 import org.tectomelt.engine.composition.CompositionResult;
 import org.tectomelt.engine.composition.Element;
-import org.tectomelt.engine.composition.MeltingMode;
+import org.tectomelt.engine.column.MeltingMode;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
 
 /**

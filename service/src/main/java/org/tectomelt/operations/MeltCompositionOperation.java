@@ -18,7 +18,7 @@ import org.tectomelt.engine.composition.CompositionTables;
 import org.tectomelt.engine.composition.Element;
 import org.tectomelt.engine.composition.ElementAbundances;
 import org.tectomelt.engine.composition.MantleMineralogy;
-import org.tectomelt.engine.composition.MeltingMode;
+import org.tectomelt.engine.column.MeltingMode;
 import org.tectomelt.engine.composition.Mineral;
 import org.tectomelt.engine.composition.NormalisedRatio;
 import org.tectomelt.engine.composition.PartitionCoefficients;

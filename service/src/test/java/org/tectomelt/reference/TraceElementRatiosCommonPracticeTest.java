@@ -13,7 +13,7 @@ import org.tectomelt.engine.composition.CompositionResult;
 import org.tectomelt.engine.composition.CompositionTables;
 import org.tectomelt.engine.composition.Element;
 import org.tectomelt.engine.composition.ElementAbundances;
-import org.tectomelt.engine.composition.MeltingMode;
+import org.tectomelt.engine.column.MeltingMode;
 import org.tectomelt.engine.composition.NormalisedRatio;
 import org.tectomelt.engine.composition.Shaw1970;
 import org.tectomelt.engine.melting.Katz2003Peridotite;

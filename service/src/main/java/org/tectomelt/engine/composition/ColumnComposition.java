@@ -9,6 +9,10 @@ import java.util.function.DoubleUnaryOperator;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.column.ColumnResult;
+import org.tectomelt.engine.column.DecompressionColumn;
+import org.tectomelt.engine.column.MeltingColumn;
+import org.tectomelt.engine.column.MeltingMode;
+import org.tectomelt.engine.column.SourceColumn;
 import org.tectomelt.engine.column.ProfilePoint;
 import org.tectomelt.engine.melting.MantleLithology;
 
@@ -126,9 +130,20 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             p[i] = pt.pressure();
             f[i] = pt.meltFraction();
         }
-        MantleLithology lith = column.column().lithology();
+        MantleLithology lith = peridotite(column.column());
         boolean declares = n > 0 && (lith.exhaustionMeltFraction(p[0]) < 1.0 || lith.exhaustionMeltFraction(p[n - 1]) < 1.0);
         return along(z, p, f, declares ? lith::exhaustionMeltFraction : null);
+    }
+
+    /** The one peridotite a column melts; trace elements are not modelled for a mixed source. */
+    private static MantleLithology peridotite(MeltingColumn column) {
+        if (column instanceof DecompressionColumn d) {
+            return d.lithology();
+        }
+        if (column instanceof SourceColumn s && s.lithologies().size() == 1) {
+            return s.lithologies().get(0);
+        }
+        throw new EngineException("trace elements are modelled for a source of one peridotite, not a mixed source");
     }
 
     /**

@@ -9,6 +9,7 @@ import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.column.ColumnResult;
 import org.tectomelt.engine.column.DecompressionColumn;
+import org.tectomelt.engine.column.MeltingMode;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
 import org.tectomelt.engine.melting.McKenzieBickle1988Peridotite;
 
