@@ -37,22 +37,6 @@ import org.tectomelt.engine.units.Units;
 public final class MeltCompositionOperation
         implements Operation<MeltCompositionOperation.Request, MeltCompositionOperation.Result> {
 
-    /** A decompression column, as {@code /v1/decompression-melting} takes it. */
-    public record ColumnSetup(String lithology, Double potentialTemperatureC, Double bulkWaterWtPct, Double lidDepthKm,
-                              String upwelling, Double stepKm) {
-    }
-
-    /** A hotspot, as {@code /v1/settings/hotspot} takes it. */
-    public record HotspotSetup(Double potentialTemperatureC, Double ambientPotentialTemperatureC,
-                               Double lithosphereThicknessKm, Double plumeRadiusKm, Double upwellingVelocityCmPerYr,
-                               Double bulkWaterWtPct, String lithology) {
-    }
-
-    /** A continental rift, as {@code /v1/settings/continental-rift} takes it. */
-    public record RiftSetup(Double potentialTemperatureC, Double stretchingFactor, Double lithosphereThicknessKm,
-                            Double crustThicknessKm, Double bulkWaterWtPct, String lithology) {
-    }
-
     /** Mineral/melt partition coefficients of one element, one per mineral. */
     public record MineralCoefficients(Double olivine, Double orthopyroxene, Double clinopyroxene, Double garnet,
                                       Double spinel) {
@@ -62,8 +46,8 @@ public final class MeltCompositionOperation
     }
 
     /** Request: exactly one of the four melting regimes plus the composition choices (the spec fills defaults). */
-    public record Request(ColumnSetup column, MidOceanRidgeOperation.Request midOceanRidge, HotspotSetup hotspot,
-                          RiftSetup continentalRift, List<String> elements, String source,
+    public record Request(DecompressionOperation.Request column, MidOceanRidgeOperation.Request midOceanRidge,
+                          HotspotOperation.Request hotspot, ContinentalRiftOperation.Request continentalRift, List<String> elements, String source,
                           Map<String, Double> sourceConcentrationsPpm, String partitionCoefficients,
                           Map<String, MineralCoefficients> userPartitionCoefficients, Double partitionCoefficientScale,
                           String meltingMode, Double retainedMeltFraction, String normalisation) {
@@ -358,7 +342,7 @@ public final class MeltCompositionOperation
     private static Regime regime(Rules rules, Request q, String which) {
         switch (which) {
             case "column" -> {
-                ColumnSetup s = q.column();
+                DecompressionOperation.Request s = q.column();
                 Rules at = rules.at("column");
                 MantleLithology lith = Choices.mantleLithology(at, s.lithology());
                 double water = Choices.mantleWater(at, lith, s.bulkWaterWtPct());
@@ -386,7 +370,7 @@ public final class MeltCompositionOperation
                         r.assumptions(), r.warnings());
             }
             case "hotspot" -> {
-                HotspotSetup s = q.hotspot();
+                HotspotOperation.Request s = q.hotspot();
                 Rules at = rules.at("hotspot");
                 MantleLithology lith = Choices.mantleLithology(at, s.lithology());
                 double water = Choices.mantleWater(at, lith, s.bulkWaterWtPct());
@@ -401,7 +385,7 @@ public final class MeltCompositionOperation
                         r.warnings());
             }
             default -> {
-                RiftSetup s = q.continentalRift();
+                ContinentalRiftOperation.Request s = q.continentalRift();
                 Rules at = rules.at("continentalRift");
                 MantleLithology lith = Choices.mantleLithology(at, s.lithology());
                 double water = Choices.mantleWater(at, lith, s.bulkWaterWtPct());
