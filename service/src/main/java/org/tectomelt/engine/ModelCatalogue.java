@@ -6,6 +6,10 @@ import java.util.List;
 import java.util.Map;
 import org.tectomelt.engine.column.DecompressionColumn;
 import org.tectomelt.engine.column.SourceColumn;
+import org.tectomelt.engine.composition.ColumnComposition;
+import org.tectomelt.engine.composition.MantleMineralogy;
+import org.tectomelt.engine.composition.Shaw1970;
+import org.tectomelt.engine.composition.Zou1998DynamicMelting;
 import org.tectomelt.engine.crust.HeatBudget;
 import org.tectomelt.engine.crust.Miao2014Conductivity;
 import org.tectomelt.engine.crust.SillModel;
@@ -53,6 +57,11 @@ public final class ModelCatalogue {
                 SourceColumn.WATER_EXTRACTION_INFO, SlowSpreadingConductiveLid.INFO, Hotspot.LID_EFFECT_INFO,
                 ContinentalRift.INFO,
                 ContinentalRift.RIFT_MELTING_INFO,
+                // trace elements
+                Shaw1970.INFO, Zou1998DynamicMelting.INFO, ColumnComposition.INFO,
+                MantleMineralogy.WORKMAN_HART_2005_MODE, MantleMineralogy.JOHNSON_1990_REACTION,
+                MantleMineralogy.WALTER_1998_REACTION, MantleMineralogy.ROBINSON_WOOD_1998,
+                MantleMineralogy.KLEMME_ONEILL_2000,
                 // crust
                 HeatBudget.INFO, Miao2014Conductivity.INFO, SillModel.ANNEN_SPARKS_2002, SillModel.ENTHALPY_METHOD)) {
             byId.putIfAbsent(m.id(), m);

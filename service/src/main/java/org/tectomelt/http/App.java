@@ -150,6 +150,8 @@ public final class App {
             return r.handler();
         }
         return ctx -> {
+            // the build that answers, on every computed answer (a cached one included)
+            Provenance.headers(ctx);
             String etag = keys.etag(ctx);
             if (etag != null && RequestKey.matches(ctx.header("If-None-Match"), etag)) {
                 ctx.header("ETag", etag).status(304);

@@ -66,7 +66,6 @@ final class OperationHandler {
         List<String> fields = fields(ctx);
         boolean csv = wantsCsv(ctx);
         ObjectNode tree = Json.mapper().valueToTree(result);
-        Provenance.headers(ctx);
         if (MetaRoutes.wantsBibtex(ctx)) {
             Responses.bytes(ctx, new Responses.Written(MetaRoutes.BIBTEX + "; charset=utf-8",
                     Provenance.bibtex(tree).getBytes(StandardCharsets.UTF_8)));

@@ -71,7 +71,7 @@ class MetaContractTest {
                 "no external resource: " + html);
         TestServer.given().get("/docs/ui/swagger-ui-bundle.js").then().statusCode(200);
         TestServer.given().get("/docs/ui/swagger-ui.css").then().statusCode(200);
-        String init = TestServer.given().get("/docs/reference.js").then().statusCode(200).extract().asString();
+        String init = TestServer.given().get("/docs-reference.js").then().statusCode(200).extract().asString();
         org.junit.jupiter.api.Assertions.assertTrue(init.contains("url: \"/openapi.yaml\"") && init.contains("validatorUrl: null"),
                 init);
         TestServer.given().get("/").then().body(containsString("href=\"docs\""));
