@@ -53,6 +53,10 @@ svg.plot .role-seq-3 { stroke: #7f3a3f; }
 svg.plot .role-seq-4 { stroke: #4d2f4f; }
 svg.plot .role-seq-5 { stroke: #22263f; }
 svg.plot .dot { stroke: none; fill: #22577a; }
+svg.plot .band { stroke: none; fill: #22577a; fill-opacity: 0.2; }
+svg.plot .bar { stroke: #fff; stroke-width: 0.5; fill: #22577a; fill-opacity: 0.75; }
+svg.plot .band.role-melt, svg.plot .bar.role-melt { fill: #b5483a; }
+svg.plot .band.role-solidus, svg.plot .bar.role-solidus { fill: #5b3f8c; }
 svg.plot .level { stroke: #7d776b; stroke-dasharray: 3 3; stroke-width: 1; }
 svg.plot .level-label, svg.plot .mark-label, svg.plot .curve-label { font-size: 11.5px; fill: #4a453c;
   paint-order: stroke; stroke: #fff; stroke-width: 3px; stroke-linejoin: round; }
@@ -233,7 +237,8 @@ export function breakJumps(points, axis) {
 function finitePoints(series) {
   const out = [];
   for (const s of series) {
-    for (const p of s.points) {
+    const all = s.points.concat(s.band ? s.band.lower.concat(s.band.upper) : [], s.bars ? s.points.map((q) => [q[0], 0]) : []);
+    for (const p of all) {
       if (isFinite(p[0]) && isFinite(p[1])) {
         out.push(p);
       }
@@ -243,11 +248,48 @@ function finitePoints(series) {
 }
 
 /**
+ * One axis: linear (ticks at nice steps, ends on ticks), logarithmic (`log: true`, ticks at
+ * decades, with 2 and 5 when the range is short) or categorical (`categories: [names]`, one tick
+ * per name at 0, 1, 2 …). Works in "axis units" t (log10 of the value on a log axis).
+ * Returns {lo, hi (in t), t(v), v(t), ticks: [{t, label}]}.
+ */
+export function axisScale(a, lo, hi, n, viewport) {
+  if (a && Array.isArray(a.categories)) {
+    const c = a.categories;
+    const r = viewport || [-0.5, c.length - 0.5];
+    const ticks = c.map((name, i) => ({ t: i, label: String(name) })).filter((k) => k.t >= r[0] - 1e-9 && k.t <= r[1] + 1e-9);
+    return { lo: r[0], hi: r[1], t: (v) => v, v: (t) => t, ticks, kind: "categories" };
+  }
+  if (a && a.log) {
+    const tlo = viewport ? viewport[0] : Math.floor(Math.log10(lo > 0 ? lo : 1e-3) + 1e-9);
+    let thi = viewport ? viewport[1] : Math.ceil(Math.log10(hi > 0 ? hi : 1) - 1e-9);
+    if (!viewport && thi <= tlo) {
+      thi = tlo + 1;
+    }
+    const ticks = [];
+    const short = thi - tlo <= 2.01;
+    for (let k = Math.floor(tlo) - 1; k <= Math.ceil(thi); k++) {
+      for (const f of short ? [1, 2, 5] : [1]) {
+        const t = k + Math.log10(f);
+        if (t >= tlo - 1e-9 && t <= thi + 1e-9) {
+          ticks.push({ t, label: Number((f * Math.pow(10, k)).toPrecision(3)).toString() });
+        }
+      }
+    }
+    return { lo: tlo, hi: thi, t: (v) => (v > 0 ? Math.log10(v) : NaN), v: (t) => Math.pow(10, t), ticks, kind: "log" };
+  }
+  const s = viewport ? { lo: viewport[0], hi: viewport[1], step: niceStep(viewport[1] - viewport[0], n) } : niceScale(lo, hi, n);
+  const tk = s.ticks || ticksWithStep(s.lo, s.hi, s.step);
+  return { lo: s.lo, hi: s.hi, t: (v) => v, v: (t) => t, ticks: tk.map((v) => ({ t: v, label: fmtTick(v, s.step) })), kind: "linear" };
+}
+
+/**
  * The data ranges a plot of `spec` shows by default: {x: [lo, hi], y: [lo, hi]} before rounding
  * to ticks. A depth axis starts at the surface unless the spec gives y.domain.
  */
 export function dataDomain(spec) {
-  const pts = finitePoints(spec.series);
+  const logX = spec.x && spec.x.log, logY = spec.y && spec.y.log;
+  const pts = finitePoints(spec.series).filter((p) => (!logX || p[0] > 0) && (!logY || p[1] > 0));
   const xs = pts.map((p) => p[0]), ys = pts.map((p) => p[1]);
   for (const mk of spec.marks || []) {
     if (isFinite(mk.x) && isFinite(mk.y)) {
@@ -266,8 +308,10 @@ export function dataDomain(spec) {
     const d = 0.03 * (r[1] - r[0]);
     return [r[0] >= 0 && r[0] - d < 0 ? 0 : r[0] - d, r[1] <= 0 && r[1] + d > 0 ? 0 : r[1] + d];
   };
-  x = pad(x);
-  if (!spec.invertY) {
+  if (!logX && !(spec.x && spec.x.categories)) {
+    x = pad(x);
+  }
+  if (!spec.invertY && !logY) {
     y = pad(y);
   }
   // a mark on the frame would be cut in half: leave it some room
@@ -366,7 +410,9 @@ export function drawPlot(spec, options) {
     : Math.min(360, Math.max(220, pwGuess * 0.7))));
   const items = series.filter((s) => s.points.some(([x, y]) => isFinite(x) && isFinite(y)) && s.legend !== false);
   const markItems = (spec.marks || []).filter((mk) => isFinite(mk.x) && isFinite(mk.y));
-  const legendRows = items.map((s) => ({ label: s.label, role: s.role, color: s.color }));
+  const legendRows = series.filter((s) => s.legend !== false && (s.band || s.bars) && !items.includes(s))
+    .map((s) => ({ label: s.label, role: s.role, color: s.color, swatch: s.bars ? "bar" : "band" }))
+    .concat(items.map((s) => ({ label: s.label, role: s.role, color: s.color, swatch: s.bars ? "bar" : undefined })));
   if (markItems.length) {
     legendRows.push({ label: markItems[0].label || "point", role: "mark-item" });
   }
@@ -393,19 +439,20 @@ export function drawPlot(spec, options) {
   const vp = opt.viewport;
   const nx = Math.max(3, Math.min(8, Math.floor(pw / 75)));
   const ny = Math.max(3, Math.min(8, Math.floor(ph / 45)));
-  const xs = vp && vp.x ? { lo: vp.x[0], hi: vp.x[1], step: niceStep(vp.x[1] - vp.x[0], nx) } : niceScale(dom.x[0], dom.x[1], nx);
-  const ys = vp && vp.y ? { lo: vp.y[0], hi: vp.y[1], step: niceStep(vp.y[1] - vp.y[0], ny) } : niceScale(dom.y[0], dom.y[1], ny);
-  xs.ticks = xs.ticks || ticksWithStep(xs.lo, xs.hi, xs.step);
-  ys.ticks = ys.ticks || ticksWithStep(ys.lo, ys.hi, ys.step);
-  const sx = (x) => m.l + (x - xs.lo) / (xs.hi - xs.lo) * pw;
-  const sy = spec.invertY
-    ? (y) => m.t + (y - ys.lo) / (ys.hi - ys.lo) * ph
-    : (y) => m.t + ph - (y - ys.lo) / (ys.hi - ys.lo) * ph;
+  const xs = axisScale(spec.x, dom.x[0], dom.x[1], nx, vp && vp.x);
+  const ys = axisScale(spec.y, dom.y[0], dom.y[1], ny, vp && vp.y);
+  const sxt = (t) => m.l + (t - xs.lo) / (xs.hi - xs.lo) * pw;
+  const syt = spec.invertY
+    ? (t) => m.t + (t - ys.lo) / (ys.hi - ys.lo) * ph
+    : (t) => m.t + ph - (t - ys.lo) / (ys.hi - ys.lo) * ph;
+  const sx = (x) => sxt(xs.t(x));
+  const sy = (y) => syt(ys.t(y));
 
   const svg = el("svg", {
     xmlns: SVG_NS, viewBox: `0 0 ${W} ${H}`, width: W, height: H, class: "plot", role: "img",
     "aria-label": spec.title, "data-title": spec.title,
-    "data-x-domain": `${xs.lo},${xs.hi}`, "data-y-domain": `${ys.lo},${ys.hi}`,
+    "data-x-domain": `${xs.v(xs.lo)},${xs.v(xs.hi)}`, "data-y-domain": `${ys.v(ys.lo)},${ys.v(ys.hi)}`,
+    "data-x-scale": xs.kind, "data-y-scale": ys.kind,
   });
   svg.appendChild(el("title", {}, spec.title));
   titleLines.forEach((t, i) => svg.appendChild(el("text", { x: m.l, y: 18 + 17 * i, class: "plot-title" }, t)));
@@ -414,19 +461,19 @@ export function drawPlot(spec, options) {
   // grid and ticks; the axis ends are ticks
   const axisY = spec.invertY ? m.t : m.t + ph;
   const gx = el("g", { class: "axis-x" });
-  for (const v of xs.ticks) {
-    const X = sx(v);
+  for (const k of xs.ticks) {
+    const X = sxt(k.t);
     gx.appendChild(el("line", { x1: X, x2: X, y1: m.t, y2: m.t + ph, class: "grid" }));
     gx.appendChild(el("text", {
       x: X, y: spec.invertY ? axisY - 7 : axisY + 17, class: "tick tick-x", "text-anchor": "middle",
-    }, fmtTick(v, xs.step)));
+    }, k.label));
   }
   svg.appendChild(gx);
   const gy = el("g", { class: "axis-y" });
-  for (const v of ys.ticks) {
-    const Y = sy(v);
+  for (const k of ys.ticks) {
+    const Y = syt(k.t);
     gy.appendChild(el("line", { x1: m.l, x2: m.l + pw, y1: Y, y2: Y, class: "grid" }));
-    gy.appendChild(el("text", { x: m.l - 7, y: Y + 4, class: "tick tick-y", "text-anchor": "end" }, fmtTick(v, ys.step)));
+    gy.appendChild(el("text", { x: m.l - 7, y: Y + 4, class: "tick tick-y", "text-anchor": "end" }, k.label));
   }
   svg.appendChild(gy);
   svg.appendChild(el("text", {
@@ -439,7 +486,7 @@ export function drawPlot(spec, options) {
 
   let y2pairs = null;
   if (spec.y2) {
-    y2pairs = drawSecondAxis(svg, spec.y2, [ys.lo, ys.hi], sy, m.l + pw, m.t + ph / 2, ny);
+    y2pairs = drawSecondAxis(svg, spec.y2, [ys.v(ys.lo), ys.v(ys.hi)], sy, m.l + pw, m.t + ph / 2, ny);
   }
 
   const clipId = "clip-" + Math.random().toString(36).slice(2);
@@ -452,9 +499,44 @@ export function drawPlot(spec, options) {
   svg.appendChild(area);
 
   for (const lv of spec.levels || []) {
-    if (isFinite(lv.y) && lv.y >= Math.min(ys.lo, ys.hi) && lv.y <= Math.max(ys.lo, ys.hi)) {
+    if (isFinite(lv.y) && isFinite(sy(lv.y)) && sy(lv.y) >= m.t - 0.5 && sy(lv.y) <= m.t + ph + 0.5) {
       const Y = sy(lv.y);
       area.appendChild(el("line", { x1: m.l, x2: m.l + pw, y1: Y, y2: Y, class: "level" }));
+    }
+  }
+
+  // bands (a range between two curves) and bars, under the curves
+  for (const s of series) {
+    const fill = s.color ? `fill: ${s.color}` : undefined;
+    if (s.band) {
+      const ring = s.band.upper.concat(s.band.lower.slice().reverse())
+        .filter(([x, y]) => isFinite(sx(x)) && isFinite(sy(y)));
+      if (ring.length > 2) {
+        area.appendChild(el("path", {
+          d: ring.map(([x, y], i) => (i ? "L" : "M") + sx(x).toFixed(2) + "," + sy(y).toFixed(2)).join("") + "Z",
+          class: `band role-${s.role || "path"}`, "data-series": s.label, style: fill,
+        }));
+      }
+    }
+    if (s.bars) {
+      const xsOk = s.points.map((q) => q[0]).filter((x) => isFinite(x)).sort((a, b) => a - b);
+      let gap = Infinity;
+      for (let i = 1; i < xsOk.length; i++) {
+        gap = Math.min(gap, xsOk[i] - xsOk[i - 1]);
+      }
+      const bw = s.barWidth || (isFinite(gap) ? gap * 0.85 : 1);
+      for (const [x, y] of s.points) {
+        if (!isFinite(x) || !isFinite(y)) {
+          continue;
+        }
+        const X0 = sx(x - bw / 2), X1 = sx(x + bw / 2);
+        const base = ys.kind === "log" ? m.t + (spec.invertY ? 0 : ph) : sy(Math.max(ys.v(Math.min(ys.lo, ys.hi)), Math.min(0, ys.v(Math.max(ys.lo, ys.hi)))));
+        const Y = sy(y);
+        area.appendChild(el("rect", {
+          x: Math.min(X0, X1), y: Math.min(Y, base), width: Math.abs(X1 - X0), height: Math.abs(base - Y),
+          class: `bar role-${s.role || "path"}`, "data-series": s.label, style: fill,
+        }));
+      }
     }
   }
 
@@ -463,7 +545,7 @@ export function drawPlot(spec, options) {
   series.forEach((s, i) => {
     let d = "", pen = false, n = 0;
     const pts = [];
-    for (const [x, y] of s.points) {
+    for (const [x, y] of s.bars ? [] : s.points) {
       if (isFinite(x) && isFinite(y)) {
         const X = sx(x), Y = sy(y);
         d += (pen ? "L" : "M") + X.toFixed(2) + "," + Y.toFixed(2);
@@ -500,7 +582,7 @@ export function drawPlot(spec, options) {
   const labels = el("g", { class: "labels" });
   const fs = FONT.label, lhh = fs + 3;
   for (const lv of spec.levels || []) {
-    if (!isFinite(lv.y) || !lv.label || lv.y < Math.min(ys.lo, ys.hi) || lv.y > Math.max(ys.lo, ys.hi)) {
+    if (!isFinite(lv.y) || !lv.label || !(sy(lv.y) >= m.t - 0.5 && sy(lv.y) <= m.t + ph + 0.5)) {
       continue;
     }
     const Y = sy(lv.y);
@@ -565,6 +647,9 @@ export function drawPlot(spec, options) {
       const Y = ly0 + legendHead + lh * row + lh / 2;
       if (s.role === "mark-item") {
         g.appendChild(el("path", { d: `M${lx + 7},${Y}l6,-6l6,6l-6,6z`, class: "mark" }));
+      } else if (s.swatch) {
+        g.appendChild(el("rect", { x: lx, y: Y - 6, width: 26, height: 12, class: `${s.swatch} role-${s.role || "path"}`,
+          style: s.color ? `fill: ${s.color}` : undefined }));
       } else {
         g.appendChild(el("line", {
           x1: lx, x2: lx + 26, y1: Y, y2: Y, class: `curve role-${s.role || "path"}`,
@@ -584,11 +669,14 @@ export function drawPlot(spec, options) {
     svg.appendChild(t);
   }
 
-  const invX = (X) => xs.lo + (X - m.l) / pw * (xs.hi - xs.lo);
-  const invY = spec.invertY
+  // frame.x / frame.y and invXt / invYt are in axis units (log10 on a log axis); invX / invY give values
+  const invXt = (X) => xs.lo + (X - m.l) / pw * (xs.hi - xs.lo);
+  const invYt = spec.invertY
     ? (Y) => ys.lo + (Y - m.t) / ph * (ys.hi - ys.lo)
     : (Y) => ys.lo + (m.t + ph - Y) / ph * (ys.hi - ys.lo);
-  svg.frame = { m, pw, ph, W, H, x: [xs.lo, xs.hi], y: [ys.lo, ys.hi], sx, sy, invX, invY, y2pairs, screen };
+  const invX = (X) => xs.v(invXt(X)), invY = (Y) => ys.v(invYt(Y));
+  svg.frame = { m, pw, ph, W, H, x: [xs.lo, xs.hi], y: [ys.lo, ys.hi], sx, sy, invX, invY, invXt, invYt, y2pairs, screen,
+    xScale: xs, yScale: ys };
   return svg;
 }
 
@@ -754,7 +842,7 @@ export function mountPlot(holder, spec, options) {
     reset() {
       handle.setViewport(null);
     },
-    /** Zooms by `factor` (> 1 zooms in) about the data point (cx, cy), the centre by default. */
+    /** Zooms by `factor` (> 1 zooms in) about (cx, cy) in axis units (log10 on a log axis), the centre by default. */
     zoom(factor, cx, cy) {
       const f = svg.frame;
       const x0 = cx === undefined ? (f.x[0] + f.x[1]) / 2 : cx, y0 = cy === undefined ? (f.y[0] + f.y[1]) / 2 : cy;
@@ -798,7 +886,8 @@ export function mountPlot(holder, spec, options) {
       return;
     }
     const x = f.invX(X), y = f.invY(Y);
-    const parts = [`${spec.x.label} ${fmtValue(x)} ${spec.x.unit || ""}`.trim(),
+    const xText = f.xScale.kind === "categories" ? String(spec.x.categories[Math.round(x)] ?? "") : fmtValue(x);
+    const parts = [`${spec.x.label} ${xText} ${spec.x.unit || ""}`.trim(),
       `${spec.y.label} ${fmtValue(y)} ${spec.y.unit || ""}`.trim()];
     if (f.y2pairs && spec.y2) {
       const v = interpolate(f.y2pairs, y);
@@ -873,13 +962,13 @@ export function mountPlot(holder, spec, options) {
       }
       const f0 = d.frame;
       if (d.box) {
-        const xa = f0.invX(Math.min(X, d.X)), xb = f0.invX(Math.max(X, d.X));
-        const ya = f0.invY(Y), yb = f0.invY(d.Y);
+        const xa = f0.invXt(Math.min(X, d.X)), xb = f0.invXt(Math.max(X, d.X));
+        const ya = f0.invYt(Y), yb = f0.invYt(d.Y);
         if (Math.abs(X - d.X) > 6 && Math.abs(Y - d.Y) > 6) {
           handle.setViewport({ x: [xa, xb], y: [Math.min(ya, yb), Math.max(ya, yb)] });
         }
       } else {
-        const dx = f0.invX(d.X) - f0.invX(X), dy = f0.invY(d.Y) - f0.invY(Y);
+        const dx = f0.invXt(d.X) - f0.invXt(X), dy = f0.invYt(d.Y) - f0.invYt(Y);
         handle.setViewport({ x: [f0.x[0] + dx, f0.x[1] + dx], y: [f0.y[0] + dy, f0.y[1] + dy] });
       }
     };
@@ -899,7 +988,7 @@ export function mountPlot(holder, spec, options) {
       }
       ev.preventDefault();
       const [X, Y] = local(ev);
-      handle.zoom(ev.deltaY < 0 ? 1.25 : 0.8, svg.frame.invX(X), svg.frame.invY(Y));
+      handle.zoom(ev.deltaY < 0 ? 1.25 : 0.8, svg.frame.invXt(X), svg.frame.invYt(Y));
     }, { passive: false });
     next.addEventListener("keydown", (ev) => {
       const keys = { "+": () => handle.zoom(1.5), "=": () => handle.zoom(1.5), "-": () => handle.zoom(1 / 1.5),

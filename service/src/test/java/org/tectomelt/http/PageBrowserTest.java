@@ -1279,4 +1279,48 @@ class PageBrowserTest {
         }
         browser.screenshot("docs");
     }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void plotModuleDrawsLogAxesCategoriesBandsAndBars() {
+        browser.open(page("pressure"));
+        Map<String, Object> r = inPage(""
+                + "const spider = plot.drawPlot({title: 'Normalised to a reference', x: {label: 'Element', categories: ['Rb', 'Ba', 'Th', 'Nb', 'La']},"
+                + "  y: {label: 'Sample / reference', log: true},"
+                + "  series: [{label: 'invented basalt', role: 'melt', points: [[0, 45], [1, 60], [2, 30], [3, 12], [4, 8]]}]}, {width: 400});"
+                + "document.body.append(spider);"
+                + "const f = spider.frame;"
+                + "const band = plot.drawPlot({title: 'Melt fraction with its 90 % range', x: {label: 'Tp', unit: '°C'}, y: {label: 'F', unit: '%'},"
+                + "  series: [{label: '90 % range', role: 'melt', points: [], band: {lower: [[1300, 5], [1400, 12]], upper: [[1300, 9], [1400, 18]]}},"
+                + "           {label: 'median', role: 'melt', points: [[1300, 7], [1400, 15]]}]}, {width: 400});"
+                + "const bars = plot.drawPlot({title: 'Posterior', x: {label: 'Tp', unit: '°C'}, y: {label: 'density'},"
+                + "  series: [{label: 'samples', role: 'path', bars: true, points: [[1300, 1], [1320, 4], [1340, 6], [1360, 2]]}]}, {width: 400});"
+                + "return {ticksX: [...spider.querySelectorAll('.tick-x')].map((t) => t.textContent),"
+                + "  ticksY: [...spider.querySelectorAll('.tick-y')].map((t) => t.textContent),"
+                + "  scale: spider.dataset.yScale, domain: spider.dataset.yDomain,"
+                + "  y45: f.sy(45), y10: f.sy(10), y100: f.sy(100), y1: f.sy(1), x2: f.sx(2), x0: f.sx(0), x4: f.sx(4),"
+                + "  back: f.invY(f.sy(30)),"
+                + "  bandPath: band.querySelector('path.band').getAttribute('d'), bandDomain: band.dataset.yDomain,"
+                + "  legend: [...band.querySelectorAll('.legend-text')].map((t) => t.textContent),"
+                + "  bars: bars.querySelectorAll('g.area rect.bar').length, barCurves: bars.querySelectorAll('path.curve').length,"
+                + "  barHeights: [...bars.querySelectorAll('g.area rect.bar')].map((b) => +b.getAttribute('height'))};");
+        assertEquals(null, r.get("error"));
+        assertEquals(List.of("Rb", "Ba", "Th", "Nb", "La"), r.get("ticksX"), "one tick per element, named");
+        assertEquals(List.of("1", "2", "5", "10", "20", "50", "100"), r.get("ticksY"), "1-2-5 in each decade over two decades");
+        assertEquals("log", r.get("scale"));
+        assertEquals("1,100", r.get("domain"));
+        // on a log axis equal ratios are equal distances: 1 → 10 as far as 10 → 100
+        assertEquals(num(r.get("y1")) - num(r.get("y10")), num(r.get("y10")) - num(r.get("y100")), 1e-6);
+        assertTrue(num(r.get("y45")) < num(r.get("y10")) && num(r.get("y45")) > num(r.get("y100")));
+        assertEquals(30.0, num(r.get("back")), 1e-9, "the readout's inverse gives the value back");
+        assertEquals((num(r.get("x0")) + num(r.get("x4"))) / 2, num(r.get("x2")), 1e-6, "categories evenly spaced");
+        String band = (String) r.get("bandPath");
+        assertEquals(4, vertices(band).size(), "upper and lower edges closed into one shape: " + band);
+        assertTrue(band.endsWith("Z"), band);
+        assertEquals(List.of("90 % range", "median"), r.get("legend"));
+        assertEquals(4L, ((Number) r.get("bars")).longValue());
+        assertEquals(0L, ((Number) r.get("barCurves")).longValue(), "bars are not also drawn as a line");
+        List<Object> hs = (List<Object>) r.get("barHeights");
+        assertEquals(6.0 / 4.0, num(hs.get(2)) / num(hs.get(1)), 1e-6, "bar heights in proportion from a zero base");
+    }
 }
