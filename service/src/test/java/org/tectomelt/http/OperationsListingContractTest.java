@@ -44,6 +44,13 @@ class OperationsListingContractTest {
     }
 
     @Test
+    void theListingCarriesAnETagAndAnswers304ToIt() {
+        String etag = TestServer.given().get("/v1/operations").then().statusCode(200).extract().header("ETag");
+        assertTrue(etag != null && etag.startsWith("\""), "ETag " + etag);
+        TestServer.given().header("If-None-Match", etag).get("/v1/operations").then().statusCode(304);
+    }
+
+    @Test
     void theListingThroughTheGeneratedClient() throws ApiException {
         ApiClient c = new ApiClient();
         c.updateBaseUri(TestServer.baseUri());
