@@ -35,14 +35,51 @@ final class OperationHandler {
     private OperationHandler() {
     }
 
-    /** One POST route per operation, heavy when its cost class is. */
+    /** One POST route per operation, heavy when its cost class is, and {@code GET /v1/operations}. */
     static List<Route> routes(Invoker invoker) {
         List<Route> routes = new ArrayList<>();
+        byte[] listing = Json.write(listing(invoker));
+        routes.add(Route.get("/v1/operations", ctx -> Responses.bytes(ctx, new Responses.Written(Responses.JSON,
+                listing))));
         for (Operation<?, ?> op : invoker.operations().list()) {
             Handler h = ctx -> handle(ctx, invoker, op);
             routes.add(op.costClass() == Cost.HEAVY ? Route.heavyPost(op.path(), h) : Route.post(op.path(), h));
         }
         return routes;
+    }
+
+    /** One entry of {@code GET /v1/operations}. */
+    record OperationInfo(String name, String method, String path, String cost, String rows, List<InputInfo> inputs,
+                         List<OutputInfo> outputs) {
+    }
+
+    /** A sweepable input with its range from the spec. */
+    record InputInfo(String name, String unit, String description, boolean sampleable, Double minimum,
+                     Double maximum, @com.fasterxml.jackson.annotation.JsonProperty("default") Double defaultValue) {
+    }
+
+    /** A scalar output. */
+    record OutputInfo(String name, String unit, String description) {
+    }
+
+    /** The listing: the catalogue's registrations with the spec's ranges and defaults. */
+    static List<OperationInfo> listing(Invoker invoker) {
+        List<OperationInfo> out = new ArrayList<>();
+        for (Operation<?, ?> op : invoker.operations().list()) {
+            List<InputInfo> inputs = new ArrayList<>();
+            for (var in : op.inputs()) {
+                var r = invoker.spec().range(op.path(), in.name()).orElseThrow(() -> new IllegalStateException(
+                        op.name() + " declares input " + in.name() + ", which the spec does not document"));
+                Double d = r.defaultValue() != null && r.defaultValue().isNumber() ? r.defaultValue().asDouble() : null;
+                inputs.add(new InputInfo(in.name(), in.unit(), in.description(), in.sampleable(), r.minimum(),
+                        r.maximum(), d));
+            }
+            List<OutputInfo> outputs = op.outputs().stream()
+                    .map(o -> new OutputInfo(o.name(), o.unit(), o.description())).toList();
+            out.add(new OperationInfo(op.name(), "POST", op.path(), op.costClass().name().toLowerCase(Locale.ROOT),
+                    op.rows(), inputs, outputs));
+        }
+        return out;
     }
 
     private static <Q extends Record, R extends Record> void handle(Context ctx, Invoker invoker, Operation<Q, R> op)

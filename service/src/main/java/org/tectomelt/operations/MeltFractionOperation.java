@@ -86,6 +86,12 @@ public final class MeltFractionOperation
     }
 
     @Override
+    public String rows() {
+        return "results";
+    }
+
+    /** A batch's rows; a single-point answer has none. */
+    @Override
     public String rows(Result r) {
         return r.results() != null ? "results" : null;
     }
