@@ -2,8 +2,6 @@ package org.tectomelt.operations;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.tectomelt.engine.column.ColumnResult;
-import org.tectomelt.engine.column.LithologyMelting;
 import org.tectomelt.engine.column.MantleSource;
 import org.tectomelt.engine.column.MeltingMode;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
@@ -40,6 +38,13 @@ final class Sources {
                 new Input("pyroxeniteFraction", "1", "mass fraction of pyroxenite in the source", true),
                 new Input("pyroxeniteSolidusShiftK", "K", "shift of the pyroxenite's whole melting interval", true),
                 new Input("retainedMeltFraction", "1", "melt kept in the residue (near-fractional melting)", true));
+    }
+
+    /** {@code own} inputs followed by the source inputs. */
+    static List<Input> with(Input... own) {
+        List<Input> all = new ArrayList<>(List.of(own));
+        all.addAll(inputs());
+        return List.copyOf(all);
     }
 
     /**
