@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.tectomelt.engine.column.ColumnResult;
 import org.tectomelt.engine.column.ColumnState;
+import org.tectomelt.engine.column.LithologyMelting;
 import org.tectomelt.engine.column.ProfilePoint;
 import org.tectomelt.engine.column.Upwelling;
 import org.tectomelt.engine.units.Units;
@@ -22,33 +23,51 @@ public final class Columns {
     public record Top(double depthKm, double pressureGPa, double temperatureC, double meltFraction) {
     }
 
-    /** One profile point. */
+    /**
+     * One profile point; {@code pyroxeniteMeltFraction} is the pyroxenite's own extent of melting
+     * (null for a peridotite-only source), {@code meltFraction} the source's mass-weighted one.
+     */
     public record Point(double depthKm, double pressureGPa, double temperatureC, double meltFraction,
-                        double productivityPercentPerGPa, double waterInMeltWtPct) {
+                        double productivityPercentPerGPa, double waterInMeltWtPct, double residueWaterWtPct,
+                        @ExplicitNull Double pyroxeniteMeltFraction) {
+    }
+
+    /** How one lithology of the source melted. */
+    public record LithologyShare(String lithology, double massFraction, @ExplicitNull Onset onset,
+                                 double maxMeltFraction, double topMeltFraction, double meltShare) {
     }
 
     /** The column inside a setting's result; absent quantities are explicit nulls. */
     public record Column(String upwelling, double lidDepthKm, @ExplicitNull Onset onset, @ExplicitNull Top top,
                          double maxMeltFraction, double meanMeltFraction, double meltThicknessKm,
                          double crustalThicknessKm, @ExplicitNull Double meanMeltingPressureGPa,
-                         List<Point> profile) {
+                         String meltingMode, @ExplicitNull Double pyroxeniteMeltShare,
+                         List<LithologyShare> lithologies, List<Point> profile) {
     }
 
     /** The column in API units. */
     static Column column(ColumnResult r) {
         Onset onset = r.onset().map(Columns::onset).orElse(null);
         Top top = r.top().map(Columns::top).orElse(null);
+        boolean mixed = r.lithologies().size() > 1;
         List<Point> profile = new ArrayList<>(r.profile().size());
         for (ProfilePoint p : r.profile()) {
             profile.add(new Point(Units.mToKm(p.depth()), Units.paToGpa(p.pressure()),
                     Units.kelvinToCelsius(p.temperature()), p.meltFraction(),
-                    Units.perPaToPercentPerGpa(p.productivity()), Units.fractionToWtPct(p.waterInMelt())));
+                    Units.perPaToPercentPerGpa(p.productivity()), Units.fractionToWtPct(p.waterInMelt()),
+                    Units.fractionToWtPct(p.residueWater()), mixed ? p.meltFractions().get(1) : null));
+        }
+        List<LithologyShare> shares = new ArrayList<>(r.lithologies().size());
+        for (LithologyMelting l : r.lithologies()) {
+            shares.add(new LithologyShare(l.lithology().id(), l.massFraction(), l.onset().map(Columns::onset)
+                    .orElse(null), l.maxMeltFraction(), l.topMeltFraction(), l.meltShare()));
         }
         Double meanP = r.meanMeltingPressure().isPresent()
                 ? Units.paToGpa(r.meanMeltingPressure().getAsDouble()) : null;
         return new Column(r.upwelling() == Upwelling.ACTIVE ? "active" : "passive", Units.mToKm(r.lidDepth()), onset,
                 top, r.maxMeltFraction(), r.meanMeltFraction(), Units.mToKm(r.meltThickness()),
-                Units.mToKm(r.crustalThickness()), meanP, profile);
+                Units.mToKm(r.crustalThickness()), meanP, r.mode().apiName(),
+                mixed ? r.lithologies().get(1).meltShare() : null, shares, profile);
     }
 
     /** Outputs every column offers, read through {@code column} from a result. */
@@ -66,7 +85,9 @@ public final class Columns {
                 new Output<>(p + "meltThicknessKm", "km", "melt thickness (∫F dz)",
                         r -> column.apply(r).meltThicknessKm()),
                 new Output<>(p + "meanMeltingPressureGPa", "GPa", "mean pressure of melting",
-                        r -> column.apply(r).meanMeltingPressureGPa()));
+                        r -> column.apply(r).meanMeltingPressureGPa()),
+                new Output<>(p + "pyroxeniteMeltShare", "1", "share of the melt made by the pyroxenite",
+                        r -> column.apply(r).pyroxeniteMeltShare()));
     }
 
     private static Onset onset(ColumnState s) {

@@ -5,6 +5,7 @@ import java.util.List;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.melting.MantleLithology;
+import org.tectomelt.engine.column.MantleSource;
 import org.tectomelt.engine.settings.ContinentalRift;
 import org.tectomelt.engine.units.Units;
 
@@ -14,7 +15,9 @@ public final class ContinentalRiftOperation
 
     /** Request (the spec fills {@code bulkWaterWtPct} and {@code lithology}). */
     public record Request(Double potentialTemperatureC, Double stretchingFactor, Double lithosphereThicknessKm,
-                          Double crustThicknessKm, Double bulkWaterWtPct, String lithology) {
+                          Double crustThicknessKm, Double bulkWaterWtPct, String lithology, String meltingMode, Double retainedMeltFraction, Double cpxMassFraction,
+                          Double solidusShiftK, Double pyroxeniteFraction, String pyroxenite,
+                          Double pyroxeniteSolidusShiftK) {
     }
 
     /** The stretched lid, the melt and the column. */
@@ -51,7 +54,7 @@ public final class ContinentalRiftOperation
 
     @Override
     public List<Input> inputs() {
-        return List.of(
+        return Sources.with(
                 new Input("potentialTemperatureC", "°C", "mantle potential temperature", true),
                 new Input("stretchingFactor", "1", "stretching factor β", true),
                 new Input("lithosphereThicknessKm", "km", "lithosphere thickness before stretching", true),
@@ -83,6 +86,8 @@ public final class ContinentalRiftOperation
         if (q.bulkWaterWtPct() != null) {
             Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
         }
+        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
+                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
     }
 
     @Override
@@ -91,7 +96,9 @@ public final class ContinentalRiftOperation
         check(q, rules);
         rules.throwIfBroken();
         MantleLithology lithology = Choices.mantleLithology(rules, q.lithology());
-        ContinentalRift.Result r = new ContinentalRift(lithology, Units.celsiusToKelvin(q.potentialTemperatureC()),
+        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
+                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        ContinentalRift.Result r = new ContinentalRift(source, Units.celsiusToKelvin(q.potentialTemperatureC()),
                 q.stretchingFactor(), Units.kmToM(q.lithosphereThicknessKm()), Units.kmToM(q.crustThicknessKm()),
                 Units.wtPctToFraction(q.bulkWaterWtPct())).solve();
         return new Result(lithology.id(), Units.mToKm(r.lidDepth()), Units.mToKm(r.stretchedCrust()),

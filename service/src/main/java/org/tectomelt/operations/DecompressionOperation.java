@@ -4,7 +4,7 @@ import java.util.List;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.column.ColumnResult;
-import org.tectomelt.engine.column.DecompressionColumn;
+import org.tectomelt.engine.column.MantleSource;
 import org.tectomelt.engine.column.Upwelling;
 import org.tectomelt.engine.melting.MantleLithology;
 import org.tectomelt.engine.units.Units;
@@ -15,15 +15,19 @@ public final class DecompressionOperation
 
     /** Request (the spec fills every default). */
     public record Request(String lithology, Double potentialTemperatureC, Double bulkWaterWtPct, Double lidDepthKm,
-                          String upwelling, Double stepKm) {
+                          String upwelling, Double stepKm, String meltingMode, Double retainedMeltFraction, Double cpxMassFraction,
+                          Double solidusShiftK, Double pyroxeniteFraction, String pyroxenite,
+                          Double pyroxeniteSolidusShiftK) {
     }
 
     /** The column; absent quantities are explicit nulls. */
     public record Result(String lithology, String upwelling, double lidDepthKm, @ExplicitNull Columns.Onset onset,
                          @ExplicitNull Columns.Top top, double maxMeltFraction, double meanMeltFraction,
                          double meltThicknessKm, double crustalThicknessKm,
-                         @ExplicitNull Double meanMeltingPressureGPa, List<Columns.Point> profile,
-                         List<String> warnings, List<String> assumptions, List<ModelInfo> models) {
+                         @ExplicitNull Double meanMeltingPressureGPa, String meltingMode,
+                         @ExplicitNull Double pyroxeniteMeltShare, List<Columns.LithologyShare> lithologies,
+                         List<Columns.Point> profile, List<String> warnings, List<String> assumptions,
+                         List<ModelInfo> models) {
     }
 
     @Override
@@ -53,7 +57,7 @@ public final class DecompressionOperation
 
     @Override
     public List<Input> inputs() {
-        return List.of(
+        return Sources.with(
                 new Input("potentialTemperatureC", "°C", "mantle potential temperature", true),
                 new Input("bulkWaterWtPct", "wt%", "bulk water of the source", true),
                 new Input("lidDepthKm", "km", "depth where upwelling stops", true),
@@ -65,7 +69,7 @@ public final class DecompressionOperation
         List<Output<Result>> out = new java.util.ArrayList<>(Columns.outputs("",
                 r -> new Columns.Column(r.upwelling(), r.lidDepthKm(), r.onset(), r.top(), r.maxMeltFraction(),
                         r.meanMeltFraction(), r.meltThicknessKm(), r.crustalThicknessKm(), r.meanMeltingPressureGPa(),
-                        r.profile())));
+                        r.meltingMode(), r.pyroxeniteMeltShare(), r.lithologies(), r.profile())));
         out.add(new Output<>("crustalThicknessKm", "km", "igneous crust thickness", Result::crustalThicknessKm));
         return List.copyOf(out);
     }
@@ -76,6 +80,8 @@ public final class DecompressionOperation
         if (q.bulkWaterWtPct() != null) {
             Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
         }
+        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
+                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
     }
 
     @Override
@@ -83,8 +89,10 @@ public final class DecompressionOperation
         Rules rules = new Rules();
         MantleLithology lithology = Choices.mantleLithology(rules, q.lithology());
         double water = Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
+        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
+                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
         rules.throwIfBroken();
-        ColumnResult r = DecompressionColumn.of(lithology, Units.celsiusToKelvin(q.potentialTemperatureC()), water)
+        ColumnResult r = source.column(Units.celsiusToKelvin(q.potentialTemperatureC()), water)
                 .withLidDepth(Units.kmToM(q.lidDepthKm()))
                 .withUpwelling("active".equals(q.upwelling()) ? Upwelling.ACTIVE : Upwelling.PASSIVE)
                 .withOutputStep(Units.kmToM(q.stepKm()))
@@ -92,6 +100,7 @@ public final class DecompressionOperation
         Columns.Column c = Columns.column(r);
         return new Result(lithology.id(), c.upwelling(), c.lidDepthKm(), c.onset(), c.top(), c.maxMeltFraction(),
                 c.meanMeltFraction(), c.meltThicknessKm(), c.crustalThicknessKm(), c.meanMeltingPressureGPa(),
-                c.profile(), r.warnings(), r.assumptions(), r.models());
+                c.meltingMode(), c.pyroxeniteMeltShare(), c.lithologies(), c.profile(), r.warnings(), r.assumptions(),
+                r.models());
     }
 }

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.Set;
 import java.util.TreeSet;
@@ -11,9 +12,12 @@ import java.util.function.DoubleFunction;
 import org.tectomelt.Config;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.ModelInfo;
+import org.tectomelt.engine.melting.Lithologies;
+import org.tectomelt.engine.melting.MantleLithology;
+import org.tectomelt.engine.melting.ShiftedMantleLithology;
 import org.tectomelt.engine.thermal.ConductiveGeotherm;
-import org.tectomelt.engine.thermal.ContinentalGeotherm;
 import org.tectomelt.engine.thermal.ContinentalGeotherm.HeatProduction;
+import org.tectomelt.engine.thermal.ContinentalGeotherm;
 import org.tectomelt.engine.thermal.Geotherm;
 import org.tectomelt.engine.thermal.HalfSpaceCooling;
 import org.tectomelt.engine.thermal.LithostaticColumn;
@@ -48,7 +52,21 @@ public final class GeothermOperation implements Operation<GeothermOperation.Requ
             "surfaceTemperatureC", "crustThicknessKm");
 
     /** Request (the spec fills {@code maxDepthKm} and {@code stepKm}). */
-    public record Request(Lithosphere lithosphere, Double potentialTemperatureC, Double maxDepthKm, Double stepKm) {
+    public record Request(Lithosphere lithosphere, Double potentialTemperatureC, Double maxDepthKm, Double stepKm,
+                          SolidusChoice solidus) {
+    }
+
+    /** The solidus the geotherm is compared with: a mantle lithology, its bulk water and a shift. */
+    public record SolidusChoice(String lithology, Double bulkWaterWtPct, Double solidusShiftK) {
+    }
+
+    /**
+     * Where the geotherm lies at or above the chosen solidus: {@code topDepthKm} the shallowest such
+     * depth (0 when the surface is, as for an adiabat), {@code baseDepthKm} where it falls below again
+     * (for an adiabat: where rising mantle would start to melt), null when it stays above to the depth
+     * searched.
+     */
+    public record SolidusMeeting(String lithology, double topDepthKm, @ExplicitNull Double baseDepthKm) {
     }
 
     /** The lithosphere: {@code type} plus the fields of that type. */
@@ -83,7 +101,8 @@ public final class GeothermOperation implements Operation<GeothermOperation.Requ
 
     /** The geotherm; absent fields do not apply to the request. */
     public record Result(List<Point> points, Double surfaceHeatFlowMWPerM2, Double lithosphereBaseDepthKm,
-                         Double mohoTemperatureC, Double seafloorDepthM, List<ModelInfo> models,
+                         Double mohoTemperatureC, Double seafloorDepthM, Double thermalLithosphereThicknessKm,
+                         Double solidusDepthKm, SolidusMeeting solidus, List<ModelInfo> models,
                          List<String> warnings) {
     }
 
@@ -192,7 +211,11 @@ public final class GeothermOperation implements Operation<GeothermOperation.Requ
                         Result::lithosphereBaseDepthKm),
                 new Output<>("mohoTemperatureC", "°C", "temperature at the Moho (continental)",
                         Result::mohoTemperatureC),
-                new Output<>("seafloorDepthM", "m", "sea-floor depth (oceanic)", Result::seafloorDepthM));
+                new Output<>("seafloorDepthM", "m", "sea-floor depth (oceanic)", Result::seafloorDepthM),
+                new Output<>("thermalLithosphereThicknessKm", "km", "thermal lithosphere thickness (half-space: "
+                        + "2.32·√(κt); plate: the plate)", Result::thermalLithosphereThicknessKm),
+                new Output<>("solidusDepthKm", "km", "depth where the geotherm meets the chosen solidus from above "
+                        + "(the solidus meeting's base)", Result::solidusDepthKm));
     }
 
     @Override
@@ -215,7 +238,40 @@ public final class GeothermOperation implements Operation<GeothermOperation.Requ
         Double mohoC = model instanceof ContinentalGeotherm c
                 ? Units.kelvinToCelsius(b.geotherm().temperatureAt(c.crustThickness())) : null;
         Double seafloorM = model instanceof OceanicLithosphere o ? o.seafloorDepth() : null;
-        return new Result(points, heatFlow, baseKm, mohoC, seafloorM, b.models(), warnings);
+        OptionalDouble thickness = b.geotherm().thermalLithosphereThickness();
+        SolidusMeeting meeting = null;
+        List<ModelInfo> models = new ArrayList<>(b.models());
+        if (q.solidus() != null) {
+            Rules rules = new Rules().at("solidus");
+            MantleLithology l = Choices.mantleLithology(rules, q.solidus().lithology() == null
+                    ? Lithologies.defaultMantle().id() : q.solidus().lithology());
+            double water = Choices.mantleWater(rules, l, q.solidus().bulkWaterWtPct() == null ? 0
+                    : q.solidus().bulkWaterWtPct());
+            rules.throwIfBroken();
+            MantleLithology shifted = ShiftedMantleLithology.of(l, q.solidus().solidusShiftK() == null ? 0
+                    : q.solidus().solidusShiftK());
+            LithostaticColumn column = b.column();
+            double deepest = Math.min(depths[depths.length - 1], column.depthAt(shifted.hardMaxPressure()));
+            Optional<Geotherm.SolidusInterval> at = b.geotherm().solidusInterval(
+                    z -> shifted.solidus(column.pressureAt(z), water), deepest);
+            if (at.isPresent()) {
+                Geotherm.SolidusInterval i = at.get();
+                meeting = new SolidusMeeting(l.id(), Units.mToKm(i.topDepth()),
+                        i.baseDepth().isPresent() ? Units.mToKm(i.baseDepth().getAsDouble()) : null);
+            } else {
+                warnings = new ArrayList<>(warnings);
+                warnings.add(String.format(java.util.Locale.ROOT, "the geotherm stays below the %s solidus down to "
+                        + "%.0f km", l.id(), Units.mToKm(deepest)));
+            }
+            for (ModelInfo m : shifted.citations()) {
+                if (!models.contains(m)) {
+                    models.add(m);
+                }
+            }
+        }
+        return new Result(points, heatFlow, baseKm, mohoC, seafloorM,
+                thickness.isPresent() ? Units.mToKm(thickness.getAsDouble()) : null,
+                meeting == null ? null : meeting.baseDepthKm(), meeting, models, warnings);
     }
 
     /**

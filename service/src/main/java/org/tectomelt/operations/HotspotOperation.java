@@ -5,6 +5,7 @@ import java.util.List;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.melting.MantleLithology;
+import org.tectomelt.engine.column.MantleSource;
 import org.tectomelt.engine.settings.Hotspot;
 import org.tectomelt.engine.units.Units;
 
@@ -14,7 +15,9 @@ public final class HotspotOperation implements Operation<HotspotOperation.Reques
     /** Request (the spec fills {@code bulkWaterWtPct} and {@code lithology}). */
     public record Request(Double potentialTemperatureC, Double ambientPotentialTemperatureC,
                           Double lithosphereThicknessKm, Double plumeRadiusKm, Double upwellingVelocityCmPerYr,
-                          Double bulkWaterWtPct, String lithology) {
+                          Double bulkWaterWtPct, String lithology, String meltingMode, Double retainedMeltFraction, Double cpxMassFraction,
+                          Double solidusShiftK, Double pyroxeniteFraction, String pyroxenite,
+                          Double pyroxeniteSolidusShiftK) {
     }
 
     /** Excess temperature, melt flux and the column. */
@@ -51,7 +54,7 @@ public final class HotspotOperation implements Operation<HotspotOperation.Reques
 
     @Override
     public List<Input> inputs() {
-        return List.of(
+        return Sources.with(
                 new Input("potentialTemperatureC", "°C", "plume potential temperature", true),
                 new Input("ambientPotentialTemperatureC", "°C", "ambient mantle potential temperature", true),
                 new Input("lithosphereThicknessKm", "km", "lithosphere (lid) thickness", true),
@@ -78,6 +81,8 @@ public final class HotspotOperation implements Operation<HotspotOperation.Reques
         if (q.bulkWaterWtPct() != null) {
             Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
         }
+        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
+                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
     }
 
     @Override
@@ -85,8 +90,10 @@ public final class HotspotOperation implements Operation<HotspotOperation.Reques
         Rules rules = new Rules();
         MantleLithology lithology = Choices.mantleLithology(rules, q.lithology());
         double water = Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
+        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
+                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
         rules.throwIfBroken();
-        Hotspot.Result r = new Hotspot(lithology, Units.celsiusToKelvin(q.potentialTemperatureC()),
+        Hotspot.Result r = new Hotspot(source, Units.celsiusToKelvin(q.potentialTemperatureC()),
                 Units.celsiusToKelvin(q.ambientPotentialTemperatureC()), Units.kmToM(q.lithosphereThicknessKm()),
                 Units.kmToM(q.plumeRadiusKm()), Units.cmPerYrToMPerS(q.upwellingVelocityCmPerYr()), water).solve();
         return new Result(lithology.id(), r.excessTemperature(),

@@ -164,6 +164,10 @@ public final class SolidusCrossingsOperation
         Rules at = rules.at("path");
         if (path.geotherm() != null) {
             Rules rg = at.at("geotherm");
+            if (path.geotherm().solidus() != null) {
+                rg.error("solidus", "belongs to POST /v1/geotherm; here the crossings use this request's own "
+                        + "lithology and water: leave it out");
+            }
             GeothermOperation.Built g = GeothermOperation.build(rg, path.geotherm(), maxSamples);
             double[] depths = g.depths();
             double deepest = depths[depths.length - 1];

@@ -7,8 +7,10 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.ModelInfo;
+import org.tectomelt.engine.melting.Katz2003Peridotite;
 import org.tectomelt.engine.melting.Lithologies;
 import org.tectomelt.engine.melting.Lithology;
+import org.tectomelt.engine.melting.WaterSaturatedPeridotiteSolidus;
 import org.tectomelt.engine.settings.ArcMagmaBudget;
 import org.tectomelt.engine.settings.SubductionWedge;
 import org.tectomelt.engine.settings.WedgeMelting;
@@ -20,7 +22,18 @@ public final class SubductionOperation implements Operation<SubductionOperation.
 
     /** Request: exactly one of {@code depthKm} or {@code pressureGPa} (the spec fills {@code lithology}). */
     public record Request(Double depthKm, Double pressureGPa, Double wedgeTemperatureC, Double bulkWaterWtPct,
-                          Double slabWaterFluxKgPerMPerYr, Double maxWaterWtPct, String lithology) {
+                          Double slabWaterFluxKgPerMPerYr, Double maxWaterWtPct, String lithology,
+                          String wetSolidus) {
+    }
+
+    /**
+     * The wedge point with both water-saturated solidi (Katz et al. 2003; the experiments of Grove et al.
+     * 2006 and Till et al. 2012): the difference and what it changes.
+     */
+    public record WetSolidusComparison(double katzSaturatedSolidusC, double experimentalSaturatedSolidusC,
+                                       double differenceK, @ExplicitNull Double katzWaterForOnsetWtPct,
+                                       @ExplicitNull Double experimentalWaterForOnsetWtPct, double katzMeltFraction,
+                                       double experimentalMeltFraction, String summary) {
     }
 
     /** One point of the melt fraction against added water curve. */
@@ -35,7 +48,8 @@ public final class SubductionOperation implements Operation<SubductionOperation.
             @ExplicitNull Double waterForOnsetWtPct, @ExplicitNull Double waterForSaturationWtPct,
             @ExplicitNull Double meltPerWaterPercentPerWtPct,
             Double slabWaterFluxKgPerMPerYr, Double magmaProductionKm3PerYrPerKm, Double meltDensityKgPerM3,
-            double maxWaterWtPct, List<WaterCurvePoint> waterCurve, List<String> warnings, List<String> assumptions,
+            double maxWaterWtPct, List<WaterCurvePoint> waterCurve, String wetSolidus,
+            @ExplicitNull WetSolidusComparison wetSolidusComparison, List<String> warnings, List<String> assumptions,
             List<ModelInfo> models) {
     }
 
@@ -97,6 +111,10 @@ public final class SubductionOperation implements Operation<SubductionOperation.
         if (q.bulkWaterWtPct() != null) {
             rules.within("bulkWaterWtPct", q.bulkWaterWtPct(), 0, maxAccepted);
         }
+        if ("experimental".equals(q.wetSolidus()) && lithology != null && !(lithology instanceof Katz2003Peridotite)) {
+            rules.error("wetSolidus", "'experimental' rescales the hydrous lowering of peridotite-katz2003 only; for '"
+                    + lithology.id() + "' the allowed value is [katz2003]");
+        }
         if (q.maxWaterWtPct() != null) {
             rules.check(q.maxWaterWtPct() <= maxAccepted, "maxWaterWtPct", "must be at most " + Rules.format(maxAccepted)
                     + " (the lithology's largest bulk water), got " + Rules.format(q.maxWaterWtPct()));
@@ -109,6 +127,10 @@ public final class SubductionOperation implements Operation<SubductionOperation.
         check(q, rules);
         rules.throwIfBroken();
         Lithology lithology = hydrousLithology(rules, q.lithology());
+        boolean experimental = "experimental".equals(q.wetSolidus());
+        if (experimental && lithology instanceof Katz2003Peridotite katz) {
+            lithology = katz.withExperimentalWetSolidus();
+        }
         double maxAccepted = Units.fractionToWtPct(lithology.maxBulkWater());
         double waterWtPct = q.bulkWaterWtPct();
         double temperatureC = q.wedgeTemperatureC();
@@ -152,6 +174,24 @@ public final class SubductionOperation implements Operation<SubductionOperation.
         }
         List<ModelInfo> models = new ArrayList<>(lithology.citations());
         models.add(LithostaticColumn.INFO);
+        WetSolidusComparison comparison = null;
+        if (lithology instanceof Katz2003Peridotite katz && p >= WaterSaturatedPeridotiteSolidus.MIN_GPA * 1e9
+                && p <= WaterSaturatedPeridotiteSolidus.MAX_GPA * 1e9) {
+            org.tectomelt.engine.settings.WetSolidusComparison c = org.tectomelt.engine.settings.WetSolidusComparison
+                    .at(katz, p, Units.celsiusToKelvin(temperatureC), Units.wtPctToFraction(waterWtPct));
+            comparison = new WetSolidusComparison(Units.kelvinToCelsius(c.katzSaturatedSolidus()),
+                    Units.kelvinToCelsius(c.experimentalSaturatedSolidus()), c.difference(),
+                    wtPct(c.katzWaterForOnset()), wtPct(c.experimentalWaterForOnset()), c.katzMeltFraction(),
+                    c.experimentalMeltFraction(), c.describe());
+            assumptions.add(experimental
+                    ? "wet solidus: experimental - the Katz et al. (2003) lowering K*X^0.75 rescaled with pressure so that "
+                            + "the saturated solidus is that of Grove et al. (2006) and Till et al. (2012); dry law unchanged"
+                    : "wet solidus: Katz et al. (2003) as published; wetSolidus 'experimental' reaches the experimental "
+                            + "water-saturated solidus instead (see wetSolidusComparison)");
+            if (!experimental) {
+                models.add(WaterSaturatedPeridotiteSolidus.INFO);
+            }
+        }
         return new Result(
                 lithology.id(), depthKm, pressureGPa, temperatureC, waterWtPct,
                 m.state().meltFraction(), Units.fractionToWtPct(m.state().waterInMelt()), m.state().waterSaturated(),
@@ -164,7 +204,8 @@ public final class SubductionOperation implements Operation<SubductionOperation.
                 flux,
                 budget.map(b -> Units.m2PerSToKm3PerYrPerKm(b.meltVolumeRate())).orElse(null),
                 budget.map(ArcMagmaBudget::meltDensity).orElse(null),
-                maxWaterWtPct, curve, m.warnings(), assumptions, models);
+                maxWaterWtPct, curve, experimental ? "experimental" : "katz2003", comparison, m.warnings(), assumptions,
+                models);
     }
 
     /**

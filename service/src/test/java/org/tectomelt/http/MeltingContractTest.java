@@ -33,9 +33,10 @@ class MeltingContractTest {
         TestServer.given().get("/v1/lithologies").then()
                 .statusCode(200)
                 .body("id", equalTo(List.of("peridotite-katz2003", "peridotite-mckenzie-bickle1988",
-                        "granite-water-saturated", "metapelite", "amphibolite", "basalt")))
-                .body("kind", equalTo(List.of("mantle", "mantle", "crust", "crust", "crust", "intrusion")))
-                .body("hydrous", equalTo(List.of(true, false, false, false, false, false)))
+                        "granite-water-saturated", "metapelite", "amphibolite", "basalt",
+                        "pyroxenite-pertermann-hirschmann2003")))
+                .body("kind", equalTo(List.of("mantle", "mantle", "crust", "crust", "crust", "intrusion", "mantle")))
+                .body("hydrous", equalTo(List.of(true, false, false, false, false, false, false)))
                 .body("[0].pressureRangeGPa", equalTo(List.of(0.0, 8.0)))
                 .body("[0].maxPressureGPa", closeTo(10.0, 1e-12))
                 .body("[0].maxBulkWaterWtPct", closeTo(5.0, 1e-12))

@@ -35,7 +35,8 @@ class MeltingGeneratedClientTest {
     @Test
     void lithologiesThroughTheGeneratedClient() throws ApiException {
         List<LithologyInfo> all = api().listLithologies();
-        assertEquals(6, all.size());
+        assertEquals(7, all.size());
+        assertEquals(LithologyInfo.IdEnum.PYROXENITE_PERTERMANN_HIRSCHMANN2003, all.get(6).getId());
         assertEquals(LithologyInfo.IdEnum.PERIDOTITE_MCKENZIE_BICKLE1988, all.get(1).getId());
         assertEquals(LithologyInfo.KindEnum.INTRUSION, all.get(5).getKind());
         assertEquals(2900.0, all.get(5).getThermalProperties().getDensityKgPerM3(), 0);

@@ -62,6 +62,10 @@ class TurcotteSchubertThermalLithosphereReferenceTest {
         Geotherm.SolidusInterval under = lidded.solidusInterval(d -> katz.solidus(col.pressureAt(d), 0), 300e3).get();
         assertTrue(under.topDepth() > 0 && under.topDepth() < z, "top " + under.topDepth());
         assertEquals(z, under.baseDepth().getAsDouble(), 1.0);
+        // a hot continental geotherm over wet mantle reaches the solidus inside the lithosphere and stays above it
+        Geotherm hot = Geotherm.combined(ContinentalGeotherm.of(0.070), MantleAdiabat.of(Units.celsiusToKelvin(1350)));
+        Geotherm.SolidusInterval wet = hot.solidusInterval(d -> katz.solidus(col.pressureAt(d), 1e-4), 300e3).get();
+        assertTrue(wet.baseDepth().getAsDouble() > wet.topDepth() + 1e3, "a real interval: " + wet);
         Geotherm old = Geotherm.conductive(new PlateCooling(PlateParameters.GDH1, Units.myrToS(150)));
         assertTrue(old.solidusInterval(d -> katz.solidus(col.pressureAt(d), 0), 90e3).isEmpty());
     }

@@ -17,6 +17,7 @@ public final class Lithologies {
         register(CrustalLithology.metapelite());
         register(CrustalLithology.amphibolite());
         register(CrustalLithology.basalt());
+        register(new PertermannHirschmann2003Pyroxenite());
     }
 
     private Lithologies() {

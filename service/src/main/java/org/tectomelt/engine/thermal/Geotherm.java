@@ -128,9 +128,11 @@ public final class Geotherm {
             return Optional.empty();
         }
         double from = top.getAsDouble();
-        OptionalDouble below = firstCrossing(z -> -excess.value(z + from) - 1e-9, limit - from);
+        // start the search for the way back just below the top, past the top's own location error
+        double start = Math.min(from + 10 * CROSSING_ACCURACY_M, limit);
+        OptionalDouble below = firstCrossing(z -> -excess.value(z + start), limit - start);
         return Optional.of(new SolidusInterval(from, below.isPresent()
-                ? OptionalDouble.of(from + below.getAsDouble()) : OptionalDouble.empty()));
+                ? OptionalDouble.of(start + below.getAsDouble()) : OptionalDouble.empty()));
     }
 
     /**

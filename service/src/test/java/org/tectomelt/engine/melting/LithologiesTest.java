@@ -10,9 +10,9 @@ import org.junit.jupiter.api.Test;
 class LithologiesTest {
 
     @Test
-    void offersTheSixLithologiesInTheDocumentedOrder() {
+    void offersTheSevenLithologiesInTheDocumentedOrder() {
         assertEquals(List.of("peridotite-katz2003", "peridotite-mckenzie-bickle1988", "granite-water-saturated",
-                "metapelite", "amphibolite", "basalt"), Lithologies.ids());
+                "metapelite", "amphibolite", "basalt", "pyroxenite-pertermann-hirschmann2003"), Lithologies.ids());
         assertTrue(Lithologies.mantleById("peridotite-mckenzie-bickle1988").isPresent());
         assertTrue(Lithologies.mantleById("metapelite").isEmpty());
         assertTrue(Lithologies.crustalById("basalt").isPresent());
