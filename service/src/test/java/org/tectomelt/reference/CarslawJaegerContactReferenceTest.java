@@ -56,4 +56,34 @@ class CarslawJaegerContactReferenceTest {
             }
         }
     }
+
+    @Test
+    void onAGradedGridTheContactIsTheEffusivityWeightedMeanWithinOnePercent() {
+        Rock hot = new Rock(2950, 1200, 0, ConductivityLaw.constant(2.2), null);
+        Rock cold = new Rock(2650, 900, 0, ConductivityLaw.constant(3.1), null);
+        double e1 = Math.sqrt(2.2 * 2950 * 1200);
+        double e2 = Math.sqrt(3.1 * 2650 * 900);
+        double expected = (e1 * T1 + e2 * T2) / (e1 + e2);
+        // 1 m cells at the contacts growing 10 % per cell to 250 m: a range of 250
+        SillResult r = SillModel.run(new SillModel.Setup(cold, hot, new InitialState.Uniform(T2),
+                SillModel.Intrusions.single(2000, 2000, T1), 6000, 1, 1000 * YR, 100 * YR,
+                List.of(1000 * YR), 1, SillModel.Numerics.DEFAULT, null, Double.POSITIVE_INFINITY,
+                SillModel.GridPlan.GRADED));
+        org.junit.jupiter.api.Assertions.assertTrue(r.numerics().largestCell() / r.numerics().smallestCell() >= 100);
+        for (SillResult.Sample s : r.series()) {
+            if (s.time() >= 50 * YR) {
+                // same tolerance as on the uniform grid: 1 % of T1 − T2
+                assertEquals(expected, s.contactTemperature(), 0.01 * (T1 - T2), "at " + s.time() / YR + " yr");
+            }
+        }
+        SillResult.Profile p = r.profiles().get(0);
+        for (int i = 0; i < p.depth().length; i++) {
+            double z = p.depth()[i];
+            if (z < 500 || z > 5500) {
+                assertEquals(T2, p.temperature()[i], 0.1, "country rock at " + z + " m");
+            } else if (z > 2800 && z < 3200) {
+                assertEquals(T1, p.temperature()[i], 0.1, "intrusion interior at " + z + " m");
+            }
+        }
+    }
 }

@@ -57,6 +57,46 @@ class StefanSillSolidificationReferenceTest {
                 SillModel.Numerics.DEFAULT));
     }
 
+    /**
+     * The same dike on a graded grid: {@code dz} at the contacts, growing 10 % per cell to 4 m (a range of
+     * 200 in cell size) in a column of 80 half-thicknesses.
+     */
+    private static SillResult gradedDike(double dz) {
+        double b = 1.0;
+        double k = KAPPA * RHO * C;
+        double ts = b * b / (4 * KAPPA * Math.pow(lambda(C, 1000, L), 2));
+        Rock country = new Rock(RHO, C, L, ConductivityLaw.constant(k), null);
+        Rock magma = new Rock(RHO, C, L, ConductivityLaw.constant(k), MeltingIntervals.linear(TM, TM));
+        return SillModel.run(new SillModel.Setup(country, magma, new InitialState.Uniform(T0),
+                SillModel.Intrusions.single(2 * b, 38 * b, TM), 80 * b, dz, 1.2 * ts, ts / 20, List.of(), dz,
+                SillModel.Numerics.DEFAULT, null, Double.POSITIVE_INFINITY, new SillModel.GridPlan(1.1, 4.0)));
+    }
+
+    @Test
+    void onAGradedGridTheDikeSolidifiesAtTheStefanTimeAndTheContactHoldsItsTemperature() {
+        double lambda = lambda(C, 1000, L);
+        double ts = 1.0 / (4 * KAPPA * lambda * lambda);
+        double tc = T0 + (TM - T0) / (1 + Erf.erf(lambda));
+        SillResult r = gradedDike(0.02);
+        // the verification: spacing varying by a factor of at least 100 across the column
+        assertTrue(r.numerics().largestCell() / r.numerics().smallestCell() >= 100,
+                r.numerics().smallestCell() + " to " + r.numerics().largestCell());
+        // same tolerances as on the uniform grid: 2 % of b²/(4κλ²), 1 % of Tm − T0 at the contact
+        assertEquals(ts, r.summary().solidificationTime(), 0.02 * ts);
+        int checked = 0;
+        for (SillResult.Sample s : r.series()) {
+            if (s.time() >= 0.1 * ts && s.time() <= 0.9 * ts) {
+                assertEquals(tc, s.contactTemperature(), 0.01 * (TM - T0), "at t/ts = " + s.time() / ts);
+                checked++;
+            }
+        }
+        assertTrue(checked >= 10, "checked " + checked + " samples");
+        // grid convergence within 1 %, as on the uniform grid
+        double coarse = gradedDike(0.04).summary().solidificationTime();
+        assertEquals(r.summary().solidificationTime(), coarse, 0.01 * r.summary().solidificationTime());
+        assertTrue(r.summary().energyErrorFraction() < 1e-10);
+    }
+
     @Test
     void lambdaAndTheTextbookDikeMatchTheWorkedValues() {
         // REFERENCES §3.1 [calc]: L = 320 kJ/kg, c = 1.2 kJ/kg/K, Tm − T0 = 1000 K → λ = 0.7305 (printed to 4 decimals)
