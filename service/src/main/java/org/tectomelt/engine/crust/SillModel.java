@@ -577,6 +577,8 @@ public final class SillModel {
         private final int[] segOld;
         private final int[] sill;
         private final byte[] rock;
+        /** Enthalpy relation of each cell: its rock's, with the melt curve at its pressure for a rock with a table. */
+        private final EnthalpyCurve[] curve;
 
         private int emplaced;
         private int emplacedCells;
@@ -690,12 +692,15 @@ public final class SillModel {
             segOld = new int[cap0];
             sill = new int[cap0];
             rock = new byte[cap0];
+            curve = new EnthalpyCurve[cap0];
             double zTop = 0;
             for (int i = 0; i < n; i++) {
                 invDz[i] = 1 / dzc[i];
                 double z = zTop + 0.5 * dzc[i];
                 zTop += dzc[i];
                 rock[i] = (byte) (hasMantle && z >= setup.mohoDepth() ? MANTLE : CRUST);
+                curve[i] = rock[i] == CRUST && setup.crust().meltTable() != null
+                        ? new EnthalpyCurve(setup.crust(), setup.crust().curveAt(pressureAt(z))) : rocks[rock[i]];
                 temp[i] = setup.initial().temperature(z);
                 heat[i] = setup.initial().heatProduction(z);
                 sourcePerArea += heat[i] * dzc[i];
@@ -704,8 +709,8 @@ public final class SillModel {
                 relaxToSteadyState();
             }
             for (int i = 0; i < n; i++) {
-                h[i] = rocks[rock[i]].enthalpy(temp[i]);
-                seg[i] = rocks[rock[i]].segment(h[i]);
+                h[i] = curve[i].enthalpy(temp[i]);
+                seg[i] = curve[i].segment(h[i]);
                 hOrigin[i] = h[i];
             }
             baseInitial = temp[n - 1];
@@ -765,6 +770,16 @@ public final class SillModel {
             }
         }
 
+        /**
+         * Lithostatic pressure (Pa) at depth {@code z} (m) of the column before any emplacement, ρ g z with the
+         * crust's density: the pressure at which a crust cell's melt curve is read. A cell keeps its curve when
+         * later sills push it down (the weight of the sills above is not added), which keeps its enthalpy
+         * relation, and so the energy balance, fixed.
+         */
+        private double pressureAt(double z) {
+            return s.crust().density() * org.tectomelt.engine.thermal.LithostaticColumn.G * z;
+        }
+
         /** Depth (m) of the centre of cell {@code i}. */
         private double depthOf(int i) {
             double z = 0;
@@ -801,6 +816,15 @@ public final class SillModel {
                 warnings.add(String.format(Locale.ROOT, "a sill spans only %d cells: solidification times and "
                         + "melt thicknesses are coarse; use a grid spacing of at most %.3g m", sillCells,
                         in.thickness() / MIN_CELLS_PER_SILL_FOR_ACCURACY));
+            }
+            org.tectomelt.engine.melting.MeltTable table = s.crust().meltTable();
+            if (table != null) {
+                double crustBase = hasMantle ? Math.min(s.mohoDepth(), s.columnDepth()) : s.columnDepth();
+                if (!table.covers(0, pressureAt(crustBase))) {
+                    warnings.add(String.format(Locale.ROOT, "the crust's melt table covers %.2f-%.2f GPa, its column "
+                            + "0-%.2f GPa: beyond the table the nearest row is used", table.minPressure() * 1e-9,
+                            table.maxPressure() * 1e-9, pressureAt(crustBase) * 1e-9));
+                }
             }
             if (s.sillsWithinDuration() < in.count()) {
                 warnings.add(String.format(Locale.ROOT, "only %d of the %d sills fall within the duration and were "
@@ -958,6 +982,7 @@ public final class SillModel {
             System.arraycopy(h, j, h, j + m, tail);
             System.arraycopy(seg, j, seg, j + m, tail);
             System.arraycopy(rock, j, rock, j + m, tail);
+            System.arraycopy(curve, j, curve, j + m, tail);
             System.arraycopy(sill, j, sill, j + m, tail);
             System.arraycopy(heat, j, heat, j + m, tail);
             System.arraycopy(hOrigin, j, hOrigin, j + m, tail);
@@ -970,6 +995,7 @@ public final class SillModel {
                 h[i] = sillEnthalpy;
                 seg[i] = sillSegment;
                 rock[i] = INTRUSION;
+                curve[i] = rocks[INTRUSION];
                 sill[i] = emplaced;
                 heat[i] = 0;
                 hOrigin[i] = sillEnthalpy;
@@ -1005,7 +1031,7 @@ public final class SillModel {
                     kc[i] = constantK[rock[i]];
                 }
                 evaluateCell(i);
-                double d = (h[i] - hOld[i]) * rocks[rock[i]].invRhoC();
+                double d = (h[i] - hOld[i]) * invRhoC[rock[i]];
                 dTheta[i] = d;
                 e = Math.max(e, Math.abs(d - ratio * dThetaPrev[i]));
             }
@@ -1016,7 +1042,7 @@ public final class SillModel {
 
         private void evaluateCell(int i) {
             int r = rock[i];
-            EnthalpyCurve c = rocks[r];
+            EnthalpyCurve c = curve[i];
             int sg = seg[i];
             double hi = h[i];
             double t = c.temperature(hi, sg);
@@ -1179,7 +1205,7 @@ public final class SillModel {
                     x -= work[i + 1] * xNext;
                 }
                 xNext = x;
-                EnthalpyCurve c = rocks[rock[i]];
+                EnthalpyCurve c = curve[i];
                 int sg = seg[i];
                 double hn = h[i] + x;
                 double upper = c.upper(sg);
@@ -1292,7 +1318,7 @@ public final class SillModel {
                 int i = pick[k];
                 depth[k] = centre[k];
                 tt[k] = temp[i];
-                ff[k] = rocks[rock[i]].fraction(h[i], seg[i], temp[i]);
+                ff[k] = curve[i].fraction(h[i], seg[i], temp[i]);
                 intr[k] = MATERIALS[rock[i]];
             }
             profiles.add(new SillResult.Profile(t, depth, tt, ff, intr));

@@ -169,6 +169,30 @@ class SillModelGradedGridTest {
         }
     }
 
+    @Test
+    void aCrustWithAMeltTableMeltsByTheCurveAtEachCellsPressure() {
+        org.tectomelt.engine.melting.MeltTable table = org.tectomelt.engine.melting.CrustalLithology.metapelite()
+                .meltTable();
+        Rock crust = Rock.withTable(2750, 1050, 280_000, ConductivityLaw.constant(2.5), table, 1e9);
+        // a uniform 720 °C column: above the onset where the table's solidus is below 720 °C (shallower than
+        // about 26 km: 700 °C at 0.5 GPa, 750 °C at 1.0 GPa, ρ g z with ρ = 2750 kg/m³), molten from the start
+        SillResult r = SillModel.run(new SillModel.Setup(crust, BASALT, new InitialState.Uniform(C0 + 720),
+                SillModel.Intrusions.single(100, 40e3, C0 + 1230), 60e3, 1, 1 * KYR, 0.5 * KYR, List.of(0.0), 200,
+                SillModel.Numerics.DEFAULT, null, Double.POSITIVE_INFINITY, SillModel.GridPlan.GRADED));
+        SillResult.Profile p = r.profiles().get(0);
+        for (int i = 0; i < p.depth().length; i++) {
+            double z = p.depth()[i];
+            double pressure = 2750 * 9.81 * z;
+            if (!p.intrusion(i) && z > 1e3) {
+                assertEquals(table.fractionAt(C0 + 720, pressure), p.meltFraction()[i], 1e-9, "at " + z + " m");
+            }
+        }
+        assertTrue(p.meltFraction()[nearest(p, 20e3)] > 0.01, "shallow crust above its solidus");
+        assertEquals(0, p.meltFraction()[nearest(p, 30e3)], 0, "deeper crust below its solidus");
+        assertTrue(r.warnings().stream().anyMatch(w -> w.contains("melt table covers")), r.warnings().toString());
+        assertTrue(r.summary().energyErrorFraction() < 1e-10);
+    }
+
     private static int nearest(SillResult.Profile p, double depth) {
         int best = 0;
         for (int i = 1; i < p.depth().length; i++) {
