@@ -18,6 +18,10 @@
 #   bash .ci/load/wrk-bench.sh --soak 30                          # what .ci/run does
 #   bash .ci/load/wrk-bench.sh --soak 3600 --connections 16       # the long soak for the lab machine
 #   bash .ci/load/wrk-bench.sh --runs 6 --jvm-opts "-Xms256m -XX:+AlwaysPreTouch"  # RSS with the heap touched
+#   bash .ci/load/wrk-bench.sh --baseline GET:/v1/health POST:/v1/melt-fraction=@.ci/load/bodies/melt-fraction.json
+#       also starts .ci/load/TrivialServer.java (one constant GET on the same Javalin build, same
+#       JVM options) and measures it in turn with the others, each run; the summary gives every
+#       endpoint's median req/s and p99 as a fraction / multiple of the trivial route's
 # Other options: --threads N, --warmup SECS, --heap SIZE, --delay-ms MS, --max-rss-mib N,
 # --env VAR=VALUE (for the server), --out FILE (the table as Markdown), --jar PATH.
 set -euo pipefail
@@ -35,6 +39,7 @@ SOAK=0
 DELAY_MS=0
 MAX_RSS_MIB=512
 OUT=""
+BASELINE=0
 SERVER_ENV=("TECTOMELT_CACHE_MB=0")   # measure computation, not the result cache
 ENDPOINTS=()
 
@@ -55,6 +60,7 @@ while [ $# -gt 0 ]; do
     --max-rss-mib) MAX_RSS_MIB="$2"; shift 2 ;;
     --env) SERVER_ENV+=("$2"); shift 2 ;;
     --out) OUT="$2"; shift 2 ;;
+    --baseline) BASELINE=1; shift ;;
     -h|--help) usage 0 ;;
     -*) echo "unknown option $1" >&2; usage 2 ;;
     *) ENDPOINTS+=("$1"); shift ;;
@@ -68,11 +74,14 @@ command -v wrk >/dev/null || { echo "wrk is not installed (Debian package wrk)" 
 
 WORK=$(mktemp -d)
 SERVER_PID=""
+TRIVIAL_PID=""
 cleanup() {
-  if [ -n "$SERVER_PID" ] && kill -0 "$SERVER_PID" 2>/dev/null; then
-    kill "$SERVER_PID" 2>/dev/null || true
-    wait "$SERVER_PID" 2>/dev/null || true
-  fi
+  for pid in "$SERVER_PID" "$TRIVIAL_PID"; do
+    if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null; then
+      kill "$pid" 2>/dev/null || true
+      wait "$pid" 2>/dev/null || true
+    fi
+  done
   [ -n "${KEEP_WORK:-}" ] || rm -rf "$WORK"
 }
 trap cleanup EXIT
@@ -128,10 +137,10 @@ LUA
 }
 
 # ---- server
-rss_mib() { awk '/^VmRSS:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
+rss_mib() { awk '/^VmRSS:/ {printf "%.0f", $2 / 1024}' "/proc/${1:-$SERVER_PID}/status"; }
 # CPU time the server used (user + system, clock ticks): per request it does not depend on how
 # busy the machine is, unlike requests/s
-cpu_ticks() { awk '{print $14 + $15}' "/proc/$SERVER_PID/stat"; }
+cpu_ticks() { awk '{print $14 + $15}' "/proc/${1:-$SERVER_PID}/stat"; }
 CLK_TCK=$(getconf CLK_TCK)
 hwm_mib() { awk '/^VmHWM:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
 
@@ -147,13 +156,28 @@ for _ in $(seq 1 150); do
 done
 [ -n "$PORT" ] || { echo "server did not start" >&2; cat "$WORK/server.log" >&2; exit 1; }
 BASE="http://127.0.0.1:$PORT"
+TRIVIAL_BASE=""
+if [ "$BASELINE" = 1 ]; then
+  java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -cp "$JAR" .ci/load/TrivialServer.java 0 \
+    > "$WORK/trivial.log" 2>&1 &
+  TRIVIAL_PID=$!
+  for _ in $(seq 1 150); do
+    TPORT=$(sed -n 's#^trivial listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$WORK/trivial.log")
+    [ -n "$TPORT" ] && break
+    kill -0 "$TRIVIAL_PID" 2>/dev/null || { cat "$WORK/trivial.log" >&2; exit 1; }
+    sleep 0.2
+  done
+  [ -n "$TPORT" ] || { echo "trivial server did not start" >&2; exit 1; }
+  TRIVIAL_BASE="http://127.0.0.1:$TPORT"
+  ENDPOINTS=("TRIVIAL:GET:/trivial" "${ENDPOINTS[@]}")
+fi
 
 echo "# machine: $(nproc) cores, $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2 | sed 's/^ *//'), load average $(cut -d' ' -f1-3 /proc/loadavg)"
 echo "# server: java -Xmx$HEAP -XX:+UseSerialGC $JVM_OPTS ($(java -version 2>&1 | sed -n 1p)), ${SERVER_ENV[*]}, pid $SERVER_PID, $BASE"
 echo "# wrk $(wrk -v 2>&1 | sed -n 1p | cut -d' ' -f2) -t$THREADS -c$CONNECTIONS, RSS after start: $(rss_mib) MiB"
 
-run_wrk() {   # $1 = seconds, $2 = lua script; prints the RESULT line
-  wrk -t"$THREADS" -c"$CONNECTIONS" -d"${1}s" --timeout 10s -s "$2" "$BASE" > "$WORK/wrk.out" 2>&1 || true
+run_wrk() {   # $1 = seconds, $2 = lua script, $3 = base URL (default the service); prints the RESULT line
+  wrk -t"$THREADS" -c"$CONNECTIONS" -d"${1}s" --timeout 10s -s "$2" "${3:-$BASE}" > "$WORK/wrk.out" 2>&1 || true
   grep '^RESULT' "$WORK/wrk.out" || { cat "$WORK/wrk.out" >&2; echo "RESULT requests=0 rps=0 p50_ms=0 p99_ms=0 max_ms=0 status_errors=1 socket_errors=1"; }
 }
 field() { sed -n "s/.* $1=\([^ ]*\).*/\1/p" <<< " $2"; }
@@ -177,10 +201,13 @@ if [ "$SOAK" -gt 0 ]; then
   exit $FAILED
 fi
 
+# an endpoint "TRIVIAL:GET:/trivial" is served by the trivial server (--baseline)
+target_base() { if [[ "$1" == TRIVIAL:* ]]; then echo "$TRIVIAL_BASE"; else echo "$BASE"; fi; }
+target_pid() { if [[ "$1" == TRIVIAL:* ]]; then echo "$TRIVIAL_PID"; else echo "$SERVER_PID"; fi; }
 i=0
 for spec in "${ENDPOINTS[@]}"; do
-  i=$((i + 1)); make_script "$WORK/e$i.lua" "$spec"
-  run_wrk "$WARMUP" "$WORK/e$i.lua" > /dev/null   # JIT warm-up, not reported
+  i=$((i + 1)); make_script "$WORK/e$i.lua" "${spec#TRIVIAL:}"
+  run_wrk "$WARMUP" "$WORK/e$i.lua" "$(target_base "$spec")" > /dev/null   # JIT warm-up, not reported
 done
 {
   echo "| run | endpoint | req/s | p50 ms | p99 ms | failed responses | socket errors | server CPU µs/request | RSS MiB after |"
@@ -190,17 +217,40 @@ for run in $(seq 1 "$RUNS"); do
   i=0
   for spec in "${ENDPOINTS[@]}"; do
     i=$((i + 1))
-    before=$(cpu_ticks)
-    line=$(run_wrk "$DURATION" "$WORK/e$i.lua")
-    after=$(cpu_ticks)
+    pid=$(target_pid "$spec")
+    before=$(cpu_ticks "$pid")
+    line=$(run_wrk "$DURATION" "$WORK/e$i.lua" "$(target_base "$spec")")
+    after=$(cpu_ticks "$pid")
     cpu=$(awk -v t=$((after - before)) -v n="$(field requests "$line")" -v hz="$CLK_TCK" \
       'BEGIN { if (n > 0) printf "%.0f", t / hz * 1e6 / n; else print "-" }')
-    label=${spec%%=*}
-    echo "| $run | ${label/:/ } | $(field rps "$line") | $(field p50_ms "$line") | $(field p99_ms "$line") | $(field status_errors "$line") | $(field socket_errors "$line") | $cpu | $(rss_mib) |" | tee -a "$WORK/table.md"
+    label=${spec%%=*}; label=${label#TRIVIAL:}
+    echo "| $run | ${label/:/ } | $(field rps "$line") | $(field p50_ms "$line") | $(field p99_ms "$line") | $(field status_errors "$line") | $(field socket_errors "$line") | $cpu | $(rss_mib "$pid") |" | tee -a "$WORK/table.md"
+    echo "$i $(field rps "$line") $(field p99_ms "$line") ${label/:/ }" >> "$WORK/runs.txt"
     [ "$(field status_errors "$line")" = 0 ] && [ "$(field socket_errors "$line")" = 0 ] || FAILED=1
   done
 done
 echo "# peak RSS $(hwm_mib) MiB (limit $MAX_RSS_MIB MiB)"
+if [ "$BASELINE" = 1 ]; then
+  # medians over the runs; endpoint 1 is the trivial route
+  {
+    echo
+    echo "| endpoint | median req/s | median p99 ms | req/s ÷ trivial | p99 ÷ trivial |"
+    echo "|---|---|---|---|---|"
+    python3 - "$WORK/runs.txt" <<'PY'
+import statistics, sys
+runs = {}
+for line in open(sys.argv[1]):
+    i, rps, p99, label = line.split(maxsplit=3)
+    runs.setdefault(int(i), (label.strip(), [], []))
+    runs[int(i)][1].append(float(rps)); runs[int(i)][2].append(float(p99))
+base_rps = statistics.median(runs[1][1]); base_p99 = statistics.median(runs[1][2])
+for i in sorted(runs):
+    label, rps, p99 = runs[i]
+    r, p = statistics.median(rps), statistics.median(p99)
+    print(f"| {label} | {r:.0f} | {p:.2f} | {r / base_rps:.0%} | {p / base_p99:.2f}× |")
+PY
+  } | tee -a "$WORK/table.md"
+fi
 [ "$(hwm_mib)" -le "$MAX_RSS_MIB" ] || { echo "peak RSS above $MAX_RSS_MIB MiB" >&2; FAILED=1; }
 if [ -n "$OUT" ]; then cp "$WORK/table.md" "$OUT"; fi
 exit $FAILED

@@ -64,7 +64,7 @@ public record Config(String host, int port, long maxBodyBytes,
     public static final int MIN_TOKEN_LENGTH = 16;
 
     /** RFC 6750 b64token characters. */
-    private static final Pattern TOKEN_CHARS = Pattern.compile("[A-Za-z0-9\\-._~+/]+=*");
+    static final Pattern TOKEN_CHARS = Pattern.compile("[A-Za-z0-9\\-._~+/]+=*");
     /** An origin as browsers send it: scheme, host and optional port, nothing else. */
     private static final Pattern ORIGIN = Pattern.compile("https?://[A-Za-z0-9.\\-]+(:\\d{1,5})?|https?://\\[[0-9a-fA-F:]+](:\\d{1,5})?");
 
@@ -208,7 +208,7 @@ public record Config(String host, int port, long maxBodyBytes,
         return out;
     }
 
-    private static long longVar(Map<String, String> env, String name, long fallback, long min, long max) {
+    static long longVar(Map<String, String> env, String name, long fallback, long min, long max) {
         String raw = env.get(name);
         if (raw == null || raw.isBlank()) {
             return fallback;

@@ -13,6 +13,9 @@ import java.util.List;
 import java.util.Properties;
 import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.tectomelt.Config;
+import org.tectomelt.contract.Invoker;
+import org.tectomelt.contract.SpecContract;
+import org.tectomelt.operations.Operations;
 
 /**
  * Factory: configuration in, unstarted Javalin app out (routes, problem mapping, static page, and
@@ -59,6 +62,7 @@ public final class App {
             c.http.maxRequestSize = config.maxBodyBytes();
             c.http.prefer405over404 = true;
             c.appData(Metrics.KEY, metrics);
+            c.appData(Heavy.KEY, heavy);
             c.staticFiles.add(sf -> {
                 sf.hostedPath = "/";
                 sf.directory = "/public";
@@ -110,7 +114,7 @@ public final class App {
                 return;
             }
             if (r.heavy()) {
-                byte[] hit = cache.get(etag);
+                Responses.Written hit = cache.get(etag);
                 if (hit != null) {
                     Responses.bytes(ctx, hit);
                 } else {
@@ -132,11 +136,24 @@ public final class App {
         return ctx.status().getCode() == 200 && Responses.written(ctx) != null;
     }
 
+    /**
+     * The app enforcing the request rules of another spec document (a test builds one on a modified
+     * copy of the spec to show a range changes with no Java edit).
+     */
+    public static Javalin create(Config config, SpecContract spec) {
+        return create(config, RequestObserver.NONE, routes(config, spec));
+    }
+
     /** Every route the service serves; the spec-consistency test reads this same list. */
     public static List<Route> routes(Config config) {
+        return routes(config, SpecContract.standard());
+    }
+
+    private static List<Route> routes(Config config, SpecContract spec) {
         List<Route> all = new ArrayList<>();
         all.addAll(MetaRoutes.routes());
-        all.addAll(PressureRoutes.routes(config));
+        // every computation registered in org.tectomelt.operations, served by the one generic handler
+        all.addAll(OperationHandler.routes(new Invoker(spec, Operations.of(config))));
         // thermal: geotherm routes
         all.addAll(GeothermRoutes.routes(config));
 

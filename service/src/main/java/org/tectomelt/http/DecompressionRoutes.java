@@ -1,5 +1,6 @@
 package org.tectomelt.http;
 
+import org.tectomelt.contract.Json;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import io.javalin.http.Context;
 import java.util.ArrayList;
@@ -15,7 +16,6 @@ import org.tectomelt.engine.melting.Lithology;
 import org.tectomelt.engine.melting.MantleLithology;
 import org.tectomelt.engine.settings.ContinentalRift;
 import org.tectomelt.engine.settings.Hotspot;
-import org.tectomelt.engine.settings.MidOceanRidge;
 import org.tectomelt.engine.units.Units;
 
 /**
@@ -33,8 +33,6 @@ final class DecompressionRoutes {
     static final double MIN_STEP_KM = 0.1, MAX_STEP_KM = 10;
     /** Default profile spacing (km). */
     static final double DEFAULT_STEP_KM = 1.0;
-    /** Accepted full spreading rates (mm/yr). */
-    static final double MIN_RATE_MM_PER_YR = 1, MAX_RATE_MM_PER_YR = 250;
     /** Accepted plume radii (km). */
     static final double MIN_RADIUS_KM = 1, MAX_RADIUS_KM = 1000;
     /** Accepted plume upwelling velocities (cm/yr). */
@@ -52,7 +50,6 @@ final class DecompressionRoutes {
     static List<Route> routes() {
         return List.of(
                 Route.heavyPost("/v1/decompression-melting", DecompressionRoutes::column),
-                Route.post("/v1/settings/mid-ocean-ridge", DecompressionRoutes::ridge),
                 Route.post("/v1/settings/hotspot", DecompressionRoutes::hotspot),
                 Route.post("/v1/settings/continental-rift", DecompressionRoutes::rift));
     }
@@ -62,11 +59,6 @@ final class DecompressionRoutes {
     /** Body of {@code /v1/decompression-melting}. */
     record ColumnRequest(String lithology, Double potentialTemperatureC, Double bulkWaterWtPct, Double lidDepthKm,
                          String upwelling, Double stepKm) {
-    }
-
-    /** Body of {@code /v1/settings/mid-ocean-ridge}. */
-    record RidgeRequest(Double potentialTemperatureC, Double bulkWaterWtPct, Double fullSpreadingRateMmPerYr,
-                        String lithology) {
     }
 
     /** Body of {@code /v1/settings/hotspot}. */
@@ -114,11 +106,6 @@ final class DecompressionRoutes {
                   @JsonInclude(JsonInclude.Include.ALWAYS) Double meanMeltingPressureGPa, List<Point> profile) {
     }
 
-    /** Body of {@code /v1/settings/mid-ocean-ridge}. */
-    record RidgeResponse(String lithology, double crustalThicknessKm, double meltProductionKm3PerYrPerKm,
-                         Column column, List<String> warnings, List<String> assumptions, List<ModelInfo> models) {
-    }
-
     /** Body of {@code /v1/settings/hotspot}. */
     record HotspotResponse(String lithology, double excessTemperatureK,
                            @JsonInclude(JsonInclude.Include.ALWAYS) Double onsetDepthKm,
@@ -155,23 +142,6 @@ final class DecompressionRoutes {
         Responses.json(ctx, new ColumnResponse(lithology.id(), c.upwelling(), c.lidDepthKm(), c.onset(), c.top(),
                 c.maxMeltFraction(), c.meanMeltFraction(), c.meltThicknessKm(), c.crustalThicknessKm(),
                 c.meanMeltingPressureGPa(), c.profile(), r.warnings(), r.assumptions(), r.models()));
-    }
-
-    static void ridge(Context ctx) {
-        RidgeRequest req = Json.read(ctx.bodyAsBytes(), RidgeRequest.class);
-        Validation v = new Validation();
-        MantleLithology lithology = mantleLithology(v, req.lithology());
-        double tp = v.required("potentialTemperatureC", req.potentialTemperatureC(), MIN_TP_C, MAX_TP_C);
-        double water = water(v, req.bulkWaterWtPct(), lithology);
-        double rate = v.required("fullSpreadingRateMmPerYr", req.fullSpreadingRateMmPerYr(),
-                MIN_RATE_MM_PER_YR, MAX_RATE_MM_PER_YR);
-        v.throwIfInvalid();
-
-        MidOceanRidge.Result r = new MidOceanRidge(lithology, Units.celsiusToKelvin(tp), Units.wtPctToFraction(water),
-                Units.mmPerYrToMPerS(rate)).solve();
-        Responses.json(ctx, new RidgeResponse(lithology.id(), Units.mToKm(r.crustalThickness()),
-                Units.m2PerSToKm3PerYrPerKm(r.meltProduction()), column(r.column()), r.warnings(), r.assumptions(),
-                r.models()));
     }
 
     static void hotspot(Context ctx) {

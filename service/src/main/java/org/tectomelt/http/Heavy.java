@@ -25,6 +25,9 @@ public final class Heavy {
 
     private static final String DEADLINE_ATTR = "tectomelt.deadline";
 
+    /** The app's limiter, for a handler that decides per request ({@code ctx.appData(Heavy.KEY)}). */
+    static final io.javalin.config.Key<Heavy> KEY = new io.javalin.config.Key<>("tectomelt.heavy");
+
     private final Semaphore slots;
     private final int concurrency;
     private final long queueMillis;
@@ -48,6 +51,11 @@ public final class Heavy {
     public static Deadline deadline(Context ctx) {
         Deadline d = ctx.attribute(DEADLINE_ATTR);
         return d == null ? Deadline.none() : d;
+    }
+
+    /** True when this request already holds a slot (it is served as heavy). */
+    static boolean inSlot(Context ctx) {
+        return ctx.attribute(DEADLINE_ATTR) != null;
     }
 
     /** Heavy requests being computed now. */

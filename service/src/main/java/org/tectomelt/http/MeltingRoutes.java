@@ -1,5 +1,6 @@
 package org.tectomelt.http;
 
+import org.tectomelt.contract.Json;
 import io.javalin.http.Context;
 import java.util.ArrayList;
 import java.util.List;
@@ -13,7 +14,6 @@ import org.tectomelt.engine.melting.Lithology;
 import org.tectomelt.engine.melting.MantleLithology;
 import org.tectomelt.engine.melting.McKenzieBickle1988Peridotite;
 import org.tectomelt.engine.melting.MeltCurve;
-import org.tectomelt.engine.melting.MeltState;
 import org.tectomelt.engine.melting.SolidusCrossings;
 import org.tectomelt.engine.melting.SolidusCrossings.PathPoint;
 import org.tectomelt.engine.melting.ThermalProperties;
@@ -43,11 +43,9 @@ final class MeltingRoutes {
      * about 1 µs each), a path at most {@code TECTOMELT_MAX_PROFILE_POINTS} samples (default 5,000).
      */
     static List<Route> routes(Config config) {
-        int batch = config.maxBatchPoints();
         int profile = config.maxProfilePoints();
         return List.of(
                 Route.get("/v1/lithologies", MeltingRoutes::lithologies),
-                Route.post("/v1/melt-fraction", ctx -> meltFraction(ctx, batch)),
                 Route.post("/v1/solidus-crossings", ctx -> solidusCrossings(ctx, profile)));
     }
 
@@ -66,30 +64,6 @@ final class MeltingRoutes {
 
     /** A point of a caller's melt curve. */
     record MeltCurvePoint(Double temperatureC, Double meltFraction) {
-    }
-
-    /** A pressure–temperature point of a batch. */
-    record PressureTemperature(Double pressureGPa, Double temperatureC) {
-    }
-
-    /** Request body of {@code /v1/melt-fraction}. */
-    record MeltFractionRequest(String lithology, Double pressureGPa, Double temperatureC, Double bulkWaterWtPct,
-                               List<PressureTemperature> points, List<MeltCurvePoint> meltCurve) {
-    }
-
-    /** The melt state at one point. */
-    record MeltResult(double meltFraction, double solidusC, Double drySolidusC, Double liquidusC,
-                      double waterInMeltWtPct, boolean waterSaturated, boolean cpxExhausted, List<String> warnings) {
-    }
-
-    /** Response of a single-point request. */
-    record MeltFractionResponse(String lithology, double meltFraction, double solidusC, Double drySolidusC,
-                                Double liquidusC, double waterInMeltWtPct, boolean waterSaturated, boolean cpxExhausted,
-                                List<String> warnings, List<ModelInfo> models) {
-    }
-
-    /** Response of a batch request (the single-point fields absent). */
-    record MeltFractionBatchResponse(String lithology, List<MeltResult> results, List<ModelInfo> models) {
     }
 
     /** An adiabat path. */
@@ -141,49 +115,6 @@ final class MeltingRoutes {
                     l instanceof CrustalLithology, thermal, l.citations()));
         }
         Responses.json(ctx, out);
-    }
-
-    static void meltFraction(Context ctx, int maxPoints) {
-        MeltFractionRequest req = Json.read(ctx.bodyAsBytes(), MeltFractionRequest.class);
-        Validation v = new Validation();
-        Lithology lithology = lithology(v, req.lithology(), req.meltCurve());
-        double water = water(v, lithology, req.bulkWaterWtPct());
-        boolean batch = req.points() != null;
-        boolean single = req.pressureGPa() != null || req.temperatureC() != null;
-        if (batch && single) {
-            v.error("points", "give either pressureGPa and temperatureC, or points, not both");
-            v.throwIfInvalid();
-        }
-        double maxGpa = lithology == null ? Double.NaN : Units.paToGpa(lithology.hardMaxPressure());
-        if (!batch) {
-            double p = lithology == null ? Double.NaN : v.required("pressureGPa", req.pressureGPa(), 0, maxGpa);
-            double t = v.required("temperatureC", req.temperatureC(), MIN_TEMPERATURE_C, MAX_TEMPERATURE_C);
-            v.throwIfInvalid();
-            MeltResult r = result(lithology.melt(Units.gpaToPa(p), Units.celsiusToKelvin(t), water));
-            Responses.json(ctx, new MeltFractionResponse(lithology.id(), r.meltFraction(), r.solidusC(),
-                    r.drySolidusC(), r.liquidusC(), r.waterInMeltWtPct(), r.waterSaturated(), r.cpxExhausted(),
-                    r.warnings(), lithology.citations()));
-            return;
-        }
-        List<PressureTemperature> points = v.list("points", req.points(), 1, maxPoints, "TECTOMELT_MAX_BATCH_POINTS");
-        double[] ps = new double[points.size()];
-        double[] ts = new double[points.size()];
-        for (int i = 0; i < points.size() && lithology != null; i++) {
-            PressureTemperature pt = points.get(i);
-            if (pt == null) {
-                v.error("points[" + i + "]", "must be an object with pressureGPa and temperatureC");
-                continue;
-            }
-            Validation at = v.at("points", i);
-            ps[i] = at.required("pressureGPa", pt.pressureGPa(), 0, maxGpa);
-            ts[i] = at.required("temperatureC", pt.temperatureC(), MIN_TEMPERATURE_C, MAX_TEMPERATURE_C);
-        }
-        v.throwIfInvalid();
-        List<MeltResult> results = new ArrayList<>(points.size());
-        for (int i = 0; i < ps.length; i++) {
-            results.add(result(lithology.melt(Units.gpaToPa(ps[i]), Units.celsiusToKelvin(ts[i]), water)));
-        }
-        Responses.json(ctx, new MeltFractionBatchResponse(lithology.id(), results, lithology.citations()));
     }
 
     static void solidusCrossings(Context ctx, int maxSamples) {
@@ -313,12 +244,6 @@ final class MeltingRoutes {
         }
         return new SolidusCrossingsResponse(lithology.id(), crossings, r.meltPresent(), r.maxMeltFraction(), profile,
                 r.warnings(), List.copyOf(models));
-    }
-
-    private static MeltResult result(MeltState s) {
-        return new MeltResult(s.meltFraction(), Units.kelvinToCelsius(s.solidus()), celsiusOrNull(s.drySolidus()),
-                celsiusOrNull(s.liquidus()), Units.fractionToWtPct(s.waterInMelt()), s.waterSaturated(),
-                s.cpxExhausted(), s.warnings());
     }
 
     private static Double celsiusOrNull(double kelvin) {

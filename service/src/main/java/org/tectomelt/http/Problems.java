@@ -9,7 +9,10 @@ import java.util.Map;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.tectomelt.engine.BudgetExceededException;
+import org.tectomelt.contract.Json;
+import org.tectomelt.contract.MalformedBodyException;
 import org.tectomelt.engine.EngineException;
+import org.tectomelt.operations.OperationException;
 
 /**
  * The one place where failures become RFC 9457 {@code application/problem+json} responses.
@@ -30,6 +33,9 @@ public final class Problems {
     /** Registers the exception and error handlers on the app's routing config. */
     static void register(RoutesConfig routes) {
         routes.exception(ApiProblem.class, (e, ctx) -> write(ctx, e));
+        routes.exception(OperationException.class, (e, ctx) -> write(ctx, ApiProblem.invalid(e.violations().stream()
+                .map(v -> new FieldError(v.field(), v.message())).toList())));
+        routes.exception(MalformedBodyException.class, (e, ctx) -> write(ctx, ApiProblem.malformed(e.getMessage())));
         routes.exception(EngineException.class, (e, ctx) -> write(ctx, new ApiProblem(400, "outside-model-range",
                 "Outside what the model can compute", e.getMessage(), List.of(), Map.of())));
         routes.exception(BudgetExceededException.class, (e, ctx) -> write(ctx, new ApiProblem(503, "over-budget",

@@ -12,6 +12,7 @@ import java.util.Iterator;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
+import org.tectomelt.contract.Json;
 
 /**
  * The canonical form of a request and the entity tag derived from it.
@@ -28,6 +29,7 @@ import java.util.TreeMap;
 final class RequestKey {
 
     private static final String ATTR = "tectomelt.requestKey";
+    private static final String TREE_ATTR = "tectomelt.requestTree";
     private static final String NONE = "";
 
     private final String seed;
@@ -45,6 +47,14 @@ final class RequestKey {
             ctx.attribute(ATTR, cached);
         }
         return cached.equals(NONE) ? null : cached;
+    }
+
+    /**
+     * The body as parsed for the key (parsed once per request: the handler reuses it), or null when
+     * no key was computed or the body was not JSON.
+     */
+    static JsonNode parsedBody(Context ctx) {
+        return ctx.attribute(TREE_ATTR);
     }
 
     /** True when {@code If-None-Match} lists {@code etag} (weak comparison, as RFC 9110 §13.1.2 asks). */
@@ -74,6 +84,8 @@ final class RequestKey {
             sb.append(q.getKey()).append('=').append(values).append('&');
         }
         sb.append('\n');
+        // the representation asked for is part of the answer (JSON or a CSV table)
+        sb.append(OperationHandler.wantsCsv(ctx) ? "csv" : "json").append('\n');
         if (ctx.method() == HandlerType.POST) {
             byte[] body = ctx.bodyAsBytes();
             JsonNode tree;
@@ -86,6 +98,7 @@ final class RequestKey {
                 return NONE;
             }
             canonical(tree, sb);
+            ctx.attribute(TREE_ATTR, tree);
         }
         return "\"" + hash(sb.toString()) + "\"";
     }

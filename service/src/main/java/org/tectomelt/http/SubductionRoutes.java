@@ -1,5 +1,6 @@
 package org.tectomelt.http;
 
+import org.tectomelt.contract.Json;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import io.javalin.http.Context;
 import java.util.ArrayList;

@@ -1,4 +1,4 @@
-package org.tectomelt.http;
+package org.tectomelt.contract;
 
 import com.fasterxml.jackson.core.JsonGenerator;
 import com.fasterxml.jackson.core.JsonProcessingException;
@@ -22,6 +22,11 @@ import com.fasterxml.jackson.databind.module.SimpleModule;
 import com.fasterxml.jackson.databind.ser.std.StdSerializer;
 import com.fasterxml.jackson.databind.type.LogicalType;
 import com.fasterxml.jackson.annotation.JsonInclude;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.introspect.Annotated;
+import com.fasterxml.jackson.databind.introspect.JacksonAnnotationIntrospector;
+import org.tectomelt.operations.ExplicitNull;
+import org.tectomelt.operations.OperationException;
 import java.io.IOException;
 import java.util.List;
 import java.util.Map;
@@ -30,7 +35,11 @@ import java.util.Map;
  * The one JSON configuration of the service: strict on the way in (unknown fields, wrong types,
  * strings where numbers belong, trailing garbage and deep nesting are all rejected with the
  * offending field named), and on the way out it refuses NaN and Infinity, so no response can
- * carry them.
+ * carry them. A result component marked {@link ExplicitNull} is written as {@code null} when absent;
+ * other absent components are left out.
+ *
+ * <p>Failures: {@link MalformedBodyException} for a body that is not usable JSON,
+ * {@link OperationException} naming the field for one that does not fit the request record.
  */
 public final class Json {
 
@@ -63,6 +72,7 @@ public final class Json {
                 .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
                 .disable(SerializationFeature.FAIL_ON_EMPTY_BEANS)
                 .serializationInclusion(JsonInclude.Include.NON_NULL)
+                .annotationIntrospector(new ExplicitNullIntrospector())
                 .addModule(finiteOnly)
                 .build();
         mapper.getFactory().setStreamReadConstraints(StreamReadConstraints.builder()
@@ -86,7 +96,7 @@ public final class Json {
      */
     public static <T> T read(byte[] body, Class<T> type) {
         if (body == null || body.length == 0) {
-            throw ApiProblem.malformed("The request body is empty; a JSON object is expected");
+            throw new MalformedBodyException("The request body is empty; a JSON object is expected");
         }
         T value;
         try {
@@ -95,15 +105,49 @@ public final class Json {
             throw translate(e);
         }
         if (value == null) {
-            throw ApiProblem.malformed("The request body is JSON null; a JSON object is expected");
+            throw new MalformedBodyException("The request body is JSON null; a JSON object is expected");
         }
         return value;
     }
 
+    /**
+     * Parses a request body into a tree with the same strictness (duplicate keys, trailing tokens,
+     * nesting depth, number length).
+     */
+    public static JsonNode readTree(byte[] body) {
+        if (body == null || body.length == 0) {
+            throw new MalformedBodyException("The request body is empty; a JSON object is expected");
+        }
+        JsonNode tree;
+        try {
+            tree = MAPPER.readTree(body);
+        } catch (IOException e) {
+            throw translate(e);
+        }
+        if (tree == null || tree.isNull()) {
+            throw new MalformedBodyException("The request body is JSON null; a JSON object is expected");
+        }
+        return tree;
+    }
+
+    /** Binds a request tree (already checked against the spec) to its record. */
+    public static <T> T bind(JsonNode tree, Class<T> type) {
+        try {
+            return MAPPER.treeToValue(tree, type);
+        } catch (IOException e) {
+            throw translate(e);
+        } catch (IllegalArgumentException e) {
+            if (e.getCause() instanceof IOException io) {
+                throw translate(io);
+            }
+            throw e;
+        }
+    }
+
     /** Turns a Jackson failure into the problem the caller should see. */
-    private static ApiProblem translate(IOException e) {
+    private static RuntimeException translate(IOException e) {
         if (e instanceof StreamConstraintsException c) {
-            return ApiProblem.malformed("The request body exceeds a parser limit (nesting depth "
+            return new MalformedBodyException("The request body exceeds a parser limit (nesting depth "
                     + MAX_NESTING_DEPTH + ", number length 64): " + firstLine(c.getOriginalMessage()));
         }
         if (e instanceof JsonMappingException m && m.getCause() instanceof StreamReadException parse) {
@@ -112,35 +156,35 @@ public final class Json {
         if (e instanceof UnrecognizedPropertyException u) {
             List<String> known = u.getKnownPropertyIds() == null ? List.of()
                     : u.getKnownPropertyIds().stream().map(String::valueOf).sorted().toList();
-            return ApiProblem.invalid(path(u), "is not a known field here; known fields: " + known);
+            return new OperationException(path(u), "is not a known field here; known fields: " + known);
         }
         if (e instanceof InvalidFormatException f) {
             String field = path(f);
             return field.isEmpty()
-                    ? ApiProblem.malformed("The request body must be a JSON object")
-                    : ApiProblem.invalid(field, "has the wrong type or format; expected " + describe(f.getTargetType()));
+                    ? new MalformedBodyException("The request body must be a JSON object")
+                    : new OperationException(field, "has the wrong type or format; expected " + describe(f.getTargetType()));
         }
         if (e instanceof MismatchedInputException mi) {
             String field = path(mi);
             return field.isEmpty()
-                    ? ApiProblem.malformed("The request body must be a JSON object")
-                    : ApiProblem.invalid(field, "has the wrong JSON type; expected " + describe(mi.getTargetType()));
+                    ? new MalformedBodyException("The request body must be a JSON object")
+                    : new OperationException(field, "has the wrong JSON type; expected " + describe(mi.getTargetType()));
         }
         if (e instanceof JsonMappingException m) {
             String field = path(m);
             return field.isEmpty()
-                    ? ApiProblem.malformed("The request body could not be mapped: " + firstLine(m.getOriginalMessage()))
-                    : ApiProblem.invalid(field, "is invalid: " + firstLine(m.getOriginalMessage()));
+                    ? new MalformedBodyException("The request body could not be mapped: " + firstLine(m.getOriginalMessage()))
+                    : new OperationException(field, "is invalid: " + firstLine(m.getOriginalMessage()));
         }
         if (e instanceof JsonProcessingException p) {
             return malformed(p);
         }
-        return ApiProblem.malformed("The request body could not be read");
+        return new MalformedBodyException("The request body could not be read");
     }
 
-    private static ApiProblem malformed(JsonProcessingException e) {
+    private static RuntimeException malformed(JsonProcessingException e) {
         String what = firstLine(e.getOriginalMessage()).replaceAll("\\s*\\(start marker at \\[Source.*$", "");
-        return ApiProblem.malformed("The request body is not valid JSON: " + what + locationOf(e));
+        return new MalformedBodyException("The request body is not valid JSON: " + what + locationOf(e));
     }
 
     /** Serialises a response value. */
@@ -247,6 +291,19 @@ public final class Json {
         @Override
         public LogicalType logicalType() {
             return LogicalType.Float;
+        }
+    }
+
+    /** {@link ExplicitNull} components are always written, null included. */
+    private static final class ExplicitNullIntrospector extends JacksonAnnotationIntrospector {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        public JsonInclude.Value findPropertyInclusion(Annotated a) {
+            if (a.hasAnnotation(ExplicitNull.class)) {
+                return JsonInclude.Value.construct(JsonInclude.Include.ALWAYS, JsonInclude.Include.ALWAYS);
+            }
+            return super.findPropertyInclusion(a);
         }
     }
 

@@ -1,0 +1,156 @@
+package org.tectomelt.operations;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.tectomelt.Config;
+import org.tectomelt.engine.Deadline;
+import org.tectomelt.engine.ModelInfo;
+import org.tectomelt.engine.melting.Lithology;
+import org.tectomelt.engine.melting.MeltState;
+import org.tectomelt.engine.units.Units;
+
+/**
+ * {@code melt-fraction}: the melt state at one pressure and temperature, or at a batch of points.
+ * Cheap; a batch of more than {@value #HEAVY_BATCH_POINTS} points is served as heavy.
+ */
+public final class MeltFractionOperation
+        implements Operation<MeltFractionOperation.Request, MeltFractionOperation.Result> {
+
+    /** Batches longer than this go through the heavy-request limiter (hydrous points cost ~10 µs each). */
+    public static final int HEAVY_BATCH_POINTS = 1000;
+
+    /** A pressure–temperature point of a batch. */
+    public record PressureTemperature(Double pressureGPa, Double temperatureC) {
+    }
+
+    /** Request: {@code pressureGPa} and {@code temperatureC}, or {@code points}. */
+    public record Request(String lithology, Double pressureGPa, Double temperatureC, Double bulkWaterWtPct,
+                          List<PressureTemperature> points, List<Choices.MeltCurvePoint> meltCurve) {
+    }
+
+    /** The melt state at one point. */
+    public record MeltResult(double meltFraction, double solidusC, Double drySolidusC, Double liquidusC,
+                             double waterInMeltWtPct, boolean waterSaturated, boolean cpxExhausted,
+                             List<String> warnings) {
+    }
+
+    /**
+     * The answer: for one point its fields at the top level ({@code results} absent); for a batch
+     * {@code results} in request order (the single-point fields absent).
+     */
+    public record Result(String lithology, Double meltFraction, Double solidusC, Double drySolidusC,
+                         Double liquidusC, Double waterInMeltWtPct, Boolean waterSaturated, Boolean cpxExhausted,
+                         List<String> warnings, List<MeltResult> results, List<ModelInfo> models) {
+    }
+
+    private final int maxPoints;
+
+    MeltFractionOperation(Config config) {
+        this.maxPoints = config.maxBatchPoints();
+    }
+
+    @Override
+    public String name() {
+        return "melt-fraction";
+    }
+
+    @Override
+    public String path() {
+        return "/v1/melt-fraction";
+    }
+
+    @Override
+    public Class<Request> requestType() {
+        return Request.class;
+    }
+
+    @Override
+    public Cost costClass() {
+        return Cost.CHEAP;
+    }
+
+    @Override
+    public Cost cost(Request q) {
+        return q.points() != null && q.points().size() > HEAVY_BATCH_POINTS ? Cost.HEAVY : Cost.CHEAP;
+    }
+
+    @Override
+    public List<Cap> caps() {
+        return List.of(new Cap("points", maxPoints, "TECTOMELT_MAX_BATCH_POINTS"));
+    }
+
+    @Override
+    public String rows(Result r) {
+        return r.results() != null ? "results" : null;
+    }
+
+    @Override
+    public List<Input> inputs() {
+        return List.of(
+                new Input("pressureGPa", "GPa", "pressure of the point", true),
+                new Input("temperatureC", "°C", "temperature of the point", true),
+                new Input("bulkWaterWtPct", "wt%", "bulk water of the rock (hydrous models)", true));
+    }
+
+    @Override
+    public List<Output<Result>> outputs() {
+        return List.of(
+                new Output<>("meltFraction", "1", "melt mass fraction", Result::meltFraction),
+                new Output<>("solidusC", "°C", "solidus at the point's pressure", Result::solidusC),
+                new Output<>("liquidusC", "°C", "liquidus at the point's pressure", Result::liquidusC),
+                new Output<>("waterInMeltWtPct", "wt%", "water dissolved in the melt", Result::waterInMeltWtPct));
+    }
+
+    @Override
+    public Result run(Request q, Deadline deadline) {
+        Rules rules = new Rules();
+        Lithology lithology = Choices.lithology(rules, q.lithology(), q.meltCurve());
+        double water = Choices.water(rules, lithology, q.bulkWaterWtPct());
+        boolean batch = q.points() != null;
+        boolean single = q.pressureGPa() != null || q.temperatureC() != null;
+        if (batch && single) {
+            rules.error("points", "give either pressureGPa and temperatureC, or points, not both");
+        }
+        rules.throwIfBroken();
+        double maxGpa = Units.paToGpa(lithology.hardMaxPressure());
+        if (!batch) {
+            rules.check(q.pressureGPa() != null, "pressureGPa", "is required (allowed range 0 and "
+                    + Rules.format(maxGpa) + "), or give points");
+            rules.check(q.temperatureC() != null, "temperatureC", "is required, or give points");
+            rules.throwIfBroken();
+            rules.within("pressureGPa", q.pressureGPa(), 0, maxGpa);
+            rules.throwIfBroken();
+            MeltResult r = result(lithology.melt(Units.gpaToPa(q.pressureGPa()),
+                    Units.celsiusToKelvin(q.temperatureC()), water));
+            return new Result(lithology.id(), r.meltFraction(), r.solidusC(), r.drySolidusC(), r.liquidusC(),
+                    r.waterInMeltWtPct(), r.waterSaturated(), r.cpxExhausted(), r.warnings(), null,
+                    lithology.citations());
+        }
+        List<PressureTemperature> points = q.points();
+        for (int i = 0; i < points.size(); i++) {
+            rules.at("points", i).within("pressureGPa", points.get(i).pressureGPa(), 0, maxGpa);
+        }
+        rules.throwIfBroken();
+        List<MeltResult> results = new ArrayList<>(points.size());
+        for (int i = 0; i < points.size(); i++) {
+            if ((i & 1023) == 0) {
+                deadline.check();
+            }
+            PressureTemperature pt = points.get(i);
+            results.add(result(lithology.melt(Units.gpaToPa(pt.pressureGPa()),
+                    Units.celsiusToKelvin(pt.temperatureC()), water)));
+        }
+        return new Result(lithology.id(), null, null, null, null, null, null, null, null, results,
+                lithology.citations());
+    }
+
+    private static MeltResult result(MeltState s) {
+        return new MeltResult(s.meltFraction(), Units.kelvinToCelsius(s.solidus()), celsiusOrNull(s.drySolidus()),
+                celsiusOrNull(s.liquidus()), Units.fractionToWtPct(s.waterInMelt()), s.waterSaturated(),
+                s.cpxExhausted(), s.warnings());
+    }
+
+    static Double celsiusOrNull(double kelvin) {
+        return Double.isFinite(kelvin) ? Units.kelvinToCelsius(kelvin) : null;
+    }
+}

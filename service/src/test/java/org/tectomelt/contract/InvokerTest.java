@@ -1,0 +1,58 @@
+package org.tectomelt.contract;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotNull;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.charset.StandardCharsets;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.tectomelt.engine.Deadline;
+import org.tectomelt.operations.MidOceanRidgeOperation;
+import org.tectomelt.operations.OperationException;
+
+/** Running an operation by name from a JSON tree, as the runs and the studies do: no HTTP. */
+class InvokerTest {
+
+    private static final Invoker INVOKER = Invoker.standard();
+
+    @Test
+    void anOperationRunsByNameFromAJsonTree() {
+        Record r = INVOKER.run("mid-ocean-ridge", Json.readTree(
+                "{\"potentialTemperatureC\": 1350, \"fullSpreadingRateMmPerYr\": 40}".getBytes(StandardCharsets.UTF_8)),
+                Deadline.none());
+        MidOceanRidgeOperation.Result ridge = (MidOceanRidgeOperation.Result) r;
+        assertEquals("peridotite-katz2003", ridge.lithology(), "the spec's default lithology");
+        Map<String, Double> out = INVOKER.outputs("mid-ocean-ridge", r, List.of("crustalThicknessKm",
+                "column.onset.depthKm"));
+        assertEquals(ridge.crustalThicknessKm(), out.get("crustalThicknessKm"));
+        assertNotNull(out.get("column.onset.depthKm"));
+        // common practice: a 1350 °C ambient mantle makes a normal, several-km oceanic crust
+        assertTrue(ridge.crustalThicknessKm() > 3 && ridge.crustalThicknessKm() < 12, "crust " + ridge.crustalThicknessKm());
+    }
+
+    @Test
+    void theSpecsRulesAndTheOperationsAreEnforcedOnTheSamePath() {
+        OperationException spec = assertThrows(OperationException.class, () -> INVOKER.run("mid-ocean-ridge",
+                Json.readTree("{\"potentialTemperatureC\": 900, \"fullSpreadingRateMmPerYr\": 40}"
+                        .getBytes(StandardCharsets.UTF_8)), Deadline.none()));
+        assertEquals("potentialTemperatureC", spec.violations().get(0).field());
+        OperationException rule = assertThrows(OperationException.class, () -> INVOKER.run("melt-fraction",
+                Json.readTree(("{\"lithology\": \"peridotite-mckenzie-bickle1988\", \"pressureGPa\": 1,"
+                        + " \"temperatureC\": 1300, \"bulkWaterWtPct\": 0.1}").getBytes(StandardCharsets.UTF_8)),
+                Deadline.none()));
+        assertEquals("bulkWaterWtPct", rule.violations().get(0).field());
+    }
+
+    @Test
+    void anUnknownOutputNameListsTheKnownOnes() {
+        Record r = INVOKER.run("mid-ocean-ridge", Json.readTree(
+                "{\"potentialTemperatureC\": 1350, \"fullSpreadingRateMmPerYr\": 40}".getBytes(StandardCharsets.UTF_8)),
+                Deadline.none());
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> INVOKER.outputs("mid-ocean-ridge", r, List.of("crustThickness")));
+        assertTrue(e.getMessage().contains("crustalThicknessKm"), e.getMessage());
+    }
+}

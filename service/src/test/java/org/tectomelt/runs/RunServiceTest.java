@@ -1,0 +1,262 @@
+package org.tectomelt.runs;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertNotNull;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Path;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.function.Predicate;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.MethodSource;
+import org.tectomelt.RunsConfig;
+
+/**
+ * Storage and execution of runs against each backend ({@link Backends}): every point computed
+ * once, failing points recorded while the run goes on, cancel, delete, limits, restart, and two
+ * instances sharing one run. The evaluator here is a stand-in (the square of the index, a problem
+ * at every seventh point): what is checked is the bookkeeping, not physics.
+ */
+class RunServiceTest {
+
+    @TempDir
+    Path dir;
+
+    static Stream<String> backends() {
+        return Backends.names().stream();
+    }
+
+    /** y = i², a recorded problem where i % 7 == 3; sleeps {@code millis} per point. */
+    static Evaluator squares(long millis) {
+        return run -> i -> {
+            if (millis > 0) {
+                try {
+                    Thread.sleep(millis);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            }
+            String inputs = "{\"i\":" + i + "}";
+            return i % 7 == 3
+                    ? new PointResult(i, inputs, null, "{\"type\":\"outside-model-range\",\"detail\":\"no number at " + i + "\"}", null)
+                    : new PointResult(i, inputs, "{\"y\":" + ((long) i * i) + "}", null, null);
+        };
+    }
+
+    static NewRun run(String owner, int points) {
+        return new NewRun("sweep", "test-squares", owner, "squares", "{\"n\":" + points + "}", "{\"v\":\"test\"}", points);
+    }
+
+    static RunRecord await(RunService s, String id, Predicate<RunRecord> until, Duration max) {
+        Instant end = Instant.now().plus(max);
+        RunRecord r = s.find(id).orElseThrow();
+        while (!until.test(r)) {
+            if (Instant.now().isAfter(end)) {
+                throw new AssertionError("run " + id + " did not get there in " + max + ": " + r);
+            }
+            try {
+                Thread.sleep(20);
+            } catch (InterruptedException e) {
+                throw new AssertionError(e);
+            }
+            r = s.find(id).orElseThrow();
+        }
+        return r;
+    }
+
+    static List<PointResult> allPoints(RunService s, String id) {
+        List<PointResult> out = new ArrayList<>();
+        int last = -1;
+        while (true) {
+            int before = out.size();
+            last = s.points(id, last, 50, out::add);
+            if (out.size() == before) {
+                return out;
+            }
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void everyPointIsComputedOnceAndFailingPointsKeepTheirProblem(String backend) {
+        RunsConfig cfg = Backends.fresh(backend, dir, "solo");
+        try (RunService s = RunService.open(cfg, squares(0))) {
+            s.start();
+            RunRecord r = s.submit(run("ana", 100));
+            assertEquals(RunStatus.QUEUED, r.status());
+            RunRecord done = await(s, r.id(), x -> !x.status().active(), Duration.ofSeconds(30));
+            assertEquals(RunStatus.SUCCEEDED, done.status());
+            // i % 7 == 3 for i = 3, 10, ..., 94: 14 points
+            assertEquals(14, done.failedPoints());
+            assertEquals(86, done.donePoints());
+            assertNotNull(done.startedAt());
+            assertNotNull(done.finishedAt());
+            List<PointResult> pts = allPoints(s, r.id());
+            assertEquals(100, pts.size());
+            for (int i = 0; i < 100; i++) {
+                PointResult p = pts.get(i);
+                assertEquals(i, p.index());
+                assertEquals("solo", p.computedBy());
+                if (i % 7 == 3) {
+                    assertNull(p.outputs());
+                    assertTrue(p.problem().contains("no number at " + i), p.problem());
+                } else {
+                    assertEquals("{\"y\":" + (i * i) + "}", p.outputs());
+                }
+            }
+            assertEquals("{\"n\":100}", done.definition());
+            assertEquals(Map.of("solo", 100), s.pointsByInstance(r.id()));
+            assertEquals(1, s.countsByStatus().get(RunStatus.SUCCEEDED));
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void aRunWhosePointsAllFailIsFailedWithItsReason(String backend) {
+        Evaluator allFail = run -> i -> new PointResult(i, "{}", null, "{\"type\":\"outside-model-range\"}", null);
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), allFail)) {
+            s.start();
+            RunRecord r = s.submit(run("ana", 5));
+            RunRecord done = await(s, r.id(), x -> !x.status().active(), Duration.ofSeconds(30));
+            assertEquals(RunStatus.FAILED, done.status());
+            assertEquals("every point recorded a problem", done.statusReason());
+            assertEquals(5, done.failedPoints());
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void deleteCancelsARunningRunThenRemovesIt(String backend) throws Exception {
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(5))) {
+            s.start();
+            RunRecord r = s.submit(run("ana", 800));
+            await(s, r.id(), x -> x.donePoints() > 0, Duration.ofSeconds(30));
+            assertEquals(RunService.Deleted.CANCELLED, s.delete(r.id(), "ana"));
+            RunRecord cancelled = s.find(r.id()).orElseThrow();
+            assertEquals(RunStatus.CANCELLED, cancelled.status());
+            assertEquals("cancelled by ana", cancelled.statusReason());
+            Thread.sleep(1_500);
+            RunRecord later = s.find(r.id()).orElseThrow();
+            assertEquals(cancelled.donePoints() + cancelled.failedPoints(),
+                    later.donePoints() + later.failedPoints(), "no point is counted after the cancel");
+            assertTrue(later.donePoints() + later.failedPoints() < 800);
+            assertEquals(later.donePoints() + later.failedPoints(), allPoints(s, r.id()).size(),
+                    "the points computed before the cancel stay readable");
+            assertEquals(RunService.Deleted.REMOVED, s.delete(r.id(), "ana"));
+            assertTrue(s.find(r.id()).isEmpty());
+            assertTrue(allPoints(s, r.id()).isEmpty());
+            assertEquals(RunService.Deleted.NOT_FOUND, s.delete(r.id(), "ana"));
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void listsNewestFirstWithFiltersAndPagesAndLimitsQueuedRunsPerOwner(String backend) {
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(20))) {
+            // not started: the runs stay queued
+            List<String> ids = new ArrayList<>();
+            for (int i = 0; i < 3; i++) {
+                ids.add(s.submit(run("ana", 10)).id());
+            }
+            ids.add(s.submit(new NewRun("sweep", "other-op", "ben", null, "{}", null, 4)).id());
+            assertTrue(s.queueLimitProblem("ana").orElseThrow().contains("TECTOMELT_MAX_QUEUED_RUNS_PER_OWNER"));
+            assertTrue(s.queueLimitProblem("ben").isEmpty());
+            List<RunRecord> all = s.list(new RunStore.Filter(null, null, null), 10, 0);
+            assertEquals(List.of(ids.get(3), ids.get(2), ids.get(1), ids.get(0)), all.stream().map(RunRecord::id).toList());
+            assertEquals(List.of(ids.get(2), ids.get(1)),
+                    s.list(new RunStore.Filter(null, "ana", null), 2, 0).stream().map(RunRecord::id).toList());
+            assertEquals(List.of(ids.get(0)),
+                    s.list(new RunStore.Filter(null, "ana", null), 2, 2).stream().map(RunRecord::id).toList());
+            assertEquals(3, s.count(new RunStore.Filter(RunStatus.QUEUED, null, "test-squares")));
+            assertEquals(1, s.count(new RunStore.Filter(null, null, "other-op")));
+            assertEquals(0, s.count(new RunStore.Filter(RunStatus.SUCCEEDED, null, null)));
+            assertEquals(4, s.queuedChunks() > 0 ? 4 : 0, "the chunks wait in the queue");
+        }
+    }
+
+    @Test
+    void restartOfTheEmbeddedDatabaseResumesTheRunWithoutRecomputingStoredPoints() {
+        RunsConfig cfg = Backends.fresh("h2", dir, "first");
+        String id;
+        int before;
+        try (RunService s = RunService.open(cfg, squares(4))) {
+            s.start();
+            id = s.submit(run("ana", 600)).id();
+            RunRecord partial = await(s, id, x -> x.donePoints() > 20, Duration.ofSeconds(30));
+            assertTrue(partial.status().active());
+        }
+        try (RunService s = RunService.open(Backends.sameDatabase(cfg, "second"), squares(0))) {
+            RunRecord stopped = s.find(id).orElseThrow();
+            before = stopped.donePoints() + stopped.failedPoints();
+            assertTrue(before < 600, "stopped part-way: " + before);
+            s.start();
+            RunRecord done = await(s, id, x -> !x.status().active(), Duration.ofSeconds(30));
+            assertEquals(RunStatus.SUCCEEDED, done.status());
+            assertEquals(600, done.donePoints() + done.failedPoints());
+            Map<String, Integer> by = s.pointsByInstance(id);
+            assertEquals(before, by.get("first"), "points stored before the stop are kept, not recomputed");
+            assertEquals(600 - before, by.get("second"));
+            assertEquals(600, allPoints(s, id).size());
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void twoInstancesOnOneDatabaseShareTheChunksOfOneRun(String backend) {
+        // the embedded file cannot be shared by two processes, but two pools in one JVM can share it
+        RunsConfig a = Backends.fresh(backend, dir, "instance-a");
+        try (RunService sa = RunService.open(a, squares(3));
+             RunService sb = RunService.open(Backends.sameDatabase(a, "instance-b"), squares(3))) {
+            sa.start();
+            sb.start();
+            RunRecord r = sa.submit(run("ana", 800));
+            RunRecord done = await(sb, r.id(), x -> !x.status().active(), Duration.ofSeconds(60));
+            assertEquals(RunStatus.SUCCEEDED, done.status());
+            Map<String, Integer> by = sa.pointsByInstance(r.id());
+            assertEquals(800, by.values().stream().mapToInt(Integer::intValue).sum(), by.toString());
+            assertTrue(by.getOrDefault("instance-a", 0) > 0 && by.getOrDefault("instance-b", 0) > 0,
+                    "both instances computed points: " + by);
+        }
+    }
+
+    @Test
+    void retentionDeletesRunsFinishedLongAgo() {
+        try (RunService s = RunService.open(Backends.fresh("h2", dir, "solo"), squares(0))) {
+            s.start();
+            RunRecord r = s.submit(run("ana", 3));
+            await(s, r.id(), x -> !x.status().active(), Duration.ofSeconds(30));
+            RunStore store = new RunStore(Database.open(Backends.sameDatabase(s.config(), "x"), 2).dataSource(), "test");
+            assertEquals(0, store.deleteFinishedBefore(Instant.now().minus(Duration.ofDays(1))));
+            assertEquals(1, store.deleteFinishedBefore(Instant.now().plusSeconds(1)));
+            assertTrue(s.find(r.id()).isEmpty());
+        }
+    }
+
+    @Test
+    void anUnreachableDatabaseIsRefusedWithOneLine() {
+        RunsConfig cfg = RunsConfig.defaults().withDatabaseUrl("jdbc:postgresql://127.0.0.1:9/tectomelt", "x", "y");
+        StorageUnavailableException e = assertThrows(StorageUnavailableException.class,
+                () -> RunService.open(cfg, squares(0)));
+        assertTrue(e.getMessage().startsWith("cannot reach the run database at jdbc:postgresql://127.0.0.1:9/tectomelt: "),
+                e.getMessage());
+        assertFalse(e.getMessage().contains("\n"), e.getMessage());
+    }
+
+    @Test
+    void chunksCoverEveryPointOnce() {
+        assertEquals(1, RunExecutor.chunkSize(1, 2));
+        assertEquals(125, RunExecutor.chunkSize(2_000, 2));
+        assertEquals(RunExecutor.MAX_CHUNK, RunExecutor.chunkSize(1_000_000, 2));
+        assertEquals(2, RunExecutor.chunkSize(31, 2));
+    }
+}
