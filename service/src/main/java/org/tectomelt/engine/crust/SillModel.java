@@ -130,6 +130,8 @@ public final class SillModel {
     public static final double MELT_ONSET_FRACTION = 1e-2;
     /** Newton stops when every cell's residual, as a temperature H/(ρc), is below this (K). */
     public static final double NEWTON_TOLERANCE_K = 1e-6;
+    /** Least temperature drop (K) across a convective boundary layer used for its conductance (keeps it positive). */
+    static final double MIN_BOUNDARY_DROP_K = 1e-3;
     /** Most Newton iterations in one step before the step is redone smaller. */
     public static final int MAX_NEWTON_ITERATIONS = 40;
     /** Fewer cells across a sill than this and the results carry a resolution warning. */
@@ -201,6 +203,70 @@ public final class SillModel {
     }
 
     /**
+     * Convection in a molten intrusion (Huppert &amp; Sparks 1988, J. Petrology 29, 599–624,
+     * doi:10.1093/petrology/29.3.599). While a sill's melt fraction is above {@code lockMeltFraction}
+     * its interior is well mixed (one temperature; the solver lumps its cells into one node, so mixing
+     * is exact and conserves energy) and it gives heat to its roof and floor by the flux law of
+     * turbulent thermal convection at high Rayleigh number used there,
+     * <pre>
+     *   q = λ k (g α / (κ ν))^(1/3) ΔT^(4/3),   ν = μ / ρ,
+     * </pre>
+     * with ΔT the drop from the well-mixed interior to the contact, k, κ and ρ the magma's conductivity,
+     * diffusivity and density, μ its viscosity, α its thermal expansivity and λ = 0.1 (the constant of
+     * the flux law for a layer cooled from a boundary, as used by Huppert &amp; Sparks 1988; value from
+     * memory). The flux does not depend on the layer's thickness. Once its melt fraction falls to the
+     * threshold (crystal lock-up: a crystal framework stops convection near 50–60 % crystals, Marsh
+     * 1981, Contrib. Mineral. Petrol. 78, 85–98, doi:10.1007/BF00371146, from memory) the sill conducts,
+     * as without convection. Viscosity and expansivity are constant (a crystallising magma stiffens:
+     * a constant μ overstates the late flux).
+     *
+     * @param lockMeltFraction melt fraction below which the sill stops convecting, in (0, 1)
+     * @param viscosity        magma viscosity μ (Pa s)
+     * @param expansivity      thermal expansivity α (1/K)
+     * @param coefficient      λ of the flux law
+     */
+    public record Convection(double lockMeltFraction, double viscosity, double expansivity, double coefficient) {
+
+        /** Default lock-up melt fraction: 0.5 (about 50 % crystals; Marsh 1981, from memory). */
+        public static final double DEFAULT_LOCK_MELT_FRACTION = 0.5;
+        /** Default viscosity of a crystal-poor basaltic magma (Pa s): 100, within the 10–1000 Pa s of such melts (common practice). */
+        public static final double DEFAULT_VISCOSITY = 100;
+        /** Default thermal expansivity of basaltic melt (1/K): 5e-5 (from memory). */
+        public static final double DEFAULT_EXPANSIVITY = 5e-5;
+        /** λ of the turbulent flux law (Huppert &amp; Sparks 1988; from memory). */
+        public static final double HUPPERT_SPARKS_COEFFICIENT = 0.1;
+        /** Gravity (m/s²). */
+        private static final double G = 9.81;
+
+        /** Validates the parameters. */
+        public Convection {
+            if (!(lockMeltFraction > 0 && lockMeltFraction < 1)) {
+                throw new EngineException("the lock-up melt fraction must lie strictly between 0 and 1, got "
+                        + lockMeltFraction);
+            }
+            if (!(viscosity > 0) || !(expansivity > 0) || !(coefficient > 0) || !Double.isFinite(viscosity + expansivity
+                    + coefficient)) {
+                throw new EngineException("convection needs a positive viscosity, expansivity and coefficient");
+            }
+        }
+
+        /** The defaults with lock-up at {@code lockMeltFraction}. */
+        public static Convection withLockAt(double lockMeltFraction) {
+            return new Convection(lockMeltFraction, DEFAULT_VISCOSITY, DEFAULT_EXPANSIVITY, HUPPERT_SPARKS_COEFFICIENT);
+        }
+
+        /** A = λ k (g α ρ / (κ μ))^(1/3) (W/m²/K^(4/3)) for a magma of conductivity k, diffusivity κ, density ρ. */
+        public double fluxFactor(double conductivity, double diffusivity, double density) {
+            return coefficient * conductivity * Math.cbrt(G * expansivity * density / (diffusivity * viscosity));
+        }
+
+        /** The convective heat flux q = A ΔT^(4/3) (W/m²) for a drop {@code dT} (K) from the interior to the wall. */
+        public double heatFlux(double dT, double conductivity, double diffusivity, double density) {
+            return fluxFactor(conductivity, diffusivity, density) * Math.pow(Math.abs(dT), 4.0 / 3.0);
+        }
+    }
+
+    /**
      * How the column is divided into cells. {@link #UNIFORM}: every cell is the grid spacing (the column,
      * the sills and the top depth rounded to whole cells). Otherwise a graded grid ({@link GradedGrid}):
      * the grid spacing is the finest cell, at the face where the sills are emplaced (the roof of the first
@@ -268,10 +334,20 @@ public final class SillModel {
      * @param mantle          non-melting rock below the Moho, or {@code null} when the whole column is crust
      * @param mohoDepth       depth of the crust's base (m); ignored without a mantle
      * @param grid            how the column is divided into cells
+     * @param convection      convection in the molten intrusions, or {@code null} for conduction only
      */
     public record Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
                         double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
-                        double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth, GridPlan grid) {
+                        double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth, GridPlan grid,
+                        Convection convection) {
+
+        /** A column without convection in the intrusions. */
+        public Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
+                     double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
+                     double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth, GridPlan grid) {
+            this(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery, profileTimes,
+                    profileSpacing, numerics, mantle, mohoDepth, grid, null);
+        }
 
         /** A column of crust only, from the surface to its base, on a uniform grid. */
         public Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
@@ -324,13 +400,19 @@ public final class SillModel {
         /** The same setup with another finest spacing (the convergence check halves or doubles it). */
         public Setup withGridSpacing(double spacing) {
             return new Setup(crust, intrusion, initial, intrusions, columnDepth, spacing, duration, outputEvery,
-                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, grid);
+                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, grid, convection);
         }
 
         /** The same setup on another grid plan. */
         public Setup withGrid(GridPlan plan) {
             return new Setup(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery,
-                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, plan);
+                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, plan, convection);
+        }
+
+        /** The same setup with convection in the intrusions ({@code null}: conduction only). */
+        public Setup withConvection(Convection c) {
+            return new Setup(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery,
+                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, grid, c);
         }
 
         /** Sizes (m) of the cells of the column before any emplacement, from the top down. */
@@ -579,6 +661,21 @@ public final class SillModel {
         private final byte[] rock;
         /** Enthalpy relation of each cell: its rock's, with the melt curve at its pressure for a rock with a table. */
         private final EnthalpyCurve[] curve;
+        /**
+         * The solver's nodes: a cell, or all cells of a convecting sill lumped into one (well mixed). At the
+         * first cell of each node: the first cell of the next node, the previous node's first cell (−1 for
+         * the first node) and 1/(node thickness).
+         */
+        private final int[] nodeEnd;
+        private final int[] nodePrev;
+        private final double[] nodeInv;
+        private int lastNode;
+        /** Convection in the intrusions, or null; whether sill k (1-based) still convects; its last melt fraction. */
+        private final Convection convection;
+        private final boolean[] convecting;
+        private final double[] sillMeltPrev;
+        private final boolean nonlinearFaces;
+        private Double lockUp;
 
         private int emplaced;
         private int emplacedCells;
@@ -609,6 +706,10 @@ public final class SillModel {
         private double mIntrMelt;
         private double mIntrCells;
         private double mFirst;
+        private double mFirstT;
+        /** Heat flux up through the roof of the intrusions (W/m²) and the first sill's mean temperature (K). */
+        private double roofFlux;
+        private double firstSillT;
         private double mMaxT;
         private double mMaxMantleT;
         private double maxMantleAll = Double.NEGATIVE_INFINITY;
@@ -693,6 +794,13 @@ public final class SillModel {
             sill = new int[cap0];
             rock = new byte[cap0];
             curve = new EnthalpyCurve[cap0];
+            nodeEnd = new int[cap0];
+            nodePrev = new int[cap0];
+            nodeInv = new double[cap0];
+            convection = setup.convection();
+            convecting = new boolean[sills + 1];
+            sillMeltPrev = new double[sills + 1];
+            nonlinearFaces = !constK || convection != null;
             double zTop = 0;
             for (int i = 0; i < n; i++) {
                 invDz[i] = 1 / dzc[i];
@@ -714,6 +822,7 @@ public final class SillModel {
                 hOrigin[i] = h[i];
             }
             baseInitial = temp[n - 1];
+            buildNodes();
             noteGeometry();
         }
 
@@ -923,6 +1032,9 @@ public final class SillModel {
                 double[] swap = dThetaPrev;
                 dThetaPrev = dTheta;
                 dTheta = swap;
+                if (convection != null) {
+                    checkLockUp(tPrev, t);
+                }
                 track(tPrev, t, prevCrustMelt, prevFirstSill);
                 prevCrustMelt = crustMelt;
                 prevFirstSill = firstSillMelt;
@@ -1003,6 +1115,107 @@ public final class SillModel {
             n += m;
             emplacedCells += m;
             energyInserted += sillThickness * sillEnthalpy;
+            if (convection != null) {
+                double f = rocks[INTRUSION].fraction(sillEnthalpy, sillSegment, rocks[INTRUSION].temperature(sillEnthalpy,
+                        sillSegment));
+                convecting[emplaced] = f > convection.lockMeltFraction();
+                sillMeltPrev[emplaced] = f;
+                if (!convecting[emplaced] && emplaced == 1) {
+                    lockUp = 0.0;
+                }
+            }
+            buildNodes();
+        }
+
+        /** True when cell {@code i} belongs to a sill that is still convecting. */
+        private boolean mixed(int i) {
+            return convection != null && rock[i] == INTRUSION && convecting[sill[i]];
+        }
+
+        /** Groups the cells into the solver's nodes: one per cell, one per convecting sill. */
+        private void buildNodes() {
+            int prev = -1;
+            int i = 0;
+            while (i < n) {
+                int e = i + 1;
+                double size = dzc[i];
+                if (mixed(i)) {
+                    while (e < n && rock[e] == INTRUSION && sill[e] == sill[i]) {
+                        size += dzc[e];
+                        e++;
+                    }
+                }
+                nodeEnd[i] = e;
+                nodePrev[i] = prev;
+                nodeInv[i] = 1 / size;
+                prev = i;
+                i = e;
+            }
+            lastNode = prev;
+        }
+
+        /**
+         * Conductance (W/m²/K) of face {@code f} between cells f − 1 and f when a convecting sill lies on one
+         * or both sides: the convective boundary layer (q = A ΔT_bl^(4/3)) in series with the half cell on the
+         * other side, solved for the boundary layer's share of the temperature difference (u = ΔT_bl^(1/3):
+         * u³ + r A u⁴ = ΔT, by Newton's method from above; convex and increasing, so it converges).
+         */
+        private double convectiveFace(int f) {
+            int a = f - 1;
+            boolean ma = mixed(a);
+            boolean mb = mixed(f);
+            int magmaCell = ma ? a : f;
+            double km = laws[INTRUSION].at(temp[magmaCell]);
+            double factor = convection.fluxFactor(km, km * invRhoC[INTRUSION], s.intrusion().density());
+            double dT = Math.max(Math.abs(temp[a] - temp[f]), MIN_BOUNDARY_DROP_K);
+            if (ma && mb) {
+                // two convecting bodies: two boundary layers sharing the drop equally
+                return factor * Math.cbrt(dT / 2) / 2;
+            }
+            int other = ma ? f : a;
+            double r = 0.5 * dzc[other] / kc[other];
+            double u = Math.min(Math.cbrt(dT), Math.pow(dT / (r * factor), 0.25));
+            for (int it = 0; it < 50; it++) {
+                double u3 = u * u * u;
+                double fu = u3 + r * factor * u3 * u - dT;
+                double step = fu / (3 * u * u + 4 * r * factor * u3);
+                u -= step;
+                if (Math.abs(step) <= 1e-13 * u) {
+                    break;
+                }
+            }
+            double bl = Math.max(u * u * u, MIN_BOUNDARY_DROP_K);
+            return 1 / (1 / (factor * Math.cbrt(bl)) + r);
+        }
+
+        /**
+         * After an accepted step: each convecting sill whose melt fraction fell to the lock-up fraction stops
+         * convecting (the time interpolated within the step for the first sill) and its cells become nodes of
+         * their own.
+         */
+        private void checkLockUp(double t0, double t1) {
+            boolean changed = false;
+            for (int i = 0; i < n; i = nodeEnd[i]) {
+                if (!mixed(i)) {
+                    continue;
+                }
+                int k = sill[i];
+                double f = curve[i].fraction(h[i], seg[i], temp[i]);
+                double lock = convection.lockMeltFraction();
+                if (f <= lock) {
+                    convecting[k] = false;
+                    changed = true;
+                    if (k == 1 && lockUp == null) {
+                        double w = (sillMeltPrev[k] - lock) / (sillMeltPrev[k] - f);
+                        lockUp = t0 + (t1 - t0) * Math.max(0, Math.min(1, w));
+                    }
+                }
+                sillMeltPrev[k] = f;
+            }
+            if (changed) {
+                buildNodes();
+                faces();
+            }
         }
 
         /**
@@ -1016,6 +1229,18 @@ public final class SillModel {
                 double k1 = kc[i - 1];
                 double k2 = kc[i];
                 g[i] = 2 * k1 * k2 / (k1 * dzc[i] + k2 * dzc[i - 1]);
+            }
+            if (convection != null) {
+                for (int i = 0; i < n; i = nodeEnd[i]) {
+                    if (mixed(i)) {
+                        if (i > 0) {
+                            g[i] = convectiveFace(i);
+                        }
+                        if (nodeEnd[i] < n) {
+                            g[nodeEnd[i]] = convectiveFace(nodeEnd[i]);
+                        }
+                    }
+                }
             }
         }
 
@@ -1069,6 +1294,7 @@ public final class SillModel {
                 mIntrCells += dzc[i];
                 if (sill[i] == 1) {
                     mFirst += f * dzc[i];
+                    mFirstT += t * dzc[i];
                 }
             }
             if (t > mMaxT) {
@@ -1083,6 +1309,7 @@ public final class SillModel {
             mIntrMelt = 0;
             mIntrCells = 0;
             mFirst = 0;
+            mFirstT = 0;
             mMaxT = Double.NEGATIVE_INFINITY;
             mMaxMantleT = Double.NEGATIVE_INFINITY;
         }
@@ -1099,11 +1326,21 @@ public final class SillModel {
             int i = topIndex;
             if (i == 0) {
                 contactT = tTop;
+                roofFlux = 0;
+            } else if (convection != null && (mixed(i) || mixed(i - 1)) && !(mixed(i) && mixed(i - 1))) {
+                // the wall side of a convective boundary: the half cell beyond the magma carries the flux
+                int wall = mixed(i) ? i - 1 : i;
+                double flux = g[i] * (temp[i] - temp[i - 1]);
+                double r = 0.5 * dzc[wall] / kc[wall];
+                contactT = wall == i - 1 ? temp[wall] + flux * r : temp[wall] - flux * r;
+                roofFlux = flux;
             } else {
                 double wa = kc[i - 1] * invDz[i - 1];
                 double wb = kc[i] * invDz[i];
                 contactT = (wa * temp[i - 1] + wb * temp[i]) / (wa + wb);
+                roofFlux = g[i] * (temp[i] - temp[i - 1]);
             }
+            firstSillT = mFirstT / sillThickness;
         }
 
         /**
@@ -1126,7 +1363,7 @@ public final class SillModel {
                 }
                 solves++;
                 boolean clipped = substituteAndUpdate();
-                if (!clipped && constK) {
+                if (!clipped && !nonlinearFaces) {
                     return true;
                 }
             }
@@ -1140,26 +1377,26 @@ public final class SillModel {
          * sweep's factors in {@code work}.
          */
         private double assembleAndEliminate(double dt) {
-            if (!constK) {
+            if (nonlinearFaces) {
                 faces();
             }
             double maxR = 0;
-            int last = n - 1;
             double invBet = 1;
             double upPrev = 0;
             double xPrev = 0;
-            for (int i = 0; i <= last; i++) {
+            for (int i = 0; i < n; i = nodeEnd[i]) {
+                int next = nodeEnd[i];
                 double ti = temp[i];
-                double inv = invDz[i];
+                double inv = nodeInv[i];
                 double gA = g[i] * inv;
                 double ta = i == 0 ? tTop : temp[i - 1];
                 double gB;
                 double fluxBelow;
                 double upper;
-                if (i < last) {
-                    gB = g[i + 1] * inv;
-                    fluxBelow = gB * (temp[i + 1] - ti);
-                    upper = -dt * gB * beta[i + 1];
+                if (next < n) {
+                    gB = g[next] * inv;
+                    fluxBelow = gB * (temp[next] - ti);
+                    upper = -dt * gB * beta[next];
                 } else {
                     gB = 0;
                     fluxBelow = qBase * inv;
@@ -1199,10 +1436,11 @@ public final class SillModel {
             resetMeasurements();
             double xNext = 0;
             double e = 0;
-            for (int i = n - 1; i >= 0; i--) {
+            for (int i = lastNode; i >= 0; i = nodePrev[i]) {
+                int next = nodeEnd[i];
                 double x = rhs[i];
-                if (i < n - 1) {
-                    x -= work[i + 1] * xNext;
+                if (next < n) {
+                    x -= work[next] * xNext;
                 }
                 xNext = x;
                 EnthalpyCurve c = curve[i];
@@ -1212,21 +1450,24 @@ public final class SillModel {
                 double lower = c.lower(sg);
                 if (hn > upper) {
                     hn = upper;
-                    seg[i] = sg + 1;
+                    sg = sg + 1;
                     clipped = true;
                 } else if (hn < lower) {
                     hn = lower;
-                    seg[i] = sg - 1;
+                    sg = sg - 1;
                     clipped = true;
                 }
-                h[i] = hn;
-                evaluateCell(i);
-                double d = (hn - hOld[i]) * c.invRhoC();
-                dTheta[i] = d;
-                if (seg[i] == segOld[i]) {
-                    double diff = Math.abs(d - ratio * dThetaPrev[i]);
-                    if (diff > e) {
-                        e = diff;
+                for (int j = i; j < next; j++) {
+                    h[j] = hn;
+                    seg[j] = sg;
+                    evaluateCell(j);
+                    double d = (hn - hOld[j]) * c.invRhoC();
+                    dTheta[j] = d;
+                    if (sg == segOld[j]) {
+                        double diff = Math.abs(d - ratio * dThetaPrev[j]);
+                        if (diff > e) {
+                            e = diff;
+                        }
                     }
                 }
             }
@@ -1285,7 +1526,8 @@ public final class SillModel {
         }
 
         private void record(double t) {
-            series.add(new SillResult.Sample(t, crustMelt, crustPartial, maxCrustF, intrusionMeltMean, contactT, maxT));
+            series.add(new SillResult.Sample(t, crustMelt, crustPartial, maxCrustF, intrusionMeltMean, contactT, maxT,
+                    roofFlux, firstSillT));
         }
 
         /**
@@ -1361,7 +1603,7 @@ public final class SillModel {
             }
             SillResult.Summary summary = new SillResult.Summary(solidification, firstCrustMelt, peakMelt,
                     peakMelt > 0 ? peakTime : null, errorFraction, emplaced, emplaced * sillThickness, faceDepth(topIndex),
-                    hasMantle && maxMantleAll > 0 ? maxMantleAll : null);
+                    hasMantle && maxMantleAll > 0 ? maxMantleAll : null, lockUp);
             SillResult.Numerics numbers = new SillResult.Numerics(n, steps, rejected, solves, cellSteps, smallest,
                     largest);
             return new SillResult(series, summary, profiles, numbers, warnings);

@@ -40,10 +40,12 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param intrusionMeltFraction         mean melt fraction of all intrusion material emplaced so far
      * @param contactTemperature            temperature at the roof of the intrusions (K)
      * @param maxTemperature                highest temperature in the column (K)
+     * @param roofHeatFlux                  heat flux up through the roof of the intrusions (W/m²)
+     * @param firstSillTemperature          mean temperature of the first sill (K)
      */
     public record Sample(double time, double crustMeltThickness, double crustPartiallyMoltenThickness,
                          double maxCrustMeltFraction, double intrusionMeltFraction, double contactTemperature,
-                         double maxTemperature) {
+                         double maxTemperature, double roofHeatFlux, double firstSillTemperature) {
     }
 
     /**
@@ -63,10 +65,13 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param topDepth                  depth of the roof of the intrusions (m), after rounding to a cell face
      * @param maxMantleTemperature      highest temperature (K) the mantle below the Moho reached; {@code null}
      *                                  without a mantle
+     * @param lockUpTime                time (s) at which the first sill's melt fraction fell to the lock-up
+     *                                  fraction and it stopped convecting; {@code null} without convection or
+     *                                  when it still convected at the end
      */
     public record Summary(Double solidificationTime, Double timeToFirstCrustMelt, double peakCrustMeltThickness,
                           Double peakTime, double energyErrorFraction, int sillsEmplaced, double emplacedThickness,
-                          double topDepth, Double maxMantleTemperature) {
+                          double topDepth, Double maxMantleTemperature, Double lockUpTime) {
     }
 
     /** What a cell holds. */

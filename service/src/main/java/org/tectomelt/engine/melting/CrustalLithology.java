@@ -187,8 +187,8 @@ public final class CrustalLithology implements Lithology {
      * Amphibolite, fluid-absent (dehydration melting): melt fraction F(T, P) from the table
      * {@link #AMPHIBOLITE_TABLE}, whose header names its sources (Beard &amp; Lofgren 1991 at 0.3 GPa;
      * Wolf &amp; Wyllie 1994 at 1 GPa; Rapp &amp; Watson 1995 at 0.8–3.2 GPa; values from memory, about
-     * ±0.10 in F and ±25 K). Onset 850 °C to 1 GPa, 900 °C at 2 GPa; at 1 GPa 12 % at 900, 22 % at 950,
-     * 32 % at 1000 and 40 % at 1050 °C. The curve stops at 40 %: no liquidus. Thermal properties:
+     * ±0.10 in F and ±25 K). Onset 850 °C up to 1.6 GPa, 875 °C at 2 GPa; at 1 GPa 12 % at 900, 20 % at
+     * 950, 30 % at 1000 and 40 % at 1050 °C (REFERENCES §3.4). The curve stops at 40 %: no liquidus. Thermal properties:
      * ρ = 3000 kg/m³ (common practice), c = 1100 J/kg/K, L = 270 kJ/kg (REFERENCES §3.5, from memory),
      * mafic k (Miao et al. 2014, gabbro law at 20 °C, 2.27 W/m/K).
      */
