@@ -65,7 +65,7 @@ public final class CrustalLithology implements Lithology {
     public static final ModelInfo METAPELITE_INFO = new ModelInfo("metapelite",
             "Le Breton, N. & Thompson, A.B. (1988) Fluid-absent (dehydration) melting of biotite in metapelites "
                     + "in the early stages of crustal anatexis. Contributions to Mineralogy and Petrology 99, 226-237; "
-                    + "approximate melt curve at about 1 GPa",
+                    + "with the sources below, an approximate F(T, P) table over 0.5-1.5 GPa (values from memory)",
             "10.1007/BF00371463");
     /** Beard &amp; Lofgren (1991), dehydration melting of amphibolites. */
     public static final ModelInfo AMPHIBOLITE_INFO = new ModelInfo("amphibolite",

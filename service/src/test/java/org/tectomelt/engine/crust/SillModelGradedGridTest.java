@@ -18,12 +18,9 @@ class SillModelGradedGridTest {
 
     private static final double KYR = 3.15576e10;
     private static final double C0 = 273.15;
-    /** A pelite-like curve (approximate values of REFERENCES §3.4, invented for the tests). */
-    private static final MeltCurve PELITE = new MeltCurve(new double[] {C0 + 750, C0 + 800, C0 + 850, C0 + 900, C0 + 1000},
-            new double[] {0, 0.05, 0.25, 0.45, 0.6});
-    private static final Rock CRUST = new Rock(2750, 1050, 280_000, ConductivityLaw.constant(2.5), PELITE);
-    private static final Rock BASALT = new Rock(2900, 1100, 400_000, ConductivityLaw.constant(2.5),
-            MeltingIntervals.linear(C0 + 1000, C0 + 1200));
+    private static final MeltCurve PELITE = SillModelTest.PELITE;
+    private static final Rock CRUST = SillModelTest.CRUST;
+    private static final Rock BASALT = SillModelTest.BASALT;
 
     /** One 50 m sill at 28 km in crust at 450 °C, 60 km column, on the default graded grid of spacing h. */
     private static SillModel.Setup single(double h) {
@@ -87,27 +84,7 @@ class SillModelGradedGridTest {
 
     @Test
     void energyIsConservedToRoundOffThroughEmplacementOnAGradedGrid() {
-        InitialState warm = new InitialState() {
-            @Override
-            public double temperature(double z) {
-                return C0 + 10 + 0.02 * z;
-            }
-
-            @Override
-            public double heatProduction(double z) {
-                return 1e-6 * Math.exp(-z / 10e3);
-            }
-
-            @Override
-            public double surfaceTemperature() {
-                return C0 + 10;
-            }
-
-            @Override
-            public double basalHeatFlow(double z) {
-                return 0.04;
-            }
-        };
+        InitialState warm = SillModelTest.WARM;
         Rock crust = new Rock(2750, 1050, 280_000, Miao2014Conductivity.GRANITE, PELITE);
         Rock gabbro = new Rock(2900, 1100, 400_000, Miao2014Conductivity.GABBRO, MeltingIntervals.linear(C0 + 1000, C0 + 1200));
         Rock mantle = new Rock(3300, 1000, 0, ConductivityLaw.constant(3.0), null);
