@@ -45,13 +45,19 @@ public final class SweepEvaluator implements Evaluator {
         Sweep sweep = Sweep.fromDefinition(run.definition(), run.label());
         Operation<?, ?> op = invoker.operations().named(sweep.operation()).orElseThrow(() ->
                 new IllegalArgumentException("this version has no operation '" + sweep.operation() + "'"));
-        return index -> evaluate(sweep, op, index);
+        // the spec's defaults, filled once into the base request: every point was checked against
+        // the spec when the run was accepted, so a point is then only bound, not checked again
+        ObjectNode filled = sweep.pointRequest(0);
+        boolean checked = Sweep.fieldsIndependent(invoker.spec(), op.path())
+                && invoker.spec().check(op.path(), filled, op.caps()).isEmpty();
+        return index -> evaluate(sweep, op, checked ? filled : null, index);
     }
 
-    private PointResult evaluate(Sweep sweep, Operation<?, ?> op, int index) {
+    private PointResult evaluate(Sweep sweep, Operation<?, ?> op, ObjectNode filled, int index) {
         String inputs = json(sweep.inputs(index));
         try {
-            Record result = invoker.prepare(op, sweep.pointRequest(index)).run(Deadline.after(pointBudget));
+            Record result = (filled == null ? invoker.prepare(op, sweep.pointRequest(index))
+                    : bound(op, sweep.pointRequest(filled, index))).run(Deadline.after(pointBudget));
             Map<String, Double> out = invoker.outputs(op.name(), result, sweep.outputs());
             return new PointResult(index, inputs, json(out), null, null);
         } catch (EngineException e) {
@@ -63,6 +69,11 @@ public final class SweepEvaluator implements Evaluator {
             return problem(index, inputs, 503, "over-budget", "Computation budget exceeded",
                     e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS per point)", null);
         }
+    }
+
+    private static <Q extends Record, R extends Record> Invoker.Prepared<Q, R> bound(Operation<Q, R> op,
+                                                                                    ObjectNode tree) {
+        return new Invoker.Prepared<>(op, Json.bind(tree, op.requestType()));
     }
 
     private static PointResult problem(int index, String inputs, int status, String type, String title, String detail,
