@@ -128,7 +128,9 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param timeToFirstCrustMeltChange change of the time to first crustal melt
      * @param peakCrustMeltChange        change of the peak crust melt thickness
      * @param peakTimeChange             change of the time of that peak
-     * @param largestChange              the largest of those changes (0 when none applies)
+     * @param largestChange              the largest of the changes of the solidification time, the first-melt
+     *                                   time and the peak melt thickness (0 when none applies); the time of the
+     *                                   peak, a flat maximum and ill-conditioned, is reported but not included
      * @param converged                  true when the largest change is below {@link #TOLERANCE}
      */
     public record Convergence(double coarseSpacing, Double solidificationTimeChange, Double timeToFirstCrustMeltChange,
