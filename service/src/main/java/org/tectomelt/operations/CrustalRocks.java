@@ -30,6 +30,43 @@ final class CrustalRocks {
     public record MeltPoint(Double temperatureC, Double meltFraction) {
     }
 
+    /** One row of a user melt table F(T, P): a pressure and the melt curve there. */
+    public record TableRow(Double pressureGPa, List<MeltPoint> meltCurve) {
+    }
+
+    /**
+     * A user melt table F(T, P) from its rows ({@code meltTable[r].meltCurve[i]} and
+     * {@code meltTable[r].pressureGPa} named in the violations); null after a violation.
+     */
+    static org.tectomelt.engine.melting.MeltTable meltTable(Rules rules, List<TableRow> rows) {
+        double[] p = new double[rows.size()];
+        List<MeltCurve> curves = new ArrayList<>(rows.size());
+        boolean good = true;
+        for (int r = 0; r < rows.size(); r++) {
+            Rules rv = rules.at("meltTable", r);
+            p[r] = rows.get(r).pressureGPa() * 1e9;
+            if (r > 0 && !(p[r] > p[r - 1])) {
+                rv.error("pressureGPa", "pressures must increase strictly from row to row");
+                good = false;
+            }
+            MeltCurve c = meltCurve(rv, rows.get(r).meltCurve(), null);
+            if (c == null) {
+                good = false;
+                continue;
+            }
+            if (c.fraction(0) != 0) {
+                rv.at("meltCurve", 0).error("meltFraction", "each row must start at melt fraction 0, its solidus");
+                good = false;
+            } else if (!curves.isEmpty() && Math.abs(c.maxFraction() - curves.get(0).maxFraction()) > 1e-12) {
+                rv.at("meltCurve", c.size() - 1).error("meltFraction", "every row must end at the same largest melt "
+                        + "fraction (row 0 ends at " + Rules.format(curves.get(0).maxFraction()) + ")");
+                good = false;
+            }
+            curves.add(c);
+        }
+        return good ? new org.tectomelt.engine.melting.MeltTable(p, curves) : null;
+    }
+
     /** Solidus and liquidus of a linear (or, when equal, isothermal) melting interval. */
     public record MeltingInterval(Double solidusC, Double liquidusC) {
     }

@@ -15,6 +15,7 @@ import org.tectomelt.engine.crust.SillModel;
 import org.tectomelt.engine.crust.SillResult;
 import org.tectomelt.engine.melting.Lithologies;
 import org.tectomelt.engine.melting.MeltCurve;
+import org.tectomelt.engine.melting.MeltTable;
 import org.tectomelt.engine.thermal.ContinentalGeotherm;
 import org.tectomelt.engine.thermal.LithostaticColumn;
 import org.tectomelt.engine.units.Units;
@@ -31,6 +32,8 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
 
     /** Most cells a run may have at its end (column plus emplaced sills). */
     public static final int MAX_CELLS = 20_000;
+    /** Default cell (m) of a uniform grid ({@code gridGrowth} 1), the route's former default. */
+    public static final double UNIFORM_DEFAULT_SPACING_M = 10;
     /** Most accepted time steps of one run. */
     public static final int MAX_TIME_STEPS = 100_000;
     /** Most points per profile when the spacing is left to the default. */
@@ -47,7 +50,7 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
     public record Crust(String lithology, Double initialTemperatureC, Double conductivityWPerMK,
                         String conductivityLaw, Double densityKgPerM3, Double heatCapacityJPerKgK,
                         Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
-                        Double thicknessKm) {
+                        Double thicknessKm, List<CrustalRocks.TableRow> meltTable) {
     }
 
     /** The non-melting mantle below the Moho (the spec fills density and heat capacity). */
@@ -62,7 +65,8 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
     public record Intrusion(String lithology, Double temperatureC, Double thicknessM, Double topDepthKm,
                             Double conductivityWPerMK, String conductivityLaw, Double densityKgPerM3,
                             Double heatCapacityJPerKgK, Double latentHeatJPerKg, List<MeltPoint> meltCurve,
-                            MeltingInterval meltingInterval, Repeat repeat) {
+                            MeltingInterval meltingInterval, Repeat repeat, Boolean convection,
+                            Double lockMeltFraction, Double viscosityPaS, Double thermalExpansivityPerK) {
     }
 
     /** A steady continental geotherm as the initial state (the spec fills its defaults). */
@@ -70,22 +74,25 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                            Double heatProductionScaleKm, String heatProduction, Double surfaceTemperatureC) {
     }
 
-    /** Request (the spec fills {@code columnDepthKm} and {@code gridSpacingM}). */
+    /**
+     * Request (the spec fills {@code columnDepthKm}, {@code gridGrowth}, {@code largestCellM} and
+     * {@code convergenceCheck}; {@code gridSpacingM} defaults to {@link SillModel#resolvingSpacing}).
+     */
     public record Request(Crust crust, Intrusion intrusion, Mantle mantle, Geotherm geotherm, Double columnDepthKm,
                           Double durationKyr, Double gridSpacingM, Double outputEveryKyr, List<Double> profileTimesKyr,
-                          Double profileSpacingM) {
+                          Double profileSpacingM, Double gridGrowth, Double largestCellM, Boolean convergenceCheck) {
     }
 
     /** One entry of the time series. */
     public record Sample(double timeKyr, double crustMeltThicknessM, double crustPartiallyMoltenThicknessM,
                          double maxCrustMeltFraction, double intrusionMeltFraction, double contactTemperatureC,
-                         double maxTemperatureC) {
+                         double maxTemperatureC, double roofHeatFluxMWPerM2, double firstSillTemperatureC) {
     }
 
     /** Key numbers of the run. */
     public record Summary(Double solidificationTimeKyr, Double timeToFirstCrustMeltKyr, double peakCrustMeltThicknessM,
                           Double peakTimeKyr, double energyErrorFraction, int sillsEmplaced, double emplacedThicknessM,
-                          double intrusionTopDepthKm, Double maxMantleTemperatureC) {
+                          double intrusionTopDepthKm, Double maxMantleTemperatureC, Double lockUpTimeKyr) {
     }
 
     /** One point of a profile. */
@@ -100,8 +107,15 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
     public record Boundaries(double surfaceTemperatureC, double basalHeatFlowMWPerM2) {
     }
 
+    /** The grid-convergence check: the run repeated with the finest cell doubled (see {@link SillResult.Convergence}). */
+    public record Convergence(double coarseGridSpacingM, Double solidificationTimeChange,
+                              Double timeToFirstCrustMeltChange, Double peakCrustMeltThicknessChange,
+                              Double peakTimeChange, double largestChange, boolean converged) {
+    }
+
     /** Cost figures of the run. */
-    public record Numerics(int cells, double gridSpacingM, int timeSteps, int rejectedSteps, long linearSolves) {
+    public record Numerics(int cells, double gridSpacingM, int timeSteps, int rejectedSteps, long linearSolves,
+                           double smallestCellM, double largestCellM, Convergence convergence) {
     }
 
     /** The run. */
@@ -157,8 +171,10 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                 new Input("intrusion.repeat.rateMmPerYr", "mm/yr", "emplacement rate", true),
                 new Input("geotherm.surfaceHeatFlowMWPerM2", "mW/m²", "surface heat flow of the initial geotherm",
                         true),
+                new Input("intrusion.lockMeltFraction", "–", "melt fraction at which a convecting sill locks up",
+                        true),
                 new Input("durationKyr", "kyr", "simulated time", false),
-                new Input("gridSpacingM", "m", "grid spacing", false));
+                new Input("gridSpacingM", "m", "finest grid spacing", false));
     }
 
     @Override
@@ -173,7 +189,9 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                 new Output<>("summary.peakTimeKyr", "kyr", "time of the largest crustal melt thickness",
                         r -> r.summary().peakTimeKyr()),
                 new Output<>("summary.maxMantleTemperatureC", "°C", "hottest mantle below the Moho",
-                        r -> r.summary().maxMantleTemperatureC()));
+                        r -> r.summary().maxMantleTemperatureC()),
+                new Output<>("summary.lockUpTimeKyr", "kyr", "time at which the first sill stopped convecting",
+                        r -> r.summary().lockUpTimeKyr()));
     }
 
     @Override
@@ -191,10 +209,19 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
     public Result run(Request q, Deadline deadline) {
         Rules rules = new Rules();
         double durationKyr = q.durationKyr();
-        double dz = q.gridSpacingM();
-        double columnKm = q.columnDepthKm();
         Crust c = q.crust();
         Intrusion b = q.intrusion();
+        double growth = q.gridGrowth() == null ? SillModel.GridPlan.DEFAULT_GROWTH : q.gridGrowth();
+        double dz = q.gridSpacingM() != null ? q.gridSpacingM()
+                : growth == 1.0 ? UNIFORM_DEFAULT_SPACING_M : SillModel.resolvingSpacing(b.thicknessM());
+        double columnKm = q.columnDepthKm();
+        double largest = q.largestCellM() == null ? SillModel.GridPlan.DEFAULT_LARGEST_CELL : q.largestCellM();
+        SillModel.GridPlan plan = growth == 1.0 ? SillModel.GridPlan.UNIFORM : new SillModel.GridPlan(growth, largest);
+        if (!plan.uniform()) {
+            rules.check(largest >= dz, "largestCellM", "must not be below the finest cell gridSpacingM ("
+                    + Rules.format(dz) + " m), got " + Rules.format(largest));
+        }
+        SillModel.Convection convection = convection(rules.at("intrusion"), b);
         Rules cv = rules.at("crust");
         Rules bv = rules.at("intrusion");
         // the lithologies' curves are read at the pressure of the first sill's top
@@ -213,9 +240,18 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
         } else if (c.initialTemperatureC() != null) {
             cv.error("initialTemperatureC", "give crust.initialTemperatureC (a uniform column) or geotherm, not both");
         }
-        MeltCurve crustCurve = crustIn.curve();
-        if (crustCurve == null && c.lithology() == null && c.meltCurve() == null && c.meltingInterval() == null) {
-            cv.error("meltCurve", "the crust needs a lithology, a meltCurve or a meltingInterval");
+        MeltTable crustTable = c.meltTable() == null ? null : CrustalRocks.meltTable(cv, c.meltTable());
+        if (c.meltTable() != null && (c.meltCurve() != null || c.meltingInterval() != null)) {
+            cv.error("meltTable", "give meltTable, meltCurve or meltingInterval, not more than one");
+        }
+        MeltCurve crustCurve = crustTable != null ? crustTable.curveAt(curvePressure) : crustIn.curve();
+        if (crustTable == null && c.meltCurve() == null && c.meltingInterval() == null && crustIn.lithology() != null) {
+            // the catalogue's F(T, P): each cell reads it at its own pressure
+            crustTable = crustIn.lithology().meltTable();
+        }
+        if (crustCurve == null && c.lithology() == null && c.meltCurve() == null && c.meltingInterval() == null
+                && c.meltTable() == null) {
+            cv.error("meltCurve", "the crust needs a lithology, a meltCurve, a meltingInterval or a meltTable");
         }
         Double mohoKm = c.thicknessKm();
         Rock mantle = null;
@@ -288,6 +324,19 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
         if (columnM / dz < 2) {
             rules.error("gridSpacingM", "the column must span at least two cells");
         }
+        if (c.meltTable() != null && crustTable != null) {
+            // a caller's table must cover the crust's pressures, surface to Moho (or to the column's base)
+            double base = mohoKm == null ? columnM : Math.min(columnM, Units.kmToM(mohoKm));
+            double pBase = CrustalRocks.crustPressure(c.lithology(), c.densityKgPerM3(), base);
+            double pTop = 0;
+            if (!crustTable.covers(pTop, pBase)) {
+                double missing = crustTable.minPressure() > pTop + 1 ? pTop : pBase;
+                rules.error("crust.meltTable", String.format(Locale.ROOT, "must cover the crust's pressures, %.3g to "
+                        + "%.3g GPa (surface to %.4g km); its rows span %.3g to %.3g GPa, so %.3g GPa is not covered",
+                        pTop * 1e-9, pBase * 1e-9, Units.mToKm(base), crustTable.minPressure() * 1e-9,
+                        crustTable.maxPressure() * 1e-9, missing * 1e-9));
+            }
+        }
         rules.throwIfBroken();
 
         SillModel.Intrusions intrusions = new SillModel.Intrusions(thickness, topM, Units.celsiusToKelvin(tb0), count,
@@ -306,8 +355,11 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                     surfaceK, mohoKm == null ? columnM : Units.kmToM(mohoKm), distribution));
         }
         double mohoM = mantle == null ? Double.POSITIVE_INFINITY : Units.kmToM(mohoKm);
+        Rock crustRock = crustTable == null
+                ? new Rock(crustIn.density(), crustIn.heatCapacity(), crustIn.latentHeat(), kC, crustCurve)
+                : new Rock(crustIn.density(), crustIn.heatCapacity(), crustIn.latentHeat(), kC, crustCurve, crustTable);
         SillModel.Setup probe = new SillModel.Setup(
-                new Rock(crustIn.density(), crustIn.heatCapacity(), crustIn.latentHeat(), kC, crustCurve),
+                crustRock,
                 new Rock(intrusionIn.density(), intrusionIn.heatCapacity(), intrusionIn.latentHeat(), kB,
                         intrusionIn.curve()),
                 initial, intrusions, columnM, dz,
@@ -315,7 +367,7 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                 profileKyr.stream().map(Units::kyrToS).toList(), profileM,
                 new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS,
                         config.maxSillCellSteps()),
-                mantle, mohoM);
+                mantle, mohoM, plan, convection);
         long cells = (long) probe.initialCells() + (long) probe.sillsWithinDuration() * probe.cellsPerSill();
         if (cells > MAX_CELLS) {
             throw new OperationException("gridSpacingM", "the column would grow to " + cells + " cells (column plus "
@@ -326,9 +378,12 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
         // shorten columnDepthKm or emplace fewer sills)
         rules.cap("durationKyr", Math.ceil(probe.minimumCellSteps()), config.maxSillCellSteps(),
                 "the least grid cells × time steps this run needs,", "TECTOMELT_MAX_SILL_CELL_STEPS");
+        // the column at its end: samples of a profile lie at least the spacing apart (and are cells)
+        double finalDepth = columnM + probe.sillsWithinDuration() * thickness;
         if (profileSpacing != null) {
-            double stride = Math.max(1, Math.rint(profileSpacing / dz));
-            rules.cap("profileSpacingM", Math.ceil(cells / stride), config.maxProfilePoints(), "points per profile",
+            double points = plan.uniform() ? Math.ceil(cells / Math.max(1, Math.rint(profileSpacing / dz)))
+                    : Math.min(cells, Math.floor(finalDepth / profileSpacing) + 1);
+            rules.cap("profileSpacingM", points, config.maxProfilePoints(), "points per profile",
                     "TECTOMELT_MAX_PROFILE_POINTS");
         }
         rules.throwIfBroken();
@@ -336,13 +391,15 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
         if (profileSpacing == null) {
             int perProfile = Math.min(DEFAULT_PROFILE_POINTS, config.maxProfilePoints());
             int stride = (int) Math.max(1, (cells + perProfile - 1) / perProfile);
+            double spacing = plan.uniform() ? stride * dz : Math.max(dz, finalDepth / (perProfile - 1));
             setup = new SillModel.Setup(probe.crust(), probe.intrusion(), probe.initial(), intrusions, columnM, dz,
-                    probe.duration(), probe.outputEvery(), probe.profileTimes(), stride * dz, probe.numerics(),
-                    probe.mantle(), probe.mohoDepth());
+                    probe.duration(), probe.outputEvery(), probe.profileTimes(), spacing, probe.numerics(),
+                    probe.mantle(), probe.mohoDepth(), plan, convection);
         }
         SillResult r;
         try {
-            r = SillModel.run(setup, deadline);
+            r = Boolean.FALSE.equals(q.convergenceCheck()) ? SillModel.run(setup, deadline)
+                    : SillModel.runWithConvergenceCheck(setup, deadline);
         } catch (SillModel.WorkLimitExceeded e) {
             throw new OperationException("durationKyr", e.getMessage() + " (server caps TECTOMELT_MAX_SILL_CELL_STEPS "
                     + "and " + MAX_TIME_STEPS + " time steps); shorten durationKyr, coarsen gridSpacingM or emplace "
@@ -355,18 +412,41 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
         return result(setup, r, notes, citations);
     }
 
+    /** Convection in the intrusion: {@code convection: true} and its parameters (given only with it), or null. */
+    private static SillModel.Convection convection(Rules rules, Intrusion b) {
+        boolean on = Boolean.TRUE.equals(b.convection());
+        if (!on) {
+            rules.check(b.lockMeltFraction() == null, "lockMeltFraction", "give it with convection: true");
+            rules.check(b.viscosityPaS() == null, "viscosityPaS", "give it with convection: true");
+            rules.check(b.thermalExpansivityPerK() == null, "thermalExpansivityPerK", "give it with convection: true");
+            return null;
+        }
+        double lock = b.lockMeltFraction() == null ? SillModel.Convection.DEFAULT_LOCK_MELT_FRACTION
+                : b.lockMeltFraction();
+        if (!rules.check(lock > 0 && lock < 1, "lockMeltFraction", "must lie strictly between 0 and 1, got "
+                + Rules.format(lock))) {
+            return null;
+        }
+        return new SillModel.Convection(lock,
+                b.viscosityPaS() == null ? SillModel.Convection.DEFAULT_VISCOSITY : b.viscosityPaS(),
+                b.thermalExpansivityPerK() == null ? SillModel.Convection.DEFAULT_EXPANSIVITY
+                        : b.thermalExpansivityPerK(),
+                SillModel.Convection.HUPPERT_SPARKS_COEFFICIENT);
+    }
+
     private static Result result(SillModel.Setup setup, SillResult r, List<String> notes, List<ModelInfo> citations) {
         List<Sample> series = new ArrayList<>(r.series().size());
         for (SillResult.Sample s : r.series()) {
             series.add(new Sample(Units.sToKyr(s.time()), s.crustMeltThickness(), s.crustPartiallyMoltenThickness(),
                     s.maxCrustMeltFraction(), s.intrusionMeltFraction(), Units.kelvinToCelsius(s.contactTemperature()),
-                    Units.kelvinToCelsius(s.maxTemperature())));
+                    Units.kelvinToCelsius(s.maxTemperature()), Units.wPerM2ToMwPerM2(s.roofHeatFlux()),
+                    Units.kelvinToCelsius(s.firstSillTemperature())));
         }
         SillResult.Summary sm = r.summary();
         Double mantleC = sm.maxMantleTemperature() == null ? null : Units.kelvinToCelsius(sm.maxMantleTemperature());
         Summary summary = new Summary(kyrOrNull(sm.solidificationTime()), kyrOrNull(sm.timeToFirstCrustMelt()),
                 sm.peakCrustMeltThickness(), kyrOrNull(sm.peakTime()), sm.energyErrorFraction(), sm.sillsEmplaced(),
-                sm.emplacedThickness(), Units.mToKm(sm.topDepth()), mantleC);
+                sm.emplacedThickness(), Units.mToKm(sm.topDepth()), mantleC, kyrOrNull(sm.lockUpTime()));
         List<String> warnings = new ArrayList<>(notes);
         warnings.addAll(r.warnings());
         boolean mantleAboveSolidus = false;
@@ -395,14 +475,21 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
         Boundaries bc = new Boundaries(Units.kelvinToCelsius(setup.initial().surfaceTemperature()),
                 Units.wPerM2ToMwPerM2(setup.initial().basalHeatFlow(setup.columnDepth())));
         SillResult.Numerics nm = r.numerics();
+        SillResult.Convergence cc = r.convergence();
+        Convergence check = cc == null ? null : new Convergence(cc.coarseSpacing(), cc.solidificationTimeChange(),
+                cc.timeToFirstCrustMeltChange(), cc.peakCrustMeltChange(), cc.peakTimeChange(), cc.largestChange(),
+                cc.converged());
         Numerics numerics = new Numerics(nm.cells(), setup.gridSpacing(), nm.timeSteps(), nm.rejectedSteps(),
-                nm.linearSolves());
+                nm.linearSolves(), nm.smallestCell(), nm.largestCell(), check);
         List<ModelInfo> models = new ArrayList<>(List.of(SillModel.ENTHALPY_METHOD));
         if (setup.initial() instanceof GeothermInitialState) {
             models.add(ContinentalGeotherm.INFO);
         }
         if (setup.intrusions().count() > 1) {
             models.add(SillModel.ANNEN_SPARKS_2002);
+        }
+        if (setup.convection() != null) {
+            models.add(SillModel.HUPPERT_SPARKS_1988);
         }
         if (!setup.crust().conductivity().isConstant() || !setup.intrusion().conductivity().isConstant()) {
             models.add(Miao2014Conductivity.INFO);

@@ -29,6 +29,12 @@ import org.tectomelt.engine.units.Units;
 class CrustalHeatingSillContractTest {
 
     private static final String PATH = "/v1/crustal-heating/sill";
+    /**
+     * These checks run on the uniform grid ({@code gridGrowth: 1}, cells of {@code gridSpacingM}, default
+     * 10 m), the grid the route had before the graded default; {@code SillGradedGridContractTest} covers
+     * the graded grid, its convergence check, convection and melt tables.
+     */
+    private static final String UNIFORM = "\"gridGrowth\": 1, ";
 
     /** An invented pelitic crust at 450 °C (melt curve approximating REFERENCES §3.4, for the demo). */
     static final String CRUST = "\"crust\": {\"initialTemperatureC\": 450, \"conductivityWPerMK\": 2.5, "
@@ -42,7 +48,7 @@ class CrustalHeatingSillContractTest {
             + "\"meltingInterval\": {\"solidusC\": 1000, \"liquidusC\": 1200}";
 
     private static String body(String intrusionExtra, String rest) {
-        return "{" + CRUST + ", \"intrusion\": {" + BASALT + intrusionExtra + "}" + rest + "}";
+        return "{" + UNIFORM + CRUST + ", \"intrusion\": {" + BASALT + intrusionExtra + "}" + rest + "}";
     }
 
     @Test
@@ -114,7 +120,7 @@ class CrustalHeatingSillContractTest {
         // q0 = 60 mW/m², qm = 0.6 q0, hr = 10 km, k = 2.5: the flow at 40 km is
         // 36 + 24·exp(−4) = 36.44 mW/m² (Turcotte & Schubert 2014 ch. 4, closed form)
         String crust = CRUST.replace("\"initialTemperatureC\": 450, ", "");
-        TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, \"topDepthKm\": 30}, "
+        TestServer.json("{" + UNIFORM + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, \"topDepthKm\": 30}, "
                         + "\"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}, \"columnDepthKm\": 40, \"durationKyr\": 10, "
                         + "\"gridSpacingM\": 10, \"profileTimesKyr\": [0], \"profileSpacingM\": 1000}")
                 .post(PATH).then()
@@ -134,7 +140,7 @@ class CrustalHeatingSillContractTest {
         // the mantle right under the newest sill passes the dry solidus at the Moho (1121 °C at
         // 0.27 GPa, Katz et al. 2003)
         String crust = CRUST.replace("\"initialTemperatureC\": 450, ", "\"thicknessKm\": 10, ");
-        TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT.replace("1230", "1350") + ", \"thicknessM\": 500, "
+        TestServer.json("{" + UNIFORM + crust + ", \"intrusion\": {" + BASALT.replace("1230", "1350") + ", \"thicknessM\": 500, "
                         + "\"topDepthKm\": 10, \"repeat\": {\"count\": 6, \"intervalKyr\": 5}}, "
                         + "\"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}, \"mantle\": {\"densityKgPerM3\": 3300}, "
                         + "\"columnDepthKm\": 25, \"durationKyr\": 30, \"gridSpacingM\": 20, \"profileTimesKyr\": [30], "
@@ -153,7 +159,7 @@ class CrustalHeatingSillContractTest {
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10",
                 ", \"durationKyr\": 10, \"mantle\": {}")).post(PATH), "mantle");
         String deep = CRUST.replace("\"initialTemperatureC\": 450, ", "\"initialTemperatureC\": 450, \"thicknessKm\": 70, ");
-        assertInvalidField(TestServer.json("{" + deep + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 250, "
+        assertInvalidField(TestServer.json("{" + UNIFORM + deep + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 250, "
                 + "\"topDepthKm\": 10}, \"durationKyr\": 10}").post(PATH), "crust.thicknessKm");
     }
 
@@ -161,7 +167,7 @@ class CrustalHeatingSillContractTest {
     void namedLithologiesNeedNoPropertiesAndAreCited() {
         // the example in spirit: a metapelite crust and a basalt intrusion with the catalogue's
         // default properties and curves
-        TestServer.json("{\"crust\": {\"lithology\": \"metapelite\", \"initialTemperatureC\": 450}, "
+        TestServer.json("{" + UNIFORM + "\"crust\": {\"lithology\": \"metapelite\", \"initialTemperatureC\": 450}, "
                         + "\"intrusion\": {\"lithology\": \"basalt\", \"temperatureC\": 1230, \"thicknessM\": 250, "
                         + "\"topDepthKm\": 28, \"meltingInterval\": {\"solidusC\": 1000, \"liquidusC\": 1200}, "
                         + "\"repeat\": {\"count\": 3, \"intervalKyr\": 20}}, \"columnDepthKm\": 35, "
@@ -181,17 +187,17 @@ class CrustalHeatingSillContractTest {
                 ", \"durationKyr\": 10, \"geotherm\": {\"surfaceHeatFlowMWPerM2\": 60}")).post(PATH),
                 "crust.initialTemperatureC");
         String crust = CRUST.replace("\"initialTemperatureC\": 450, ", "");
-        assertInvalidField(TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, "
+        assertInvalidField(TestServer.json("{" + UNIFORM + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, "
                 + "\"topDepthKm\": 30}, \"geotherm\": {\"surfaceHeatFlowMWPerM2\": 5}, \"durationKyr\": 10}").post(PATH),
                 "geotherm.surfaceHeatFlowMWPerM2");
-        assertInvalidField(TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, "
+        assertInvalidField(TestServer.json("{" + UNIFORM + crust + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 200, "
                 + "\"topDepthKm\": 30}, \"durationKyr\": 10}").post(PATH), "crust.initialTemperatureC");
     }
 
     @Test
     void temperatureDependentConductivityIsCitedAndItsExtrapolationFlagged() {
         String crust = CRUST.replace("\"conductivityWPerMK\": 2.5", "\"conductivityLaw\": \"miao2014-granite\"");
-        TestServer.json("{" + crust + ", \"intrusion\": {" + BASALT.replace("\"conductivityWPerMK\": 2.5",
+        TestServer.json("{" + UNIFORM + crust + ", \"intrusion\": {" + BASALT.replace("\"conductivityWPerMK\": 2.5",
                         "\"conductivityLaw\": \"miao2014-gabbro\"") + ", \"thicknessM\": 100, \"topDepthKm\": 5}, "
                         + "\"columnDepthKm\": 10, \"durationKyr\": 5}")
                 .post(PATH).then()
@@ -205,7 +211,7 @@ class CrustalHeatingSillContractTest {
     void missingAndOutOfRangeFieldsAreNamed() {
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10", "")).post(PATH),
                 "durationKyr");
-        assertInvalidField(TestServer.json("{\"intrusion\": {}, \"durationKyr\": 10}").post(PATH), "crust");
+        assertInvalidField(TestServer.json("{" + UNIFORM + "\"intrusion\": {}, \"durationKyr\": 10}").post(PATH), "crust");
         assertInvalidField(TestServer.json(body(", \"topDepthKm\": 10", ", \"durationKyr\": 10")).post(PATH),
                 "intrusion.thicknessM");
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"conductivityLaw\": "
@@ -220,7 +226,7 @@ class CrustalHeatingSillContractTest {
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10", ", \"durationKyr\": 10, "
                 + "\"profileTimesKyr\": [11]")).post(PATH), "profileTimesKyr[0]");
         String noCurve = CRUST.substring(0, CRUST.indexOf(", \"meltCurve\"")) + "}";
-        assertInvalidField(TestServer.json("{" + noCurve + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 250, "
+        assertInvalidField(TestServer.json("{" + UNIFORM + noCurve + ", \"intrusion\": {" + BASALT + ", \"thicknessM\": 250, "
                 + "\"topDepthKm\": 10}, \"durationKyr\": 10}").post(PATH), "crust.meltCurve");
         assertInvalidField(TestServer.json(body(", \"thicknessM\": 250, \"topDepthKm\": 10, \"lithology\": \"komatiite\"",
                 ", \"durationKyr\": 10")).post(PATH), "intrusion.lithology");

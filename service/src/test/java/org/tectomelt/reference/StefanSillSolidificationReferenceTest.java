@@ -45,16 +45,46 @@ class StefanSillSolidificationReferenceTest {
         return new BrentSolver(1e-14).solve(200, x -> x * Math.exp(x * x) * (1 + Erf.erf(x)) - rhs, 1e-6, 5);
     }
 
-    /** The textbook 2 m dike (b = 1 m), κ = 0.5e-6 m²/s, in the model on a grid of {@code dz}. */
+    /** The textbook 2 m dike (b = 1 m), κ = 0.5e-6 m²/s, in the model on a uniform grid of {@code dz}. */
     private static SillResult dike(double dz) {
+        return dike(dz, 20, 42, SillModel.GridPlan.UNIFORM);
+    }
+
+    /**
+     * The same dike on a graded grid: {@code dz} at the contacts, growing 10 % per cell to 4 m (a range of
+     * 200 in cell size) in a column of 80 half-thicknesses.
+     */
+    private static SillResult gradedDike(double dz) {
+        return dike(dz, 38, 80, new SillModel.GridPlan(1.1, 4.0));
+    }
+
+    /** The dike with its top {@code top} and the column {@code column} half-thicknesses deep. */
+    private static SillResult dike(double dz, double top, double column, SillModel.GridPlan plan) {
         double b = 1.0;
         double k = KAPPA * RHO * C;
         double ts = b * b / (4 * KAPPA * Math.pow(lambda(C, 1000, L), 2));
         Rock country = new Rock(RHO, C, L, ConductivityLaw.constant(k), null);
         Rock magma = new Rock(RHO, C, L, ConductivityLaw.constant(k), MeltingIntervals.linear(TM, TM));
         return SillModel.run(new SillModel.Setup(country, magma, new InitialState.Uniform(T0),
-                SillModel.Intrusions.single(2 * b, 20 * b, TM), 42 * b, dz, 1.2 * ts, ts / 20, List.of(), dz,
-                SillModel.Numerics.DEFAULT));
+                SillModel.Intrusions.single(2 * b, top * b, TM), column * b, dz, 1.2 * ts, ts / 20, List.of(), dz,
+                SillModel.Numerics.DEFAULT, null, Double.POSITIVE_INFINITY, plan));
+    }
+
+    @Test
+    void onAGradedGridTheDikeSolidifiesAtTheStefanTimeAndTheContactHoldsItsTemperature() {
+        double lambda = lambda(C, 1000, L);
+        double ts = 1.0 / (4 * KAPPA * lambda * lambda);
+        SillResult r = gradedDike(0.02);
+        // the verification: spacing varying by a factor of at least 100 across the column
+        assertTrue(r.numerics().largestCell() / r.numerics().smallestCell() >= 100,
+                r.numerics().smallestCell() + " to " + r.numerics().largestCell());
+        // same tolerances as on the uniform grid: 2 % of b²/(4κλ²), 1 % of Tm − T0 at the contact
+        assertEquals(ts, r.summary().solidificationTime(), 0.02 * ts);
+        assertStefanContact(r);
+        // grid convergence within 1 %, as on the uniform grid
+        double coarse = gradedDike(0.04).summary().solidificationTime();
+        assertEquals(r.summary().solidificationTime(), coarse, 0.01 * r.summary().solidificationTime());
+        assertTrue(r.summary().energyErrorFraction() < 1e-10);
     }
 
     @Test
@@ -79,10 +109,14 @@ class StefanSillSolidificationReferenceTest {
 
     @Test
     void theContactStaysAtTheStefanContactTemperatureWhileTheMagmaFreezes() {
+        assertStefanContact(dike(0.02));
+    }
+
+    /** The contact holds Tc = T0 + (Tm − T0)/(1 + erf λ) from 0.1 to 0.9 of the solidification time. */
+    private static void assertStefanContact(SillResult r) {
         double lambda = lambda(C, 1000, L);
         double ts = 1.0 / (4 * KAPPA * lambda * lambda);
         double tc = T0 + (TM - T0) / (1 + Erf.erf(lambda));
-        SillResult r = dike(0.02);
         int checked = 0;
         for (SillResult.Sample s : r.series()) {
             if (s.time() >= 0.1 * ts && s.time() <= 0.9 * ts) {

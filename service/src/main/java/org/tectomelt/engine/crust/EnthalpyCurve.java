@@ -33,11 +33,16 @@ final class EnthalpyCurve {
     private final boolean curveWithoutLatentHeat;
 
     EnthalpyCurve(Rock rock) {
+        this(rock, rock.meltCurve());
+    }
+
+    /** The relation of {@code rock} with melt curve {@code curve} (the rock's curve at one cell's pressure). */
+    EnthalpyCurve(Rock rock, MeltCurve curve) {
+        rock = curve == rock.meltCurve() ? rock : rock.atCurve(curve);
         this.rock = rock;
         this.rhoC = rock.density() * rock.heatCapacity();
         this.invRhoC = 1.0 / rhoC;
         double rhoL = rock.density() * rock.latentHeat();
-        MeltCurve curve = rock.meltCurve();
         List<double[]> knots = new ArrayList<>();
         if (curve != null && rhoL > 0) {
             if (curve.fraction(0) > 0) {

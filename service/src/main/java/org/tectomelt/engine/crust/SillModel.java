@@ -19,8 +19,12 @@ import org.tectomelt.engine.ModelInfo;
  * <pre>
  *   ∂H/∂t = ∂/∂z ( k(T) ∂T/∂z ) + A(z)
  * </pre>
- * on cell-centred finite volumes of uniform size Δz, with the face conductivity the harmonic mean
- * of the two cells (exact flux continuity across a rock contact). Time stepping is backward Euler
+ * on cell-centred finite volumes, uniform or graded ({@link GridPlan}: fine at the sill contacts,
+ * growing smoothly away from them), with the face conductance the two half-cell resistances in series
+ * (exact flux continuity across a rock contact; the harmonic mean of the conductivities on a uniform
+ * grid). On a graded grid the fine cells are planned before the run: the face new sills enter at and
+ * both contacts of every sill are fine, and the fine cells beside the entry face travel with the rock
+ * they belong to as sills are inserted, so no re-gridding (and no remapping error) is needed. Time stepping is backward Euler
  * (fully implicit): H_i^{n+1} − H_i^n = Δt [fluxes and source at n+1]. Backward Euler is chosen over
  * Crank–Nicolson because it is L-stable and, with the M-matrix of implicit conduction, obeys a
  * discrete maximum principle: the sharp temperature step of a freshly emplaced sill and the kinks of
@@ -46,7 +50,7 @@ import org.tectomelt.engine.ModelInfo;
  * θ = H/(ρc) against the previous step's rate, e ≈ Δt_n/(Δt_n + Δt_{n−1}) · max|Δθ_n − (Δt_n/Δt_{n−1}) Δθ_{n−1}|,
  * and the next step is Δt·min(2, max(0.2, 0.9 √(tol/e))); a step with e &gt; 4 tol or without Newton
  * convergence is redone smaller. Steps land exactly on emplacement, output and profile times; after
- * each emplacement the step restarts at 0.05 Δz²/κ.
+ * each emplacement the step restarts at 0.05 Δz²/κ with Δz the finest cell.
  *
  * <h2>Boundary conditions and initial state</h2>
  * The top of the column (z = 0) is held at the initial state's surface temperature; the base
@@ -65,9 +69,19 @@ import org.tectomelt.engine.ModelInfo;
  * every later step works on a longer column.
  *
  * <h2>Cost</h2>
- * Each Newton iteration is a few O(cells) passes, and a step takes one or two iterations unless the
+ * Each Newton iteration is two O(cells) passes over preallocated arrays (the Thomas algorithm's
+ * forward sweep fused with the assembly, its back substitution fused with the update; nothing is
+ * allocated per step), and a step takes one or two iterations unless the
  * melting fronts cross cell segments, so a run costs O(cells × steps). The step count grows with the
  * number of emplacements (each restarts the step) and only logarithmically with the duration.
+ *
+ * <h2>Resolution</h2>
+ * The time of first crustal melt is when the crust first holds a melt layer ∫F dz of
+ * {@link #MELT_ONSET_FRACTION} of one sill's thickness, a quantity that converges as the grid is refined.
+ * {@link #resolvingSpacing} gives a finest cell for which halving it changes the reported times and
+ * melt thicknesses by less than 1 %; {@link #runWithConvergenceCheck} measures that per run. The time
+ * of the melt peak is ill-conditioned (a flat maximum): it is refined by a parabola through the
+ * largest step value and its neighbours, but can still move by about 1–2 % between grids.
  *
  * <h2>Energy check</h2>
  * The run tracks the column's total enthalpy Σ H Δz, the heat through the top and base, the
@@ -91,6 +105,12 @@ public final class SillModel {
             "Annen, C. & Sparks, R.S.J. (2002) Effects of repetitive emplacement of basaltic intrusions on thermal "
                     + "evolution and melt generation in the crust. Earth and Planetary Science Letters 203, 937-955",
             "10.1016/S0012-821X(02)00929-9");
+    /** Provenance of the convecting-sill flux law. */
+    public static final ModelInfo HUPPERT_SPARKS_1988 = new ModelInfo("convecting-sill-huppert-sparks1988",
+            "Huppert, H.E. & Sparks, R.S.J. (1988) The generation of granitic magmas by intrusion of basalt into "
+                    + "continental crust. Journal of Petrology 29, 599-624; turbulent convective heat flux "
+                    + "q = 0.1 k (g alpha / (kappa nu))^(1/3) dT^(4/3) (form and constant from memory)",
+            "10.1093/petrology/29.3.599");
     /** Provenance of the enthalpy method. */
     public static final ModelInfo ENTHALPY_METHOD = new ModelInfo("enthalpy-method-voller1990",
             "Voller, V.R., Swaminathan, C.R. & Thomas, B.G. (1990) Fixed grid techniques for phase change "
@@ -105,12 +125,28 @@ public final class SillModel {
 
     /** Melt fraction from which rock counts as partially molten (and crustal melting as started). */
     public static final double MELT_PRESENT = 1e-3;
+    /**
+     * Crust melt thickness ∫F dz, as a fraction of one sill's thickness, that marks the first crustal
+     * melt. A thickness of melt rather than the melt fraction of one cell: the fraction a cell holds
+     * next to a hot contact depends on how thin the cell is (on a fine enough grid, any crust touched
+     * by a contact above its solidus melts at once), while the time a melt layer of given thickness
+     * takes to form converges as the grid is refined. Relative to the sill, so that the time scales
+     * with the square of the thickness as conduction does.
+     */
+    public static final double MELT_ONSET_FRACTION = 1e-2;
     /** Newton stops when every cell's residual, as a temperature H/(ρc), is below this (K). */
     public static final double NEWTON_TOLERANCE_K = 1e-6;
+    /** Least temperature drop (K) across a convective boundary layer used for its conductance (keeps it positive). */
+    static final double MIN_BOUNDARY_DROP_K = 1e-3;
     /** Most Newton iterations in one step before the step is redone smaller. */
     public static final int MAX_NEWTON_ITERATIONS = 40;
     /** Fewer cells across a sill than this and the results carry a resolution warning. */
     public static final int MIN_CELLS_PER_SILL_FOR_ACCURACY = 10;
+    /**
+     * Finest cell of the default graded grid as a fraction of the sill thickness (see
+     * {@link #resolvingSpacing}).
+     */
+    public static final double DEFAULT_FINEST_FRACTION = 1.0 / 400;
 
     private SillModel() {
     }
@@ -173,6 +209,119 @@ public final class SillModel {
     }
 
     /**
+     * Convection in a molten intrusion (Huppert &amp; Sparks 1988, J. Petrology 29, 599–624,
+     * doi:10.1093/petrology/29.3.599). While a sill's melt fraction is above {@code lockMeltFraction}
+     * its interior is well mixed (one temperature; the solver lumps its cells into one node, so mixing
+     * is exact and conserves energy) and it gives heat to its roof and floor by the flux law of
+     * turbulent thermal convection at high Rayleigh number used there,
+     * <pre>
+     *   q = λ k (g α / (κ ν))^(1/3) ΔT^(4/3),   ν = μ / ρ,
+     * </pre>
+     * with ΔT the drop from the well-mixed interior to the contact, k, κ and ρ the magma's conductivity,
+     * diffusivity and density, μ its viscosity, α its thermal expansivity and λ = 0.1 (the constant of
+     * the flux law for a layer cooled from a boundary, as used by Huppert &amp; Sparks 1988; value from
+     * memory). The flux does not depend on the layer's thickness. Once its melt fraction falls to the
+     * threshold (crystal lock-up: a crystal framework stops convection near 50–60 % crystals, Marsh
+     * 1981, Contrib. Mineral. Petrol. 78, 85–98, doi:10.1007/BF00371146, from memory) the sill conducts,
+     * as without convection. Viscosity and expansivity are constant (a crystallising magma stiffens:
+     * a constant μ overstates the late flux).
+     *
+     * @param lockMeltFraction melt fraction below which the sill stops convecting, in (0, 1)
+     * @param viscosity        magma viscosity μ (Pa s)
+     * @param expansivity      thermal expansivity α (1/K)
+     * @param coefficient      λ of the flux law
+     */
+    public record Convection(double lockMeltFraction, double viscosity, double expansivity, double coefficient) {
+
+        /** Default lock-up melt fraction: 0.5 (about 50 % crystals; Marsh 1981, from memory). */
+        public static final double DEFAULT_LOCK_MELT_FRACTION = 0.5;
+        /** Default viscosity of a crystal-poor basaltic magma (Pa s): 100, within the 10–1000 Pa s of such melts (common practice). */
+        public static final double DEFAULT_VISCOSITY = 100;
+        /** Default thermal expansivity of basaltic melt (1/K): 5e-5 (from memory). */
+        public static final double DEFAULT_EXPANSIVITY = 5e-5;
+        /** λ of the turbulent flux law (Huppert &amp; Sparks 1988; from memory). */
+        public static final double HUPPERT_SPARKS_COEFFICIENT = 0.1;
+        /** Gravity (m/s²). */
+        private static final double G = 9.81;
+
+        /** Validates the parameters. */
+        public Convection {
+            if (!(lockMeltFraction > 0 && lockMeltFraction < 1)) {
+                throw new EngineException("the lock-up melt fraction must lie strictly between 0 and 1, got "
+                        + lockMeltFraction);
+            }
+            if (!(viscosity > 0) || !(expansivity > 0) || !(coefficient > 0) || !Double.isFinite(viscosity + expansivity
+                    + coefficient)) {
+                throw new EngineException("convection needs a positive viscosity, expansivity and coefficient");
+            }
+        }
+
+        /** The defaults with lock-up at {@code lockMeltFraction}. */
+        public static Convection withLockAt(double lockMeltFraction) {
+            return new Convection(lockMeltFraction, DEFAULT_VISCOSITY, DEFAULT_EXPANSIVITY, HUPPERT_SPARKS_COEFFICIENT);
+        }
+
+        /** A = λ k (g α ρ / (κ μ))^(1/3) (W/m²/K^(4/3)) for a magma of conductivity k, diffusivity κ, density ρ. */
+        public double fluxFactor(double conductivity, double diffusivity, double density) {
+            return coefficient * conductivity * Math.cbrt(G * expansivity * density / (diffusivity * viscosity));
+        }
+
+        /** The convective heat flux q = A ΔT^(4/3) (W/m²) for a drop {@code dT} (K) from the interior to the wall. */
+        public double heatFlux(double dT, double conductivity, double diffusivity, double density) {
+            return fluxFactor(conductivity, diffusivity, density) * Math.pow(Math.abs(dT), 4.0 / 3.0);
+        }
+    }
+
+    /**
+     * How the column is divided into cells. {@link #UNIFORM}: every cell is the grid spacing (the column,
+     * the sills and the top depth rounded to whole cells). Otherwise a graded grid ({@link GradedGrid}):
+     * the grid spacing is the finest cell, at the face where the sills are emplaced (the roof of the first
+     * sill, which under- and over-accretion both keep as the face new sills enter, the fine cells on its
+     * two sides travelling with the rock they belong to) and at both contacts of every sill; cells grow by
+     * the factor {@code growth} per cell away from those faces, up to {@code largestCell}. The column, the
+     * sills, the top depth and the Moho are then exact faces.
+     *
+     * @param growth      ratio of neighbouring cell sizes away from a contact, 1 for a uniform grid, at most 1.5
+     * @param largestCell largest cell (m)
+     */
+    public record GridPlan(double growth, double largestCell) {
+
+        /** A uniform grid of the grid spacing. */
+        public static final GridPlan UNIFORM = new GridPlan(1.0, Double.POSITIVE_INFINITY);
+        /** Default growth ratio of a graded grid: 10 % per cell (common practice for smooth stretching). */
+        public static final double DEFAULT_GROWTH = 1.1;
+        /** Default largest cell of a graded grid (m). */
+        public static final double DEFAULT_LARGEST_CELL = 250;
+        /** Largest growth ratio accepted. */
+        public static final double MAX_GROWTH = 1.5;
+        /** The default graded grid. */
+        public static final GridPlan GRADED = new GridPlan(DEFAULT_GROWTH, DEFAULT_LARGEST_CELL);
+
+        /** Validates the plan. */
+        public GridPlan {
+            if (!(growth >= 1 && growth <= MAX_GROWTH) || !(largestCell > 0)) {
+                throw new EngineException("a grid plan needs a growth ratio between 1 and " + MAX_GROWTH
+                        + " and a positive largest cell");
+            }
+        }
+
+        /** True for a uniform grid. */
+        public boolean uniform() {
+            return growth == 1.0;
+        }
+    }
+
+    /**
+     * Finest cell (m) of the default graded grid for sills of {@code thickness} (m): a fixed fraction of
+     * the thickness, {@link #DEFAULT_FINEST_FRACTION}, small enough that halving it changes the times and
+     * melt thicknesses a run reports by less than 1 % (checked by the convergence tests and reported per
+     * run by {@link #runWithConvergenceCheck}).
+     */
+    public static double resolvingSpacing(double thickness) {
+        return thickness * DEFAULT_FINEST_FRACTION;
+    }
+
+    /**
      * Everything a run needs.
      *
      * @param crust           the country rock
@@ -180,25 +329,46 @@ public final class SillModel {
      * @param initial         initial temperature, heat production and boundary values
      * @param intrusions      the emplacement schedule
      * @param columnDepth     depth of the base of the column before any emplacement (m)
-     * @param gridSpacing     cell size Δz (m)
+     * @param gridSpacing     cell size Δz of a uniform grid, the finest cell of a graded one (m)
      * @param duration        simulated time from the first emplacement (s)
      * @param outputEvery     spacing of the series (s)
      * @param profileTimes    times (s) at which to return whole profiles (may be empty)
-     * @param profileSpacing  spacing of profile samples (m); rounded to whole cells, at least one cell
+     * @param profileSpacing  spacing of profile samples (m): on a uniform grid rounded to whole cells, at
+     *                        least one cell; on a graded grid the least distance between samples (each
+     *                        sample a cell centre, every cell coarser than the spacing sampled)
      * @param numerics        tolerance and work limits
      * @param mantle          non-melting rock below the Moho, or {@code null} when the whole column is crust
      * @param mohoDepth       depth of the crust's base (m); ignored without a mantle
+     * @param grid            how the column is divided into cells
+     * @param convection      convection in the molten intrusions, or {@code null} for conduction only
      */
     public record Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
                         double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
-                        double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth) {
+                        double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth, GridPlan grid,
+                        Convection convection) {
 
-        /** A column of crust only, from the surface to its base. */
+        /** A column without convection in the intrusions. */
+        public Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
+                     double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
+                     double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth, GridPlan grid) {
+            this(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery, profileTimes,
+                    profileSpacing, numerics, mantle, mohoDepth, grid, null);
+        }
+
+        /** A column of crust only, from the surface to its base, on a uniform grid. */
         public Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
                      double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
                      double profileSpacing, Numerics numerics) {
             this(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery, profileTimes,
-                    profileSpacing, numerics, null, Double.POSITIVE_INFINITY);
+                    profileSpacing, numerics, null, Double.POSITIVE_INFINITY, GridPlan.UNIFORM);
+        }
+
+        /** A column on a uniform grid. */
+        public Setup(Rock crust, Rock intrusion, InitialState initial, Intrusions intrusions, double columnDepth,
+                     double gridSpacing, double duration, double outputEvery, List<Double> profileTimes,
+                     double profileSpacing, Numerics numerics, Rock mantle, double mohoDepth) {
+            this(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery, profileTimes,
+                    profileSpacing, numerics, mantle, mohoDepth, GridPlan.UNIFORM);
         }
 
         /** Validates the geometry and times. */
@@ -209,13 +379,18 @@ public final class SillModel {
             if (mantle != null && mantle.meltCurve() != null) {
                 throw new EngineException("the mantle below the Moho does not melt in this model");
             }
-            if (crust == null || intrusion == null || initial == null || intrusions == null || numerics == null) {
-                throw new EngineException("a sill model needs crust, intrusion, initial state, intrusions and numerics");
+            if (crust == null || intrusion == null || initial == null || intrusions == null || numerics == null
+                    || grid == null) {
+                throw new EngineException("a sill model needs crust, intrusion, initial state, intrusions, numerics "
+                        + "and a grid plan");
             }
             if (!(gridSpacing > 0) || !(columnDepth >= 2 * gridSpacing) || !(duration > 0) || !(outputEvery > 0)
                     || !(profileSpacing > 0)) {
                 throw new EngineException("a sill model needs a positive grid spacing, duration, output spacing "
                         + "and profile spacing, and a column of at least two cells");
+            }
+            if (!grid.uniform() && !(grid.largestCell() >= gridSpacing)) {
+                throw new EngineException("the largest cell of a graded grid must not be below its finest");
             }
             if (!(intrusions.topDepth() + intrusions.thickness() <= columnDepth)) {
                 throw new EngineException("the first sill must lie within the column");
@@ -228,16 +403,85 @@ public final class SillModel {
             }
         }
 
+        /** The same setup with another finest spacing (the convergence check halves or doubles it). */
+        public Setup withGridSpacing(double spacing) {
+            return new Setup(crust, intrusion, initial, intrusions, columnDepth, spacing, duration, outputEvery,
+                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, grid, convection);
+        }
+
+        /** The same setup on another grid plan. */
+        public Setup withGrid(GridPlan plan) {
+            return new Setup(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery,
+                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, plan, convection);
+        }
+
+        /** The same setup with convection in the intrusions ({@code null}: conduction only). */
+        public Setup withConvection(Convection c) {
+            return new Setup(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery,
+                    profileTimes, profileSpacing, numerics, mantle, mohoDepth, grid, c);
+        }
+
+        /** Sizes (m) of the cells of the column before any emplacement, from the top down. */
+        public double[] initialCellSizes() {
+            if (grid.uniform()) {
+                double[] sizes = new double[(int) Math.round(columnDepth / gridSpacing)];
+                java.util.Arrays.fill(sizes, gridSpacing);
+                return sizes;
+            }
+            double top = intrusions.topDepth();
+            java.util.function.DoubleUnaryOperator s = GradedGrid.wanted(gridSpacing, grid.growth(),
+                    grid.largestCell(), top);
+            java.util.TreeSet<Double> faces = new java.util.TreeSet<>(List.of(0.0, top, columnDepth));
+            if (mantle != null && mohoDepth > 0 && mohoDepth < columnDepth) {
+                faces.add(mohoDepth);
+            }
+            List<double[]> parts = new ArrayList<>();
+            Double prev = null;
+            for (double f : faces) {
+                if (prev != null && f > prev) {
+                    parts.add(GradedGrid.segment(prev, f, s));
+                }
+                prev = f;
+            }
+            return GradedGrid.join(parts.toArray(new double[0][]));
+        }
+
+        /** Cells of the column above the first sill's top: the index of the face new sills enter at. */
+        public int topCell() {
+            if (grid.uniform()) {
+                return (int) Math.round(intrusions.topDepth() / gridSpacing);
+            }
+            double[] sizes = initialCellSizes();
+            double z = 0;
+            int i = 0;
+            while (i < sizes.length && z + sizes[i] / 2 < intrusions.topDepth()) {
+                z += sizes[i];
+                i++;
+            }
+            return i;
+        }
+
+        /** Sizes (m) of the cells of one sill, from its top down: whole cells on a uniform grid, at least one. */
+        public double[] sillCellSizes() {
+            double b = intrusions.thickness();
+            if (grid.uniform()) {
+                double[] sizes = new double[Math.max(1, (int) Math.round(b / gridSpacing))];
+                java.util.Arrays.fill(sizes, gridSpacing);
+                return sizes;
+            }
+            double largest = Math.max(gridSpacing, Math.min(grid.largestCell(), b / MIN_CELLS_PER_SILL_FOR_ACCURACY));
+            return GradedGrid.segment(0, b, GradedGrid.wanted(gridSpacing, grid.growth(), largest, 0, b));
+        }
+
         /** Cells of the column before any emplacement. */
         public int initialCells() {
-            return (int) Math.round(columnDepth / gridSpacing);
+            return initialCellSizes().length;
         }
 
-        /** Cells of one sill: its thickness rounded to whole cells, at least one. */
+        /** Cells of one sill. */
         public int cellsPerSill() {
-            return Math.max(1, (int) Math.round(intrusions.thickness() / gridSpacing));
+            return sillCellSizes().length;
         }
-
         /** Sills actually emplaced: those whose emplacement time falls before the end of the run. */
         public int sillsWithinDuration() {
             if (intrusions.count() == 1) {
@@ -282,11 +526,13 @@ public final class SillModel {
             double restart = restartStep();
             double cap = maxStep();
             double work = 0;
+            double column = initialCells();
+            double perSill = cellsPerSill();
             for (int k = 0; k < sills; k++) {
                 double span = k + 1 < sills ? intrusions.interval() : duration - k * intrusions.interval();
                 double steps = Math.max(Math.ceil(span / cap),
                         Math.ceil(Math.log(Math.max(1.0, Math.min(span, cap) / restart)) / Math.log(2.0)));
-                work += steps * ((double) initialCells() + (k + 1) * (double) cellsPerSill());
+                work += steps * (column + (k + 1) * perSill);
             }
             return work;
         }
@@ -316,12 +562,65 @@ public final class SillModel {
         return new Run(setup, deadline).run();
     }
 
+    /**
+     * Runs the model, then again with the finest cell doubled, and attaches the relative change of every
+     * reported time and melt thickness between the two ({@link SillResult.Convergence}), with a warning
+     * when a change exceeds {@link SillResult.Convergence#TOLERANCE}. The coarser run costs about half
+     * of the first one on a graded grid (the cell count grows only with the logarithm of the spacing
+     * range; the time steps restart from a step four times longer).
+     *
+     * @throws BudgetExceededException when the deadline passes during either run
+     */
+    public static SillResult runWithConvergenceCheck(Setup setup, Deadline deadline) {
+        SillResult fine = run(setup, deadline);
+        double coarseSpacing = 2 * setup.gridSpacing();
+        if (!(setup.columnDepth() >= 2 * coarseSpacing)
+                || (!setup.grid().uniform() && !(setup.grid().largestCell() >= coarseSpacing))) {
+            return fine.withConvergence(null, List.of("no grid-convergence check: the grid spacing is too coarse "
+                    + "to double"));
+        }
+        SillResult coarse = run(setup.withGridSpacing(coarseSpacing), deadline);
+        SillResult.Summary a = fine.summary();
+        SillResult.Summary b = coarse.summary();
+        Double solid = change(a.solidificationTime(), b.solidificationTime());
+        Double first = change(a.timeToFirstCrustMelt(), b.timeToFirstCrustMelt());
+        Double peak = change(a.peakCrustMeltThickness(), b.peakCrustMeltThickness());
+        Double peakTime = change(a.peakTime(), b.peakTime());
+        double largest = 0;
+        String worst = null;
+        // the time of a flat peak is ill-conditioned (reported, not held to the criterion)
+        String[] names = {"solidification time", "time to first crustal melt", "peak crust melt thickness"};
+        Double[] changes = {solid, first, peak};
+        for (int k = 0; k < changes.length; k++) {
+            if (changes[k] != null && changes[k] > largest) {
+                largest = changes[k];
+                worst = names[k];
+            }
+        }
+        boolean ok = largest < SillResult.Convergence.TOLERANCE;
+        List<String> notes = ok ? List.of() : List.of(String.format(Locale.ROOT, "doubling the finest cell from %.3g m "
+                + "to %.3g m changes the %s by %.1f %%: the results are not converged to 1 %%; use a finer grid "
+                + "spacing", setup.gridSpacing(), coarseSpacing, worst, 100 * largest));
+        return fine.withConvergence(new SillResult.Convergence(coarseSpacing, solid, first, peak, peakTime, largest, ok),
+                notes);
+    }
+
+    /** |fine − coarse| / max(|fine|, |coarse|); null when either is absent, 0 when both are 0. */
+    private static Double change(Double fine, Double coarse) {
+        if (fine == null || coarse == null) {
+            return null;
+        }
+        double scale = Math.max(Math.abs(fine), Math.abs(coarse));
+        return scale == 0 ? 0.0 : Math.abs(fine - coarse) / scale;
+    }
+
     /** The mutable state of one run. */
     private static final class Run {
 
         private final Setup s;
         private final Deadline deadline;
-        private final double dz;
+        /** Finest cell (m): the grid spacing. */
+        private final double dzMin;
         private final EnthalpyCurve[] rocks;
         private final ConductivityLaw[] laws;
         private final double[] constantK;
@@ -333,6 +632,10 @@ public final class SillModel {
         private final double qBase;
         private final int topIndex;
         private final int sillCells;
+        private final double[] sillDz;
+        private final double sillThickness;
+        /** Crust melt thickness (m) that marks the first crustal melt. */
+        private final double onsetThickness;
         private final double sillEnthalpy;
         private final int sillSegment;
         private final double dtRestart;
@@ -340,6 +643,9 @@ public final class SillModel {
         private final double[] emplacementTimes;
 
         private int n;
+        /** Cell sizes (m) and their inverses. */
+        private final double[] dzc;
+        private final double[] invDz;
         private final double[] h;
         private final double[] hOld;
         private final double[] heat;
@@ -359,6 +665,23 @@ public final class SillModel {
         private final int[] segOld;
         private final int[] sill;
         private final byte[] rock;
+        /** Enthalpy relation of each cell: its rock's, with the melt curve at its pressure for a rock with a table. */
+        private final EnthalpyCurve[] curve;
+        /**
+         * The solver's nodes: a cell, or all cells of a convecting sill lumped into one (well mixed). At the
+         * first cell of each node: the first cell of the next node, the previous node's first cell (−1 for
+         * the first node) and 1/(node thickness).
+         */
+        private final int[] nodeEnd;
+        private final int[] nodePrev;
+        private final double[] nodeInv;
+        private int lastNode;
+        /** Convection in the intrusions, or null; whether sill k (1-based) still convects; its last melt fraction. */
+        private final Convection convection;
+        private final boolean[] convecting;
+        private final double[] sillMeltPrev;
+        private final boolean nonlinearFaces;
+        private Double lockUp;
 
         private int emplaced;
         private int emplacedCells;
@@ -387,8 +710,12 @@ public final class SillModel {
         private double mPartial;
         private double mMaxF;
         private double mIntrMelt;
-        private int mIntrCells;
+        private double mIntrCells;
         private double mFirst;
+        private double mFirstT;
+        /** Heat flux up through the roof of the intrusions (W/m²) and the first sill's mean temperature (K). */
+        private double roofFlux;
+        private double firstSillT;
         private double mMaxT;
         private double mMaxMantleT;
         private double maxMantleAll = Double.NEGATIVE_INFINITY;
@@ -400,6 +727,12 @@ public final class SillModel {
         private Double firstCrustMelt;
         private double peakMelt;
         private double peakTime = Double.NaN;
+        /** The largest crust melt thickness over the steps and its time, and the last three (time, thickness). */
+        private double peakSample = Double.NEGATIVE_INFINITY;
+        private double peakSampleTime = Double.NaN;
+        private final double[] histT = new double[3];
+        private final double[] histM = new double[3];
+        private int histCount;
 
         private final List<SillResult.Sample> series = new ArrayList<>();
         private final List<SillResult.Profile> profiles = new ArrayList<>();
@@ -408,7 +741,7 @@ public final class SillModel {
         Run(Setup setup, Deadline deadline) {
             this.s = setup;
             this.deadline = deadline;
-            this.dz = setup.gridSpacing();
+            this.dzMin = setup.gridSpacing();
             Rock mantle = setup.mantle() == null ? setup.crust() : setup.mantle();
             this.hasMantle = setup.mantle() != null;
             this.rocks = new EnthalpyCurve[] {new EnthalpyCurve(setup.crust()), new EnthalpyCurve(setup.intrusion()),
@@ -421,8 +754,15 @@ public final class SillModel {
             this.tolerance = setup.numerics().toleranceK();
             this.tTop = setup.initial().surfaceTemperature();
             this.qBase = setup.initial().basalHeatFlow(setup.columnDepth());
-            this.topIndex = (int) Math.round(setup.intrusions().topDepth() / dz);
-            this.sillCells = setup.cellsPerSill();
+            this.topIndex = setup.topCell();
+            this.sillDz = setup.sillCellSizes();
+            this.sillCells = sillDz.length;
+            double thick = 0;
+            for (double d : sillDz) {
+                thick += d;
+            }
+            this.sillThickness = thick;
+            this.onsetThickness = MELT_ONSET_FRACTION * setup.intrusions().thickness();
             this.sillEnthalpy = rocks[1].enthalpy(setup.intrusions().temperature());
             this.sillSegment = rocks[1].segment(sillEnthalpy);
 
@@ -434,8 +774,12 @@ public final class SillModel {
             this.dtRestart = setup.restartStep();
             this.dtMax = setup.maxStep();
 
-            int cap0 = setup.finalCells();
-            n = setup.initialCells();
+            double[] column = setup.initialCellSizes();
+            n = column.length;
+            int cap0 = n + sills * sillCells;
+            dzc = new double[cap0];
+            invDz = new double[cap0];
+            System.arraycopy(column, 0, dzc, 0, n);
             h = new double[cap0];
             hOld = new double[cap0];
             heat = new double[cap0];
@@ -455,22 +799,36 @@ public final class SillModel {
             segOld = new int[cap0];
             sill = new int[cap0];
             rock = new byte[cap0];
+            curve = new EnthalpyCurve[cap0];
+            nodeEnd = new int[cap0];
+            nodePrev = new int[cap0];
+            nodeInv = new double[cap0];
+            convection = setup.convection();
+            convecting = new boolean[sills + 1];
+            sillMeltPrev = new double[sills + 1];
+            nonlinearFaces = !constK || convection != null;
+            double zTop = 0;
             for (int i = 0; i < n; i++) {
-                double z = (i + 0.5) * dz;
+                invDz[i] = 1 / dzc[i];
+                double z = zTop + 0.5 * dzc[i];
+                zTop += dzc[i];
                 rock[i] = (byte) (hasMantle && z >= setup.mohoDepth() ? MANTLE : CRUST);
+                curve[i] = rock[i] == CRUST && setup.crust().meltTable() != null
+                        ? new EnthalpyCurve(setup.crust(), setup.crust().curveAt(pressureAt(z))) : rocks[rock[i]];
                 temp[i] = setup.initial().temperature(z);
                 heat[i] = setup.initial().heatProduction(z);
-                sourcePerArea += heat[i] * dz;
+                sourcePerArea += heat[i] * dzc[i];
             }
             if (setup.initial().steady()) {
                 relaxToSteadyState();
             }
             for (int i = 0; i < n; i++) {
-                h[i] = rocks[rock[i]].enthalpy(temp[i]);
-                seg[i] = rocks[rock[i]].segment(h[i]);
+                h[i] = curve[i].enthalpy(temp[i]);
+                seg[i] = curve[i].segment(h[i]);
                 hOrigin[i] = h[i];
             }
             baseInitial = temp[n - 1];
+            buildNodes();
             noteGeometry();
         }
 
@@ -482,7 +840,6 @@ public final class SillModel {
          */
         private void relaxToSteadyState() {
             double[] sampled = java.util.Arrays.copyOf(temp, n);
-            double dz2 = dz * dz;
             double change = Double.POSITIVE_INFINITY;
             int iterations = 0;
             while (change > 1e-7 && iterations < 200) {
@@ -490,13 +847,14 @@ public final class SillModel {
                 for (int i = 0; i < n; i++) {
                     kc[i] = laws[rock[i]].at(temp[i]);
                 }
+                faces();
                 for (int i = 0; i < n; i++) {
-                    double gA = i == 0 ? 2 * kc[0] / dz2 : 2 * kc[i - 1] * kc[i] / ((kc[i - 1] + kc[i]) * dz2);
-                    double gB = i == n - 1 ? 0 : 2 * kc[i] * kc[i + 1] / ((kc[i] + kc[i + 1]) * dz2);
+                    double gA = g[i];
+                    double gB = i == n - 1 ? 0 : g[i + 1];
                     di[i] = gA + gB;
                     lo[i] = i == 0 ? 0 : -gA;
                     up[i] = -gB;
-                    rhs[i] = heat[i] + (i == 0 ? gA * tTop : 0) + (i == n - 1 ? qBase / dz : 0);
+                    rhs[i] = heat[i] * dzc[i] + (i == 0 ? gA * tTop : 0) + (i == n - 1 ? qBase : 0);
                 }
                 Tridiagonal.solve(lo, di, up, rhs, work, n);
                 change = 0;
@@ -523,29 +881,65 @@ public final class SillModel {
             if (largest > 1.0) {
                 warnings.add(String.format(Locale.ROOT, "the initial state is the steady geotherm under the rocks' "
                         + "conductivities, which differs from the constant-conductivity closed form by up to %.0f K "
-                        + "(%.1f km deep)", largest, (where + 0.5) * dz / 1e3));
+                        + "(%.1f km deep)", largest, depthOf(where) / 1e3));
             }
+        }
+
+        /**
+         * Lithostatic pressure (Pa) at depth {@code z} (m) of the column before any emplacement, ρ g z with the
+         * crust's density: the pressure at which a crust cell's melt curve is read. A cell keeps its curve when
+         * later sills push it down (the weight of the sills above is not added), which keeps its enthalpy
+         * relation, and so the energy balance, fixed.
+         */
+        private double pressureAt(double z) {
+            return s.crust().density() * org.tectomelt.engine.thermal.LithostaticColumn.G * z;
+        }
+
+        /** Depth (m) of the centre of cell {@code i}. */
+        private double depthOf(int i) {
+            double z = 0;
+            for (int k = 0; k < i; k++) {
+                z += dzc[k];
+            }
+            return z + 0.5 * dzc[i];
+        }
+
+        /** Depth (m) of the face above cell {@code i}. */
+        private double faceDepth(int i) {
+            double z = 0;
+            for (int k = 0; k < i; k++) {
+                z += dzc[k];
+            }
+            return z;
         }
 
         private void noteGeometry() {
             Intrusions in = s.intrusions();
-            double thick = sillCells * dz;
-            if (Math.abs(thick - in.thickness()) > 1e-9 * in.thickness()) {
+            if (Math.abs(sillThickness - in.thickness()) > 1e-9 * in.thickness()) {
                 warnings.add(String.format(Locale.ROOT, "each sill is %.6g m thick (%d cells of %.6g m), not the "
-                        + "%.6g m asked for: sills are whole cells", thick, sillCells, dz, in.thickness()));
+                        + "%.6g m asked for: sills are whole cells", sillThickness, sillCells, dzMin, in.thickness()));
             }
-            if (Math.abs(topIndex * dz - in.topDepth()) > 1e-6) {
+            if (Math.abs(faceDepth(topIndex) - in.topDepth()) > 1e-6) {
                 warnings.add(String.format(Locale.ROOT, "the sill top is placed at %.6g m, the cell face nearest "
-                        + "the %.6g m asked for", topIndex * dz, in.topDepth()));
+                        + "the %.6g m asked for", faceDepth(topIndex), in.topDepth()));
             }
-            if (Math.abs(n * dz - s.columnDepth()) > 1e-6) {
+            if (Math.abs(faceDepth(n) - s.columnDepth()) > 1e-6) {
                 warnings.add(String.format(Locale.ROOT, "the column is %.6g m deep (whole cells), not %.6g m",
-                        n * dz, s.columnDepth()));
+                        faceDepth(n), s.columnDepth()));
             }
             if (sillCells < MIN_CELLS_PER_SILL_FOR_ACCURACY) {
                 warnings.add(String.format(Locale.ROOT, "a sill spans only %d cells: solidification times and "
                         + "melt thicknesses are coarse; use a grid spacing of at most %.3g m", sillCells,
                         in.thickness() / MIN_CELLS_PER_SILL_FOR_ACCURACY));
+            }
+            org.tectomelt.engine.melting.MeltTable table = s.crust().meltTable();
+            if (table != null) {
+                double crustBase = hasMantle ? Math.min(s.mohoDepth(), s.columnDepth()) : s.columnDepth();
+                if (!table.covers(0, pressureAt(crustBase))) {
+                    warnings.add(String.format(Locale.ROOT, "the crust's melt table covers %.2f-%.2f GPa, its column "
+                            + "0-%.2f GPa: beyond the table the nearest row is used", table.minPressure() * 1e-9,
+                            table.maxPressure() * 1e-9, pressureAt(crustBase) * 1e-9));
+                }
             }
             if (s.sillsWithinDuration() < in.count()) {
                 warnings.add(String.format(Locale.ROOT, "only %d of the %d sills fall within the duration and were "
@@ -576,8 +970,7 @@ public final class SillModel {
                 firstCrustMelt = 0.0;
                 warnings.add("the crust holds melt from the start: its initial temperature is above its solidus");
             }
-            peakMelt = crustMelt;
-            peakTime = 0;
+            updatePeak(0);
             while (nextOutput < outputs.length && outputs[nextOutput] <= 0) {
                 record(0);
                 nextOutput++;
@@ -588,7 +981,7 @@ public final class SillModel {
             }
 
             double dt = dtRestart;
-            double prevCrustF = maxCrustF;
+            double prevCrustMelt = crustMelt;
             double prevFirstSill = firstSillMelt;
             double prevStep = 0;
             boolean prevValid = false;
@@ -641,12 +1034,15 @@ public final class SillModel {
                     throw new WorkLimitExceeded(String.format(Locale.ROOT, "the run needs more than %d time steps and "
                             + "was stopped at %.3g of the duration", s.numerics().maxSteps(), t / duration));
                 }
-                energyIn += step * (2 * kc[0] / dz * (tTop - temp[0]) + qBase + sourcePerArea);
+                energyIn += step * (g[0] * (tTop - temp[0]) + qBase + sourcePerArea);
                 double[] swap = dThetaPrev;
                 dThetaPrev = dTheta;
                 dTheta = swap;
-                track(tPrev, t, prevCrustF, prevFirstSill);
-                prevCrustF = maxCrustF;
+                if (convection != null) {
+                    checkLockUp(tPrev, t);
+                }
+                track(tPrev, t, prevCrustMelt, prevFirstSill);
+                prevCrustMelt = crustMelt;
                 prevFirstSill = firstSillMelt;
 
                 double factor = !prevValid || err <= 0 ? 2.0 : Math.min(2.0, Math.max(0.2, 0.9 * Math.sqrt(tolerance / err)));
@@ -663,7 +1059,7 @@ public final class SillModel {
                     ratio = 0;
                     evaluate();
                     updatePeak(t);
-                    prevCrustF = maxCrustF;
+                    prevCrustMelt = crustMelt;
                     prevFirstSill = firstSillMelt;
                     dt = dtRestart;
                     prevValid = false;
@@ -704,31 +1100,153 @@ public final class SillModel {
             System.arraycopy(h, j, h, j + m, tail);
             System.arraycopy(seg, j, seg, j + m, tail);
             System.arraycopy(rock, j, rock, j + m, tail);
+            System.arraycopy(curve, j, curve, j + m, tail);
             System.arraycopy(sill, j, sill, j + m, tail);
             System.arraycopy(heat, j, heat, j + m, tail);
             System.arraycopy(hOrigin, j, hOrigin, j + m, tail);
+            System.arraycopy(dzc, j, dzc, j + m, tail);
+            System.arraycopy(invDz, j, invDz, j + m, tail);
             emplaced++;
             for (int i = j; i < j + m; i++) {
+                dzc[i] = sillDz[i - j];
+                invDz[i] = 1 / dzc[i];
                 h[i] = sillEnthalpy;
                 seg[i] = sillSegment;
                 rock[i] = INTRUSION;
+                curve[i] = rocks[INTRUSION];
                 sill[i] = emplaced;
                 heat[i] = 0;
                 hOrigin[i] = sillEnthalpy;
             }
             n += m;
             emplacedCells += m;
-            energyInserted += m * dz * sillEnthalpy;
+            energyInserted += sillThickness * sillEnthalpy;
+            if (convection != null) {
+                double f = rocks[INTRUSION].fraction(sillEnthalpy, sillSegment, rocks[INTRUSION].temperature(sillEnthalpy,
+                        sillSegment));
+                convecting[emplaced] = f > convection.lockMeltFraction();
+                sillMeltPrev[emplaced] = f;
+                if (!convecting[emplaced] && emplaced == 1) {
+                    lockUp = 0.0;
+                }
+            }
+            buildNodes();
         }
 
-        /** Face conductances k_face/Δz² (W/m³/K): face i lies above cell i, face 0 is the surface. */
+        /** True when cell {@code i} belongs to a sill that is still convecting. */
+        private boolean mixed(int i) {
+            return convection != null && rock[i] == INTRUSION && convecting[sill[i]];
+        }
+
+        /** Groups the cells into the solver's nodes: one per cell, one per convecting sill. */
+        private void buildNodes() {
+            int prev = -1;
+            int i = 0;
+            while (i < n) {
+                int e = i + 1;
+                double size = dzc[i];
+                if (mixed(i)) {
+                    while (e < n && rock[e] == INTRUSION && sill[e] == sill[i]) {
+                        size += dzc[e];
+                        e++;
+                    }
+                }
+                nodeEnd[i] = e;
+                nodePrev[i] = prev;
+                nodeInv[i] = 1 / size;
+                prev = i;
+                i = e;
+            }
+            lastNode = prev;
+        }
+
+        /**
+         * Conductance (W/m²/K) of face {@code f} between cells f − 1 and f when a convecting sill lies on one
+         * or both sides: the convective boundary layer (q = A ΔT_bl^(4/3)) in series with the half cell on the
+         * other side, solved for the boundary layer's share of the temperature difference (u = ΔT_bl^(1/3):
+         * u³ + r A u⁴ = ΔT, by Newton's method from above; convex and increasing, so it converges).
+         */
+        private double convectiveFace(int f) {
+            int a = f - 1;
+            boolean ma = mixed(a);
+            boolean mb = mixed(f);
+            int magmaCell = ma ? a : f;
+            double km = laws[INTRUSION].at(temp[magmaCell]);
+            double factor = convection.fluxFactor(km, km * invRhoC[INTRUSION], s.intrusion().density());
+            double dT = Math.max(Math.abs(temp[a] - temp[f]), MIN_BOUNDARY_DROP_K);
+            if (ma && mb) {
+                // two convecting bodies: two boundary layers sharing the drop equally
+                return factor * Math.cbrt(dT / 2) / 2;
+            }
+            int other = ma ? f : a;
+            double r = 0.5 * dzc[other] / kc[other];
+            double u = Math.min(Math.cbrt(dT), Math.pow(dT / (r * factor), 0.25));
+            for (int it = 0; it < 50; it++) {
+                double u3 = u * u * u;
+                double fu = u3 + r * factor * u3 * u - dT;
+                double step = fu / (3 * u * u + 4 * r * factor * u3);
+                u -= step;
+                if (Math.abs(step) <= 1e-13 * u) {
+                    break;
+                }
+            }
+            double bl = Math.max(u * u * u, MIN_BOUNDARY_DROP_K);
+            return 1 / (1 / (factor * Math.cbrt(bl)) + r);
+        }
+
+        /**
+         * After an accepted step: each convecting sill whose melt fraction fell to the lock-up fraction stops
+         * convecting (the time interpolated within the step for the first sill) and its cells become nodes of
+         * their own.
+         */
+        private void checkLockUp(double t0, double t1) {
+            boolean changed = false;
+            for (int i = 0; i < n; i = nodeEnd[i]) {
+                if (!mixed(i)) {
+                    continue;
+                }
+                int k = sill[i];
+                double f = curve[i].fraction(h[i], seg[i], temp[i]);
+                double lock = convection.lockMeltFraction();
+                if (f <= lock) {
+                    convecting[k] = false;
+                    changed = true;
+                    if (k == 1 && lockUp == null) {
+                        double w = (sillMeltPrev[k] - lock) / (sillMeltPrev[k] - f);
+                        lockUp = t0 + (t1 - t0) * Math.max(0, Math.min(1, w));
+                    }
+                }
+                sillMeltPrev[k] = f;
+            }
+            if (changed) {
+                buildNodes();
+                faces();
+            }
+        }
+
+        /**
+         * Face conductances (W/m²/K): face i lies above cell i, face 0 is the surface. Between cells the two
+         * half-cell resistances Δz/(2k) in series, 1/(Δz₁/(2k₁) + Δz₂/(2k₂)) (the harmonic mean on a uniform
+         * grid; exact flux continuity across a rock contact on any grid).
+         */
         private void faces() {
-            double dz2 = dz * dz;
-            g[0] = 2 * kc[0] / dz2;
+            g[0] = 2 * kc[0] * invDz[0];
             for (int i = 1; i < n; i++) {
                 double k1 = kc[i - 1];
                 double k2 = kc[i];
-                g[i] = 2 * k1 * k2 / ((k1 + k2) * dz2);
+                g[i] = 2 * k1 * k2 / (k1 * dzc[i] + k2 * dzc[i - 1]);
+            }
+            if (convection != null) {
+                for (int i = 0; i < n; i = nodeEnd[i]) {
+                    if (mixed(i)) {
+                        if (i > 0) {
+                            g[i] = convectiveFace(i);
+                        }
+                        if (nodeEnd[i] < n) {
+                            g[nodeEnd[i]] = convectiveFace(nodeEnd[i]);
+                        }
+                    }
+                }
             }
         }
 
@@ -744,7 +1262,7 @@ public final class SillModel {
                     kc[i] = constantK[rock[i]];
                 }
                 evaluateCell(i);
-                double d = (h[i] - hOld[i]) * rocks[rock[i]].invRhoC();
+                double d = (h[i] - hOld[i]) * invRhoC[rock[i]];
                 dTheta[i] = d;
                 e = Math.max(e, Math.abs(d - ratio * dThetaPrev[i]));
             }
@@ -755,7 +1273,7 @@ public final class SillModel {
 
         private void evaluateCell(int i) {
             int r = rock[i];
-            EnthalpyCurve c = rocks[r];
+            EnthalpyCurve c = curve[i];
             int sg = seg[i];
             double hi = h[i];
             double t = c.temperature(hi, sg);
@@ -770,18 +1288,19 @@ public final class SillModel {
                     mMaxMantleT = t;
                 }
             } else if (r == CRUST) {
-                mMelt += f;
+                mMelt += f * dzc[i];
                 if (f >= MELT_PRESENT) {
-                    mPartial++;
+                    mPartial += dzc[i];
                 }
                 if (f > mMaxF) {
                     mMaxF = f;
                 }
             } else {
-                mIntrMelt += f;
-                mIntrCells++;
+                mIntrMelt += f * dzc[i];
+                mIntrCells += dzc[i];
                 if (sill[i] == 1) {
-                    mFirst += f;
+                    mFirst += f * dzc[i];
+                    mFirstT += t * dzc[i];
                 }
             }
             if (t > mMaxT) {
@@ -796,21 +1315,38 @@ public final class SillModel {
             mIntrMelt = 0;
             mIntrCells = 0;
             mFirst = 0;
+            mFirstT = 0;
             mMaxT = Double.NEGATIVE_INFINITY;
             mMaxMantleT = Double.NEGATIVE_INFINITY;
         }
 
         private void finishMeasurements() {
-            crustMelt = mMelt * dz;
-            crustPartial = mPartial * dz;
+            crustMelt = mMelt;
+            crustPartial = mPartial;
             maxCrustF = mMaxF;
             intrusionMeltMean = mIntrCells == 0 ? 0 : mIntrMelt / mIntrCells;
-            firstSillMelt = mFirst * dz;
+            firstSillMelt = mFirst;
             maxT = mMaxT;
             maxTAll = Math.max(maxTAll, mMaxT);
             maxMantleAll = Math.max(maxMantleAll, mMaxMantleT);
             int i = topIndex;
-            contactT = i == 0 ? tTop : (kc[i - 1] * temp[i - 1] + kc[i] * temp[i]) / (kc[i - 1] + kc[i]);
+            if (i == 0) {
+                contactT = tTop;
+                roofFlux = 0;
+            } else if (convection != null && (mixed(i) || mixed(i - 1)) && !(mixed(i) && mixed(i - 1))) {
+                // the wall side of a convective boundary: the half cell beyond the magma carries the flux
+                int wall = mixed(i) ? i - 1 : i;
+                double flux = g[i] * (temp[i] - temp[i - 1]);
+                double r = 0.5 * dzc[wall] / kc[wall];
+                contactT = wall == i - 1 ? temp[wall] + flux * r : temp[wall] - flux * r;
+                roofFlux = flux;
+            } else {
+                double wa = kc[i - 1] * invDz[i - 1];
+                double wb = kc[i] * invDz[i];
+                contactT = (wa * temp[i - 1] + wb * temp[i]) / (wa + wb);
+                roofFlux = g[i] * (temp[i] - temp[i - 1]);
+            }
+            firstSillT = mFirstT / sillThickness;
         }
 
         /**
@@ -833,7 +1369,7 @@ public final class SillModel {
                 }
                 solves++;
                 boolean clipped = substituteAndUpdate();
-                if (!clipped && constK) {
+                if (!clipped && !nonlinearFaces) {
                     return true;
                 }
             }
@@ -847,28 +1383,29 @@ public final class SillModel {
          * sweep's factors in {@code work}.
          */
         private double assembleAndEliminate(double dt) {
-            if (!constK) {
+            if (nonlinearFaces) {
                 faces();
             }
             double maxR = 0;
-            int last = n - 1;
             double invBet = 1;
             double upPrev = 0;
             double xPrev = 0;
-            for (int i = 0; i <= last; i++) {
+            for (int i = 0; i < n; i = nodeEnd[i]) {
+                int next = nodeEnd[i];
                 double ti = temp[i];
-                double gA = g[i];
+                double inv = nodeInv[i];
+                double gA = g[i] * inv;
                 double ta = i == 0 ? tTop : temp[i - 1];
                 double gB;
                 double fluxBelow;
                 double upper;
-                if (i < last) {
-                    gB = g[i + 1];
-                    fluxBelow = gB * (temp[i + 1] - ti);
-                    upper = -dt * gB * beta[i + 1];
+                if (next < n) {
+                    gB = g[next] * inv;
+                    fluxBelow = gB * (temp[next] - ti);
+                    upper = -dt * gB * beta[next];
                 } else {
                     gB = 0;
-                    fluxBelow = qBase / dz;
+                    fluxBelow = qBase * inv;
                     upper = 0;
                 }
                 double r = h[i] - hOld[i] - dt * (gA * (ta - ti) + fluxBelow + heat[i]);
@@ -905,34 +1442,38 @@ public final class SillModel {
             resetMeasurements();
             double xNext = 0;
             double e = 0;
-            for (int i = n - 1; i >= 0; i--) {
+            for (int i = lastNode; i >= 0; i = nodePrev[i]) {
+                int next = nodeEnd[i];
                 double x = rhs[i];
-                if (i < n - 1) {
-                    x -= work[i + 1] * xNext;
+                if (next < n) {
+                    x -= work[next] * xNext;
                 }
                 xNext = x;
-                EnthalpyCurve c = rocks[rock[i]];
+                EnthalpyCurve c = curve[i];
                 int sg = seg[i];
                 double hn = h[i] + x;
                 double upper = c.upper(sg);
                 double lower = c.lower(sg);
                 if (hn > upper) {
                     hn = upper;
-                    seg[i] = sg + 1;
+                    sg = sg + 1;
                     clipped = true;
                 } else if (hn < lower) {
                     hn = lower;
-                    seg[i] = sg - 1;
+                    sg = sg - 1;
                     clipped = true;
                 }
-                h[i] = hn;
-                evaluateCell(i);
-                double d = (hn - hOld[i]) * c.invRhoC();
-                dTheta[i] = d;
-                if (seg[i] == segOld[i]) {
-                    double diff = Math.abs(d - ratio * dThetaPrev[i]);
-                    if (diff > e) {
-                        e = diff;
+                for (int j = i; j < next; j++) {
+                    h[j] = hn;
+                    seg[j] = sg;
+                    evaluateCell(j);
+                    double d = (hn - hOld[j]) * c.invRhoC();
+                    dTheta[j] = d;
+                    if (sg == segOld[j]) {
+                        double diff = Math.abs(d - ratio * dThetaPrev[j]);
+                        if (diff > e) {
+                            e = diff;
+                        }
                     }
                 }
             }
@@ -942,40 +1483,90 @@ public final class SillModel {
         }
 
         /** Solidification of the first sill, first crustal melt and the melt peak, interpolated within the step. */
-        private void track(double t0, double t1, double prevCrustF, double prevFirstSill) {
-            if (solidification == null && prevFirstSill > 0 && firstSillMelt <= 1e-12 * dz) {
+        private void track(double t0, double t1, double prevCrustMelt, double prevFirstSill) {
+            if (solidification == null && prevFirstSill > 0 && firstSillMelt <= 1e-12 * dzMin) {
                 solidification = t0 + (t1 - t0) * prevFirstSill / (prevFirstSill - firstSillMelt);
             }
-            if (firstCrustMelt == null && maxCrustF >= MELT_PRESENT) {
-                double w = (MELT_PRESENT - prevCrustF) / (maxCrustF - prevCrustF);
+            if (firstCrustMelt == null && crustMelt >= onsetThickness) {
+                double w = (onsetThickness - prevCrustMelt) / (crustMelt - prevCrustMelt);
                 firstCrustMelt = t0 + (t1 - t0) * Math.max(0, Math.min(1, w));
             }
             updatePeak(t1);
         }
 
+        /**
+         * Follows the peak of the crust melt thickness. The largest value over the time steps is refined by
+         * the parabola through it and its two neighbours in time, so that the peak and its time do not
+         * depend on where the adaptive steps happen to fall on a flat maximum.
+         */
         private void updatePeak(double t) {
-            if (crustMelt > peakMelt) {
+            if (histCount > 0 && t == histT[2]) {
+                histM[2] = crustMelt;
+            } else {
+                histT[0] = histT[1];
+                histM[0] = histM[1];
+                histT[1] = histT[2];
+                histM[1] = histM[2];
+                histT[2] = t;
+                histM[2] = crustMelt;
+                histCount = Math.min(3, histCount + 1);
+            }
+            if (crustMelt > peakSample) {
+                peakSample = crustMelt;
+                peakSampleTime = t;
                 peakMelt = crustMelt;
                 peakTime = t;
+            } else if (histCount == 3 && histT[1] == peakSampleTime && histM[1] > histM[0]) {
+                double d1 = (histM[1] - histM[0]) / (histT[1] - histT[0]);
+                double d2 = (histM[2] - histM[1]) / (histT[2] - histT[1]);
+                double a = (d2 - d1) / (histT[2] - histT[0]);
+                if (a < 0) {
+                    double tv = 0.5 * (histT[0] + histT[1]) - d1 / (2 * a);
+                    if (tv >= histT[0] && tv <= histT[2]) {
+                        double mv = histM[0] + d1 * (tv - histT[0]) + a * (tv - histT[0]) * (tv - histT[1]);
+                        peakMelt = Math.max(histM[1], mv);
+                        peakTime = tv;
+                    }
+                }
             }
         }
 
         private void record(double t) {
-            series.add(new SillResult.Sample(t, crustMelt, crustPartial, maxCrustF, intrusionMeltMean, contactT, maxT));
+            series.add(new SillResult.Sample(t, crustMelt, crustPartial, maxCrustF, intrusionMeltMean, contactT, maxT,
+                    roofFlux, firstSillT));
         }
 
+        /**
+         * A profile of cell centres: on a uniform grid every stride-th cell (the spacing rounded to whole
+         * cells), on a graded one each cell whose centre lies at least the spacing below the last sampled.
+         */
         private void profile(double t) {
-            int stride = Math.max(1, (int) Math.round(s.profileSpacing() / dz));
-            int count = (n + stride - 1) / stride;
+            double spacing = s.grid().uniform()
+                    ? Math.max(1, Math.round(s.profileSpacing() / dzMin)) * dzMin : s.profileSpacing();
+            int[] pick = new int[n];
+            double[] centre = new double[n];
+            int count = 0;
+            double zTop = 0;
+            double last = Double.NEGATIVE_INFINITY;
+            for (int i = 0; i < n; i++) {
+                double z = zTop + 0.5 * dzc[i];
+                zTop += dzc[i];
+                if (z >= last + spacing * (1 - 1e-9)) {
+                    pick[count] = i;
+                    centre[count] = z;
+                    count++;
+                    last = z;
+                }
+            }
             double[] depth = new double[count];
             double[] tt = new double[count];
             double[] ff = new double[count];
             SillResult.Material[] intr = new SillResult.Material[count];
             for (int k = 0; k < count; k++) {
-                int i = k * stride;
-                depth[k] = (i + 0.5) * dz;
+                int i = pick[k];
+                depth[k] = centre[k];
                 tt[k] = temp[i];
-                ff[k] = rocks[rock[i]].fraction(h[i], seg[i], temp[i]);
+                ff[k] = curve[i].fraction(h[i], seg[i], temp[i]);
                 intr[k] = MATERIALS[rock[i]];
             }
             profiles.add(new SillResult.Profile(t, depth, tt, ff, intr));
@@ -984,17 +1575,20 @@ public final class SillModel {
         private double totalEnergy() {
             double e = 0;
             for (int i = 0; i < n; i++) {
-                e += h[i];
+                e += h[i] * dzc[i];
             }
-            return e * dz;
+            return e;
         }
 
         private SillResult finish() {
             double moved = 0;
+            double smallest = Double.POSITIVE_INFINITY;
+            double largest = 0;
             for (int i = 0; i < n; i++) {
-                moved += Math.abs(h[i] - hOrigin[i]);
+                moved += Math.abs(h[i] - hOrigin[i]) * dzc[i];
+                smallest = Math.min(smallest, dzc[i]);
+                largest = Math.max(largest, dzc[i]);
             }
-            moved *= dz;
             double imbalance = totalEnergy() - energyStart - energyInserted - energyIn;
             double errorFraction = moved > 0 ? Math.abs(imbalance) / moved : 0.0;
             if (solidification == null) {
@@ -1014,9 +1608,10 @@ public final class SillModel {
                         baseChange));
             }
             SillResult.Summary summary = new SillResult.Summary(solidification, firstCrustMelt, peakMelt,
-                    peakMelt > 0 ? peakTime : null, errorFraction, emplaced, emplacedCells * dz, topIndex * dz,
-                    hasMantle && maxMantleAll > 0 ? maxMantleAll : null);
-            SillResult.Numerics numbers = new SillResult.Numerics(n, steps, rejected, solves, cellSteps);
+                    peakMelt > 0 ? peakTime : null, errorFraction, emplaced, emplaced * sillThickness, faceDepth(topIndex),
+                    hasMantle && maxMantleAll > 0 ? maxMantleAll : null, lockUp);
+            SillResult.Numerics numbers = new SillResult.Numerics(n, steps, rejected, solves, cellSteps, smallest,
+                    largest);
             return new SillResult(series, summary, profiles, numbers, warnings);
         }
     }

@@ -12,9 +12,16 @@ import java.util.List;
  * @param numerics  cost and control figures of the run
  * @param warnings  notes for the caller (rounding of the geometry, extrapolated laws, a sill that never
  *                  solidified, ...)
+ * @param convergence the grid-convergence check, or {@code null} when the run was not checked
  */
 public record SillResult(List<Sample> series, Summary summary, List<Profile> profiles, Numerics numerics,
-                         List<String> warnings) {
+                         List<String> warnings, Convergence convergence) {
+
+    /** A result without convergence check. */
+    public SillResult(List<Sample> series, Summary summary, List<Profile> profiles, Numerics numerics,
+                      List<String> warnings) {
+        this(series, summary, profiles, numerics, warnings, null);
+    }
 
     /** Defensive copies. */
     public SillResult {
@@ -33,10 +40,12 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param intrusionMeltFraction         mean melt fraction of all intrusion material emplaced so far
      * @param contactTemperature            temperature at the roof of the intrusions (K)
      * @param maxTemperature                highest temperature in the column (K)
+     * @param roofHeatFlux                  heat flux up through the roof of the intrusions (W/m²)
+     * @param firstSillTemperature          mean temperature of the first sill (K)
      */
     public record Sample(double time, double crustMeltThickness, double crustPartiallyMoltenThickness,
                          double maxCrustMeltFraction, double intrusionMeltFraction, double contactTemperature,
-                         double maxTemperature) {
+                         double maxTemperature, double roofHeatFlux, double firstSillTemperature) {
     }
 
     /**
@@ -44,8 +53,9 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      *
      * @param solidificationTime        time (s) at which the first sill held no melt any more; {@code null} if it
      *                                  still held melt at the end
-     * @param timeToFirstCrustMelt      first time (s) any crust held at least {@link SillModel#MELT_PRESENT}
-     *                                  melt; {@code null} if never
+     * @param timeToFirstCrustMelt      first time (s) the crust held a melt layer ∫F dz of at least
+     *                                  {@link SillModel#MELT_ONSET_FRACTION} of one sill's thickness (0 when it
+     *                                  held melt from the start); {@code null} if never
      * @param peakCrustMeltThickness    largest crust melt thickness (m) over all time steps
      * @param peakTime                  when it occurred (s); {@code null} when the crust never melted
      * @param energyErrorFraction       |enthalpy change − (boundary and source heat + emplaced enthalpy)| divided by
@@ -55,10 +65,13 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param topDepth                  depth of the roof of the intrusions (m), after rounding to a cell face
      * @param maxMantleTemperature      highest temperature (K) the mantle below the Moho reached; {@code null}
      *                                  without a mantle
+     * @param lockUpTime                time (s) at which the first sill's melt fraction fell to the lock-up
+     *                                  fraction and it stopped convecting; {@code null} without convection or
+     *                                  when it still convected at the end
      */
     public record Summary(Double solidificationTime, Double timeToFirstCrustMelt, double peakCrustMeltThickness,
                           Double peakTime, double energyErrorFraction, int sillsEmplaced, double emplacedThickness,
-                          double topDepth, Double maxMantleTemperature) {
+                          double topDepth, Double maxMantleTemperature, Double lockUpTime) {
     }
 
     /** What a cell holds. */
@@ -97,7 +110,41 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param rejectedSteps    steps redone with a smaller time step
      * @param linearSolves     tridiagonal solves (Newton iterations) in all
      * @param cellSteps        Σ cells over accepted and rejected steps: the work measure the limits apply to
+     * @param smallestCell     smallest cell at the end (m)
+     * @param largestCell      largest cell at the end (m)
      */
-    public record Numerics(int cells, int timeSteps, int rejectedSteps, long linearSolves, long cellSteps) {
+    public record Numerics(int cells, int timeSteps, int rejectedSteps, long linearSolves, long cellSteps,
+                           double smallestCell, double largestCell) {
+    }
+
+    /**
+     * The grid-convergence check: the same run with the finest cell doubled, and the relative change of
+     * each reported time and melt thickness from that coarser run to this one, |fine − coarse| / |fine|
+     * ({@code null} where either run has no value, 0 where both are 0). Halving the spacing changes the
+     * results by about a third of these changes for a second-order scheme, so they bound the error of this run.
+     *
+     * @param coarseSpacing              finest cell of the coarser run (m)
+     * @param solidificationTimeChange   change of the solidification time of the first sill
+     * @param timeToFirstCrustMeltChange change of the time to first crustal melt
+     * @param peakCrustMeltChange        change of the peak crust melt thickness
+     * @param peakTimeChange             change of the time of that peak
+     * @param largestChange              the largest of the changes of the solidification time, the first-melt
+     *                                   time and the peak melt thickness (0 when none applies); the time of the
+     *                                   peak, a flat maximum and ill-conditioned, is reported but not included
+     * @param converged                  true when the largest change is below {@link #TOLERANCE}
+     */
+    public record Convergence(double coarseSpacing, Double solidificationTimeChange, Double timeToFirstCrustMeltChange,
+                              Double peakCrustMeltChange, Double peakTimeChange, double largestChange,
+                              boolean converged) {
+
+        /** The resolution criterion: 1 % relative change on doubling the finest cell. */
+        public static final double TOLERANCE = 0.01;
+    }
+
+    /** This result with its convergence check attached. */
+    public SillResult withConvergence(Convergence check, List<String> moreWarnings) {
+        List<String> all = new java.util.ArrayList<>(warnings);
+        all.addAll(moreWarnings);
+        return new SillResult(series, summary, profiles, numerics, all, check);
     }
 }

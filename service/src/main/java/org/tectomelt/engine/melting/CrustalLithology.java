@@ -19,10 +19,12 @@ import org.tectomelt.engine.ModelInfo;
  * <ul>
  *   <li>{@link #graniteWaterSaturated()}: solidus and liquidus after Huang &amp; Wyllie (1973),
  *   pressure-dependent ({@link HuangWyllie1973Granite});</li>
- *   <li>{@link #metapelite()}: fluid-absent muscovite then biotite breakdown melting at about
- *   1 GPa (Le Breton &amp; Thompson 1988);</li>
- *   <li>{@link #amphibolite()}: dehydration melting from 850 °C (Beard &amp; Lofgren 1991; Wolf &amp;
- *   Wyllie 1994);</li>
+ *   <li>{@link #metapelite()}: fluid-absent muscovite then biotite breakdown melting, F(T, P) over
+ *   0.5–1.5 GPa (Le Breton &amp; Thompson 1988; Vielzeuf &amp; Holloway 1988; Patiño Douce &amp; Johnston
+ *   1991), the table {@code /melting/metapelite-fluid-absent.tsv};</li>
+ *   <li>{@link #amphibolite()}: dehydration melting from 850 °C, F(T, P) over 0.3–2.0 GPa (Beard &amp;
+ *   Lofgren 1991; Wolf &amp; Wyllie 1994; Rapp &amp; Watson 1995), the table
+ *   {@code /melting/amphibolite-fluid-absent.tsv};</li>
  *   <li>{@link #basalt()}: an intrusion crystallising over 1200 → 1000 °C (common practice).</li>
  * </ul>
  *
@@ -33,10 +35,16 @@ public final class CrustalLithology implements Lithology {
     /** Highest pressure (GPa) at which any crustal curve is used at all. */
     public static final double HARD_MAX_GPA = 3.0;
 
-    /** Calibrated pressure range of the default metapelite curve (GPa), around the 1 GPa experiments. */
+    /** Pressure range of the metapelite table (GPa); outside it the nearest row is used, with a warning. */
     public static final double METAPELITE_MIN_GPA = 0.5, METAPELITE_MAX_GPA = 1.5;
-    /** Calibrated pressure range of the default amphibolite curve (GPa): experiments at 0.1–1 GPa. */
-    public static final double AMPHIBOLITE_MIN_GPA = 0.1, AMPHIBOLITE_MAX_GPA = 1.0;
+    /** Pressure range of the amphibolite table (GPa); outside it the nearest row is used, with a warning. */
+    public static final double AMPHIBOLITE_MIN_GPA = 0.3, AMPHIBOLITE_MAX_GPA = 2.0;
+    /** The metapelite F(T, P) table (classpath resource). */
+    public static final String METAPELITE_TABLE = "/melting/metapelite-fluid-absent.tsv";
+    /** The amphibolite F(T, P) table (classpath resource). */
+    public static final String AMPHIBOLITE_TABLE = "/melting/amphibolite-fluid-absent.tsv";
+    private static final MeltTable METAPELITE = MeltTable.resource(METAPELITE_TABLE);
+    private static final MeltTable AMPHIBOLITE = MeltTable.resource(AMPHIBOLITE_TABLE);
     /** Pressure range of the basalt crystallisation interval (GPa): crustal intrusions. */
     public static final double BASALT_MIN_GPA = 0.0, BASALT_MAX_GPA = 1.5;
 
@@ -57,7 +65,7 @@ public final class CrustalLithology implements Lithology {
     public static final ModelInfo METAPELITE_INFO = new ModelInfo("metapelite",
             "Le Breton, N. & Thompson, A.B. (1988) Fluid-absent (dehydration) melting of biotite in metapelites "
                     + "in the early stages of crustal anatexis. Contributions to Mineralogy and Petrology 99, 226-237; "
-                    + "approximate melt curve at about 1 GPa",
+                    + "with the sources below, an approximate F(T, P) table over 0.5-1.5 GPa (values from memory)",
             "10.1007/BF00371463");
     /** Beard &amp; Lofgren (1991), dehydration melting of amphibolites. */
     public static final ModelInfo AMPHIBOLITE_INFO = new ModelInfo("amphibolite",
@@ -70,6 +78,22 @@ public final class CrustalLithology implements Lithology {
             "Wolf, M.B. & Wyllie, P.J. (1994) Dehydration-melting of amphibolite at 10 kbar: the effects of "
                     + "temperature and time. Contributions to Mineralogy and Petrology 115, 369-383",
             "10.1007/BF00320972");
+    /** Vielzeuf &amp; Holloway (1988), fluid-absent melting of a pelite. */
+    public static final ModelInfo VIELZEUF_HOLLOWAY_INFO = new ModelInfo("metapelite",
+            "Vielzeuf, D. & Holloway, J.R. (1988) Experimental determination of the fluid-absent melting relations in "
+                    + "the pelitic system. Contributions to Mineralogy and Petrology 98, 257-276 (DOI from memory)",
+            "10.1007/BF00375178");
+    /** Patiño Douce &amp; Johnston (1991), melt productivity of a pelite at 0.7–1.3 GPa. */
+    public static final ModelInfo PATINO_DOUCE_JOHNSTON_INFO = new ModelInfo("metapelite",
+            "Patino Douce, A.E. & Johnston, A.D. (1991) Phase equilibria and melt productivity in the pelitic system: "
+                    + "implications for the origin of peraluminous granitoids and aluminous granulites. Contributions to "
+                    + "Mineralogy and Petrology 107, 202-218 (DOI from memory)",
+            "10.1007/BF00310707");
+    /** Rapp &amp; Watson (1995), dehydration melting of metabasalt at 0.8–3.2 GPa. */
+    public static final ModelInfo RAPP_WATSON_INFO = new ModelInfo("amphibolite",
+            "Rapp, R.P. & Watson, E.B. (1995) Dehydration melting of metabasalt at 8-32 kbar: implications for "
+                    + "continental growth and crust-mantle recycling. Journal of Petrology 36, 891-931 (DOI from memory)",
+            "10.1093/petrology/36.4.891");
     /** Basalt crystallisation interval, common practice. */
     public static final ModelInfo BASALT_INFO = new ModelInfo("basalt",
             "Basalt crystallising between about 1200 and 1000 °C (common practice, no single source); "
@@ -78,6 +102,8 @@ public final class CrustalLithology implements Lithology {
 
     /** Where the melt curve at a pressure comes from. */
     private final DoubleFunction<MeltCurve> curves;
+    /** The F(T, P) table behind {@link #curves}, or {@code null} for a curve used at every pressure or a closed form. */
+    private final MeltTable table;
     private final ModelInfo info;
     private final List<ModelInfo> citations;
     private final String name;
@@ -92,7 +118,21 @@ public final class CrustalLithology implements Lithology {
     private CrustalLithology(DoubleFunction<MeltCurve> curves, ModelInfo info, List<ModelInfo> citations, String name,
                              Kind kind, double minPressure, double maxPressure, ThermalProperties thermal,
                              boolean waterSaturated, boolean callerCurve, HuangWyllie1973Granite granite) {
+        this(curves, null, info, citations, name, kind, minPressure, maxPressure, thermal, waterSaturated, callerCurve,
+                granite);
+    }
+
+    private CrustalLithology(MeltTable table, ModelInfo info, List<ModelInfo> citations, String name, Kind kind,
+                             double minPressure, double maxPressure, ThermalProperties thermal, boolean callerCurve) {
+        this(table::curveAt, table, info, citations, name, kind, minPressure, maxPressure, thermal, false, callerCurve,
+                null);
+    }
+
+    private CrustalLithology(DoubleFunction<MeltCurve> curves, MeltTable table, ModelInfo info, List<ModelInfo> citations,
+                             String name, Kind kind, double minPressure, double maxPressure, ThermalProperties thermal,
+                             boolean waterSaturated, boolean callerCurve, HuangWyllie1973Granite granite) {
         this.curves = curves;
+        this.table = table;
         this.info = info;
         this.citations = List.copyOf(citations);
         this.name = name;
@@ -128,36 +168,35 @@ public final class CrustalLithology implements Lithology {
     }
 
     /**
-     * Metapelite, fluid-absent. Default curve at about 1 GPa: 0 at 750 °C (muscovite breakdown
-     * melting, 700–760 °C, from memory), 5 % at 800, 25 % at 850, 45 % at 900 and 60 % at 1000 °C
-     * (REFERENCES §3.4, from memory, ±10 % absolute), consistent with biotite breakdown melting
-     * beginning at 760–800 °C and being extensive by 850 °C at 1 GPa (Le Breton &amp; Thompson 1988).
-     * The curve stops at 60 %: no liquidus. Thermal properties: ρ = 2750 kg/m³ (common practice),
-     * c = 1100 J/kg/K, L = 270 kJ/kg (REFERENCES §3.5, from memory), felsic k (Miao et al. 2014,
-     * granite law at 20 °C).
+     * Metapelite, fluid-absent: melt fraction F(T, P) from the table {@link #METAPELITE_TABLE}, whose
+     * header names its sources (Le Breton &amp; Thompson 1988; Vielzeuf &amp; Holloway 1988; Patiño
+     * Douce &amp; Johnston 1991; values from memory, about ±0.10 in F and ±25 K). At 1 GPa: 0 at 750 °C,
+     * 5 % at 800, 25 % at 850, 45 % at 900 and 60 % at 1000 °C (REFERENCES §3.4); the onset rises from
+     * 700 °C at 0.5 GPa to 790 °C at 1.5 GPa with the dehydration-melting reactions. The curve stops
+     * at 60 %: no liquidus. Thermal properties: ρ = 2750 kg/m³ (common practice), c = 1100 J/kg/K,
+     * L = 270 kJ/kg (REFERENCES §3.5, from memory), felsic k (Miao et al. 2014, granite law at 20 °C).
      */
     public static CrustalLithology metapelite() {
-        MeltCurve c = celsiusCurve(new double[] {750, 800, 850, 900, 1000}, new double[] {0, 0.05, 0.25, 0.45, 0.60});
-        return new CrustalLithology(p -> c, METAPELITE_INFO, List.of(METAPELITE_INFO),
-                "Metapelite, fluid-absent (approximate curve at about 1 GPa)", Kind.CRUST,
+        return new CrustalLithology(METAPELITE, METAPELITE_INFO, List.of(METAPELITE_INFO, VIELZEUF_HOLLOWAY_INFO,
+                PATINO_DOUCE_JOHNSTON_INFO), "Metapelite, fluid-absent (approximate F(T, P), 0.5-1.5 GPa)", Kind.CRUST,
                 METAPELITE_MIN_GPA * 1e9, METAPELITE_MAX_GPA * 1e9,
-                new ThermalProperties(2750, 1100, 270e3, FELSIC_CONDUCTIVITY), false, false, null);
+                new ThermalProperties(2750, 1100, 270e3, FELSIC_CONDUCTIVITY), false);
     }
 
     /**
-     * Amphibolite, fluid-absent (dehydration melting). Default curve: 0 at 850 °C (onset 850–900 °C,
-     * Beard &amp; Lofgren 1991), 12 % at 900, 20 % at 950, 30 % at 1000 and 40 % at 1050 °C
-     * (REFERENCES §3.4, from memory, ±10 % absolute; the recalled 7 % at 850 °C is replaced by the
-     * published onset, within that tolerance). The curve stops at 40 %: no liquidus. Thermal
-     * properties: ρ = 3000 kg/m³ (common practice), c = 1100 J/kg/K, L = 270 kJ/kg (REFERENCES §3.5,
-     * from memory), mafic k (Miao et al. 2014, gabbro law at 20 °C, 2.27 W/m/K).
+     * Amphibolite, fluid-absent (dehydration melting): melt fraction F(T, P) from the table
+     * {@link #AMPHIBOLITE_TABLE}, whose header names its sources (Beard &amp; Lofgren 1991 at 0.3 GPa;
+     * Wolf &amp; Wyllie 1994 at 1 GPa; Rapp &amp; Watson 1995 at 0.8–3.2 GPa; values from memory, about
+     * ±0.10 in F and ±25 K). Onset 850 °C up to 1.6 GPa, 875 °C at 2 GPa; at 1 GPa 12 % at 900, 20 % at
+     * 950, 30 % at 1000 and 40 % at 1050 °C (REFERENCES §3.4). The curve stops at 40 %: no liquidus. Thermal properties:
+     * ρ = 3000 kg/m³ (common practice), c = 1100 J/kg/K, L = 270 kJ/kg (REFERENCES §3.5, from memory),
+     * mafic k (Miao et al. 2014, gabbro law at 20 °C, 2.27 W/m/K).
      */
     public static CrustalLithology amphibolite() {
-        MeltCurve c = celsiusCurve(new double[] {850, 900, 950, 1000, 1050}, new double[] {0, 0.12, 0.20, 0.30, 0.40});
-        return new CrustalLithology(p -> c, AMPHIBOLITE_INFO, List.of(AMPHIBOLITE_INFO, AMPHIBOLITE_WOLF_WYLLIE_INFO),
-                "Amphibolite, fluid-absent (approximate curve)", Kind.CRUST,
-                AMPHIBOLITE_MIN_GPA * 1e9, AMPHIBOLITE_MAX_GPA * 1e9,
-                new ThermalProperties(3000, 1100, 270e3, MAFIC_CONDUCTIVITY), false, false, null);
+        return new CrustalLithology(AMPHIBOLITE, AMPHIBOLITE_INFO, List.of(AMPHIBOLITE_INFO,
+                AMPHIBOLITE_WOLF_WYLLIE_INFO, RAPP_WATSON_INFO), "Amphibolite, fluid-absent (approximate F(T, P), "
+                + "0.3-2.0 GPa)", Kind.CRUST, AMPHIBOLITE_MIN_GPA * 1e9, AMPHIBOLITE_MAX_GPA * 1e9,
+                new ThermalProperties(3000, 1100, 270e3, MAFIC_CONDUCTIVITY), false);
     }
 
     /**
@@ -186,10 +225,27 @@ public final class CrustalLithology implements Lithology {
                 0.0, HARD_MAX_GPA * 1e9, thermal, waterSaturated, true, null);
     }
 
+    /**
+     * The same rock with the caller's F(T, P) table, used within its pressures (the nearest row beyond
+     * them; a caller such as the sill model checks that the table covers its column).
+     *
+     * @param callers the caller's table, temperatures in K, pressures in Pa
+     */
+    public CrustalLithology withTable(MeltTable callers) {
+        ModelInfo own = new ModelInfo(info.id(), "melt table F(T, P) supplied by the caller", "");
+        return new CrustalLithology(callers, info, List.of(own), baseName() + " (caller's melt table)", kind,
+                callers.minPressure(), callers.maxPressure(), thermal, true);
+    }
+
     /** The same rock with other thermal properties. */
     public CrustalLithology withThermalProperties(ThermalProperties properties) {
-        return new CrustalLithology(curves, info, citations, name, kind, minPressure, maxPressure, properties,
+        return new CrustalLithology(curves, table, info, citations, name, kind, minPressure, maxPressure, properties,
                 waterSaturated, callerCurve, granite);
+    }
+
+    /** The F(T, P) table behind the melt curves, or {@code null} when the curve does not come from one. */
+    public MeltTable meltTable() {
+        return table;
     }
 
     private String baseName() {

@@ -19,10 +19,10 @@ class SillModelTest {
     private static final double YR = 3.15576e7;
     private static final double C0 = 273.15;
     /** A pelite-like curve for the tests (approximate values of REFERENCES §3.4, invented for the tests). */
-    private static final MeltCurve PELITE = new MeltCurve(new double[] {C0 + 750, C0 + 800, C0 + 850, C0 + 900, C0 + 1000},
+    static final MeltCurve PELITE = new MeltCurve(new double[] {C0 + 750, C0 + 800, C0 + 850, C0 + 900, C0 + 1000},
             new double[] {0, 0.05, 0.25, 0.45, 0.6});
-    private static final Rock CRUST = new Rock(2750, 1050, 280_000, ConductivityLaw.constant(2.5), PELITE);
-    private static final Rock BASALT = new Rock(2900, 1100, 400_000, ConductivityLaw.constant(2.5),
+    static final Rock CRUST = new Rock(2750, 1050, 280_000, ConductivityLaw.constant(2.5), PELITE);
+    static final Rock BASALT = new Rock(2900, 1100, 400_000, ConductivityLaw.constant(2.5),
             MeltingIntervals.linear(C0 + 1000, C0 + 1200));
 
     private static SillModel.Setup setup(Rock crust, Rock intrusion, InitialState initial, SillModel.Intrusions in,
@@ -30,6 +30,29 @@ class SillModelTest {
         return new SillModel.Setup(crust, intrusion, initial, in, column, dz, duration, every, profiles, dz,
                 SillModel.Numerics.DEFAULT);
     }
+
+    /** A made-up linear initial state with heat production and heat flowing in at the base. */
+    static final InitialState WARM = new InitialState() {
+        @Override
+        public double temperature(double z) {
+            return C0 + 10 + 0.02 * z;
+        }
+
+        @Override
+        public double heatProduction(double z) {
+            return 1e-6 * Math.exp(-z / 10e3);
+        }
+
+        @Override
+        public double surfaceTemperature() {
+            return C0 + 10;
+        }
+
+        @Override
+        public double basalHeatFlow(double z) {
+            return 0.04;
+        }
+    };
 
     @Test
     void aColumnWithNothingToExchangeStaysAsItWas() {
@@ -45,28 +68,7 @@ class SillModelTest {
 
     @Test
     void theSchemeConservesEnergyWithStackingHeatProductionBasalHeatFlowAndVariableConductivity() {
-        // a made-up linear initial state with heat production and heat flowing in at the base
-        InitialState warm = new InitialState() {
-            @Override
-            public double temperature(double z) {
-                return C0 + 10 + 0.02 * z;
-            }
-
-            @Override
-            public double heatProduction(double z) {
-                return 1e-6 * Math.exp(-z / 10e3);
-            }
-
-            @Override
-            public double surfaceTemperature() {
-                return C0 + 10;
-            }
-
-            @Override
-            public double basalHeatFlow(double z) {
-                return 0.04;
-            }
-        };
+        InitialState warm = WARM;
         Rock crust = new Rock(2750, 1050, 280_000, Miao2014Conductivity.GRANITE, PELITE);
         Rock gabbro = new Rock(2900, 1100, 400_000, Miao2014Conductivity.GABBRO, MeltingIntervals.linear(C0 + 1000, C0 + 1200));
         SillResult r = SillModel.run(setup(crust, gabbro, warm,
