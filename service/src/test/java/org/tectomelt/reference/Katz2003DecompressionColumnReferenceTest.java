@@ -7,6 +7,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.column.ColumnResult;
 import org.tectomelt.engine.column.DecompressionColumn;
+import org.tectomelt.engine.column.MeltingColumn;
 import org.tectomelt.engine.column.ProfilePoint;
 import org.tectomelt.engine.melting.Katz2003Peridotite;
 
@@ -60,7 +61,7 @@ class Katz2003DecompressionColumnReferenceTest {
     @Test
     void theTemperaturePathFollowsTheLawAndEndsCoolerThanTheAdiabat() {
         // Katz et al. (2003): latent heat consumed by melting cools the rock below the melt-free adiabat
-        DecompressionColumn c = column.column();
+        MeltingColumn c = column.column();
         for (ProfilePoint q : column.profile()) {
             assertEquals(q.meltFraction(), Katz2003Peridotite.fertile().meltFraction(q.pressure(), q.temperature(), 0),
                     1e-9);

@@ -23,16 +23,24 @@ import org.tectomelt.engine.ModelInfo;
  *                            chosen upwelling regime; empty when nothing melts
  * @param profile             output points from the onset up to the top (empty when nothing melts)
  * @param warnings            validity notes for the caller (empty when none)
+ * @param lithologies         how each lithology of the source melted, in the order of
+ *                            {@link ProfilePoint#meltFractions()} (one entry for a single-lithology source)
  */
-public record ColumnResult(DecompressionColumn column, Optional<ColumnState> onset, Optional<ColumnState> top,
+public record ColumnResult(MeltingColumn column, Optional<ColumnState> onset, Optional<ColumnState> top,
                            double maxMeltFraction, double meanMeltFraction, double meltIntegral,
                            double meltThickness, double crustalThickness, OptionalDouble meanMeltingPressure,
-                           List<ProfilePoint> profile, List<String> warnings) {
+                           List<ProfilePoint> profile, List<String> warnings, List<LithologyMelting> lithologies) {
 
     /** Defensive copies. */
     public ColumnResult {
         profile = List.copyOf(profile);
         warnings = List.copyOf(warnings);
+        lithologies = List.copyOf(lithologies);
+    }
+
+    /** How melt left the residue. */
+    public MeltingMode mode() {
+        return column.mode();
     }
 
     /** True when some melt forms in the column. */

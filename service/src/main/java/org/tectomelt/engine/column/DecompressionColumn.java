@@ -95,7 +95,7 @@ import org.tectomelt.engine.thermal.LithostaticColumn;
 public record DecompressionColumn(MantleLithology lithology, MantleThermodynamics thermodynamics,
                                   double potentialTemperature, double bulkWater, double lidDepth,
                                   Upwelling upwelling, double outputStep, LithostaticColumn pressures,
-                                  double crustDensity) {
+                                  double crustDensity) implements MeltingColumn {
 
     /** The isentropic melting equation. */
     public static final ModelInfo INFO = new ModelInfo("isentropic-melting-katz2003",
@@ -148,22 +148,8 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
         if (lithology == null || thermodynamics == null || upwelling == null || pressures == null) {
             throw new IllegalArgumentException("lithology, thermodynamics, upwelling and pressures are required");
         }
-        if (!(potentialTemperature > 0) || !Double.isFinite(potentialTemperature)) {
-            throw new EngineException("potential temperature must be a positive temperature in kelvin");
-        }
-        if (!(bulkWater >= 0) || bulkWater > lithology.maxBulkWater()) {
-            throw new EngineException(String.format(Locale.ROOT, "%s accepts bulk water between 0 and %.3g wt%%",
-                    lithology.name(), lithology.maxBulkWater() * 100));
-        }
-        if (!(lidDepth >= 0) || lidDepth > LithostaticColumn.MAX_DEPTH_M) {
-            throw new EngineException("lid depth must be between 0 and 700 km");
-        }
-        if (!(outputStep >= MIN_OUTPUT_STEP) || !Double.isFinite(outputStep)) {
-            throw new EngineException("output step must be at least 10 m");
-        }
-        if (!(crustDensity > 0)) {
-            throw new EngineException("crust density must be positive");
-        }
+        checkCommon(potentialTemperature, lidDepth, outputStep, crustDensity);
+        checkWater(lithology, bulkWater);
     }
 
     /**
@@ -217,6 +203,17 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
                 outputStep, pressures, density);
     }
 
+    /** Batch: the solid residue holds D·X_melt while melting, all the bulk water below the solidus. */
+    private double residueWater(double f, double waterInMelt) {
+        return bulkWater > 0 && f > 0 ? lithology.waterPartition() * waterInMelt : bulkWater;
+    }
+
+    /** Batch melting, always. */
+    @Override
+    public MeltingMode mode() {
+        return MeltingMode.BATCH;
+    }
+
     /** Temperature (K) of the melt-free solid adiabat at pressure {@code p} (Pa). */
     public double adiabatTemperature(double p) {
         MantleThermodynamics th = thermodynamics;
@@ -237,12 +234,6 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
      */
     public OptionalDouble onsetPressure() {
         return onsetBelow(lithology.hardMaxPressure(), true);
-    }
-
-    /** Depth (m) of the onset, or empty. */
-    public OptionalDouble onsetDepth() {
-        OptionalDouble p = onsetPressure();
-        return p.isPresent() ? OptionalDouble.of(pressures.depthAt(p.getAsDouble())) : OptionalDouble.empty();
     }
 
     private double excess(double p) {
@@ -307,7 +298,8 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
 
     private ColumnResult noMelt(Optional<ColumnState> onset, List<String> warnings) {
         return new ColumnResult(this, onset, Optional.empty(), 0.0, 0.0, 0.0, 0.0, 0.0, OptionalDouble.empty(),
-                List.of(), dedupe(warnings));
+                List.of(), dedupe(warnings), List.of(new LithologyMelting(lithology, 1.0,
+                        onset.filter(o -> o.depth() > lidDepth), 0.0, 0.0, 0.0)));
     }
 
     /** Every model the result rests on. */
@@ -335,24 +327,55 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
         a.add("water: batch melting, the bulk water stays in the system and partitions between residue and melt "
                 + "(as in the adiabatic calculations of Katz et al. 2003); fractional extraction would dry the "
                 + "residue after about 1 % melting");
-        a.add(lidDepth > 0
-                ? String.format(Locale.ROOT, "melting stops at the base of a lid at %.1f km", lidDepth / 1e3)
-                : "no lid: melting continues up to the surface");
-        a.add(upwelling == Upwelling.PASSIVE
-                ? "passive (triangular) upwelling: melt thickness = ∫F dz over the column (McKenzie & Bickle 1988); "
-                        + "mean melting pressure weighted by melt production and by the share of columns reaching each "
-                        + "level (Plank & Langmuir 1992)"
-                : "active (columnar) upwelling: every parcel crosses the whole column, melt thickness = F_max × "
-                        + "melting height; mean melting pressure weighted by melt production");
-        a.add(String.format(Locale.ROOT, "crustal thickness = melt thickness × ρs/ρc with ρs = %.0f and ρc = %.0f "
-                + "kg/m³: all melt is extracted and crystallises as crust", th.solidDensity(), crustDensity));
-        a.add(String.format(Locale.ROOT, "pressure from depth: lithostatic, mantle %.0f kg/m³%s, g = %.2f m/s²",
-                pressures.mantleDensity(), pressures.crustThicknessM() > 0
-                        ? String.format(Locale.ROOT, " below %.1f km of crust at %.0f kg/m³",
-                        pressures.crustThicknessM() / 1e3, pressures.crustDensity()) : "", pressures.gravity()));
+        a.addAll(regimeAssumptions(this));
         a.add(String.format(Locale.ROOT, "numerics: Dormand-Prince 8(5,3) adaptive integration in u = F^(1/n) "
                 + "(restarted at cpx exhaustion), relative tolerance %.0e", RELATIVE_TOLERANCE));
         return a;
+    }
+
+    /** The lid, upwelling, crust and pressure assumptions every column states. */
+    static List<String> regimeAssumptions(MeltingColumn c) {
+        LithostaticColumn pressures = c.pressures();
+        return List.of(c.lidDepth() > 0
+                        ? String.format(Locale.ROOT, "melting stops at the base of a lid at %.1f km", c.lidDepth() / 1e3)
+                        : "no lid: melting continues up to the surface",
+                c.upwelling() == Upwelling.PASSIVE
+                        ? "passive (triangular) upwelling: melt thickness = ∫F dz over the column (McKenzie & Bickle "
+                                + "1988); mean melting pressure weighted by melt production and by the share of columns "
+                                + "reaching each level (Plank & Langmuir 1992)"
+                        : "active (columnar) upwelling: every parcel crosses the whole column, melt thickness = F_max × "
+                                + "melting height; mean melting pressure weighted by melt production",
+                String.format(Locale.ROOT, "crustal thickness = melt thickness × ρs/ρc with ρs = %.0f and ρc = %.0f "
+                        + "kg/m³: all melt is extracted and crystallises as crust", c.thermodynamics().solidDensity(),
+                        c.crustDensity()),
+                String.format(Locale.ROOT, "pressure from depth: lithostatic, mantle %.0f kg/m³%s, g = %.2f m/s²",
+                        pressures.mantleDensity(), pressures.crustThicknessM() > 0
+                                ? String.format(Locale.ROOT, " below %.1f km of crust at %.0f kg/m³",
+                                pressures.crustThicknessM() / 1e3, pressures.crustDensity()) : "", pressures.gravity()));
+    }
+
+    /** Checks the bulk water against what the lithology accepts. */
+    static void checkWater(MantleLithology lithology, double bulkWater) {
+        if (!(bulkWater >= 0) || bulkWater > lithology.maxBulkWater()) {
+            throw new EngineException(String.format(Locale.ROOT, "%s accepts bulk water between 0 and %.3g wt%%",
+                    lithology.name(), lithology.maxBulkWater() * 100));
+        }
+    }
+
+    /** Checks the inputs every column shares. */
+    static void checkCommon(double potentialTemperature, double lidDepth, double outputStep, double crustDensity) {
+        if (!(potentialTemperature > 0) || !Double.isFinite(potentialTemperature)) {
+            throw new EngineException("potential temperature must be a positive temperature in kelvin");
+        }
+        if (!(lidDepth >= 0) || lidDepth > LithostaticColumn.MAX_DEPTH_M) {
+            throw new EngineException("lid depth must be between 0 and 700 km");
+        }
+        if (!(outputStep >= MIN_OUTPUT_STEP) || !Double.isFinite(outputStep)) {
+            throw new EngineException("output step must be at least 10 m");
+        }
+        if (!(crustDensity > 0)) {
+            throw new EngineException("crust density must be positive");
+        }
     }
 
     // ---------------------------------------------------------------------------------------------
@@ -544,7 +567,7 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             double tTop = solidAtTop ? adiabatTemperature(pTop) : rates.t;
             maxF = Math.max(maxF, fTop);
             if (profile.get(profile.size() - 1).depth() > zTop + GRID_SLACK) {
-                profile.add(solidAtTop ? new ProfilePoint(zTop, pTop, tTop, 0.0, 0.0, 0.0)
+                profile.add(solidAtTop ? new ProfilePoint(zTop, pTop, tTop, 0.0, 0.0, 0.0, bulkWater)
                         : point(zTop, branch, y[0], -rates.dfdp));
             }
             ColumnState top = new ColumnState(zTop, pTop, tTop, fTop);
@@ -564,7 +587,8 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
                         + "saturation law makes the productivity strongly negative");
             }
             return new ColumnResult(DecompressionColumn.this, Optional.of(onset), Optional.of(top), maxF,
-                    integral / height, integral, thickness, crust, meanP, profile, dedupe(warnings));
+                    integral / height, integral, thickness, crust, meanP, profile, dedupe(warnings),
+                    List.of(new LithologyMelting(lithology, 1.0, Optional.of(onset), maxF, fTop, integral > 0 ? 1.0 : 0.0)));
         }
 
         /** Integrates the current branch from height t0 to the top or an event; returns the height reached. */
@@ -690,14 +714,14 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             double t = lithology.temperatureOnBranch(p, f, bulkWater, b == 1);
             double water = bulkWater > 0 && f > 0 ? lithology.waterInMelt(p, f, bulkWater) : 0.0;
             maxF = Math.max(maxF, f);
-            return new ProfilePoint(z, p, t, f, productivity + 0.0, water);
+            return new ProfilePoint(z, p, t, f, productivity + 0.0, water, residueWater(f, water));
         }
 
         /** Solid-adiabat points between a frozen depth and the next onset (or the top). */
         private void emitSolid(double zFrom, double zTo) {
             while (nextGrid > zTo + GRID_SLACK && nextGrid < zFrom) {
                 double p = pressures.pressureAt(nextGrid);
-                profile.add(new ProfilePoint(nextGrid, p, adiabatTemperature(p), 0.0, 0.0, 0.0));
+                profile.add(new ProfilePoint(nextGrid, p, adiabatTemperature(p), 0.0, 0.0, 0.0, bulkWater));
                 nextGrid -= outputStep;
             }
         }

@@ -35,9 +35,39 @@ import org.tectomelt.engine.ModelInfo;
  * fractions to a few percent absolute and the solidus to some tens of kelvin; the
  * cpx mode {@code Mcpx} (0.17, fertile) is the least certain parameter.
  *
- * @param cpxMode modal clinopyroxene fraction Mcpx of the source (0.17 for fertile peridotite)
+ * <p>Water-saturated solidus. With {@link WetSolidus#KATZ2003} (the default) the law is the paper's.
+ * With {@link WetSolidus#EXPERIMENTAL} the lowering is rescaled with pressure so that the saturated
+ * solidus is the experimental one of {@link WaterSaturatedPeridotiteSolidus} (Grove et al. 2006; Till
+ * et al. 2012): ΔT = s(P)·K·X^γ with s(P) = [Ts(P) − T_sat,exp(P)] / (K·Xsat(P)^γ). The shape of the
+ * lowering in X (γ = 0.75), the saturation water Xsat and the dry law are Katz's; only the size of the
+ * lowering changes: about +15 % at 2 GPa and +25 to +30 % from 3 to 6 GPa, so there less water
+ * starts melting at a given wedge temperature and more melt forms at a given water (tested); near
+ * 1 GPa the experimental curve (about 1000 °C) is the hotter one and the lowering is smaller. s(P) is
+ * held at its 1 and 6 GPa values outside the experiments. This is a choice made here to let the wedge
+ * reach the experimental solidus, not a published law.
+ *
+ * @param cpxMode    modal (mass) fraction Mcpx of clinopyroxene in the source (0.17 fertile; Katz et al.
+ *                   give 0.10–0.17 from depleted to fertile)
+ * @param wetSolidus which water-saturated solidus the lowering reaches
  */
-public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
+public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implements MantleLithology {
+
+    /** Which water-saturated solidus the hydrous lowering reaches. */
+    public enum WetSolidus {
+        /** Katz et al. (2003) as published: ΔT = K·X^γ. */
+        KATZ2003,
+        /** Rescaled to the experimental saturated solidus of Grove et al. (2006) and Till et al. (2012). */
+        EXPERIMENTAL
+    }
+
+    /** Provenance of the variant whose saturated solidus is the experimental one. */
+    public static final ModelInfo EXPERIMENTAL_WET_INFO = new ModelInfo("peridotite-katz2003-experimental-wet",
+            "Katz, R.F., Spiegelman, M. & Langmuir, C.H. (2003) G-cubed 4(9), 1073, with the hydrous solidus "
+                    + "lowering rescaled to the experimental water-saturated solidus of Grove et al. (2006) and "
+                    + "Till, Grove & Withers (2012)",
+            "10.1029/2002GC000433");
+    /** Lowest cpx mass fraction of the paper's depleted-to-fertile range. */
+    public static final double DEPLETED_CPX_MODE = 0.10;
 
     /** Provenance. */
     public static final ModelInfo INFO = new ModelInfo("peridotite-katz2003",
@@ -80,6 +110,19 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         if (!(cpxMode > 0 && cpxMode <= 0.5)) {
             throw new EngineException("cpx mode must be between 0 and 0.5, got " + cpxMode);
         }
+        if (wetSolidus == null) {
+            throw new IllegalArgumentException("wetSolidus is required");
+        }
+    }
+
+    /** The published law with cpx mass fraction {@code cpxMode}. */
+    public Katz2003Peridotite(double cpxMode) {
+        this(cpxMode, WetSolidus.KATZ2003);
+    }
+
+    /** The same source with its saturated solidus pinned to the experiments. */
+    public Katz2003Peridotite withExperimentalWetSolidus() {
+        return new Katz2003Peridotite(cpxMode, WetSolidus.EXPERIMENTAL);
     }
 
     /** The fertile source of the paper (Mcpx = 0.17). */
@@ -89,12 +132,31 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
 
     @Override
     public ModelInfo info() {
-        return INFO;
+        return wetSolidus == WetSolidus.KATZ2003 ? INFO : EXPERIMENTAL_WET_INFO;
+    }
+
+    @Override
+    public List<ModelInfo> citations() {
+        return wetSolidus == WetSolidus.KATZ2003 ? List.of(INFO)
+                : List.of(EXPERIMENTAL_WET_INFO, INFO, WaterSaturatedPeridotiteSolidus.INFO);
     }
 
     @Override
     public String name() {
-        return "Peridotite (Katz, Spiegelman & Langmuir 2003), dry and hydrous";
+        return wetSolidus == WetSolidus.KATZ2003 ? "Peridotite (Katz, Spiegelman & Langmuir 2003), dry and hydrous"
+                : "Peridotite (Katz et al. 2003), hydrous lowering reaching the experimental water-saturated solidus";
+    }
+
+    /** Bulk/melt partition coefficient of water, D = 0.01. */
+    @Override
+    public double waterPartition() {
+        return D_WATER;
+    }
+
+    /** Dry melt fraction at t raised by the lowering for water {@code waterInMelt} in the melt (capped at saturation). */
+    @Override
+    public double meltFractionAtMeltWater(double p, double t, double waterInMelt) {
+        return dryMeltFraction(p, t + depression(p, Math.min(waterInMelt, waterSaturation(p))));
     }
 
     @Override
@@ -173,14 +235,32 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         return waterInMelt <= 0 ? 0.0 : K * Math.pow(waterInMelt * 100.0, GAMMA);
     }
 
+    /**
+     * Lowering (K) of the curves at pressure {@code p} (Pa) for water {@code waterInMelt} (mass
+     * fraction) in the melt: K·X^γ, times the experimental rescaling s(P) for
+     * {@link WetSolidus#EXPERIMENTAL}.
+     */
+    public double depression(double p, double waterInMelt) {
+        double d = solidusDepression(waterInMelt);
+        return wetSolidus == WetSolidus.KATZ2003 || d == 0 ? d : d * experimentalScale(p);
+    }
+
+    /** s(P) = [Ts(P) − T_sat,exp(P)] / (K·Xsat(P)^γ); the experimental curve is held at its ends outside 1–6 GPa. */
+    double experimentalScale(double p) {
+        double pc = Math.min(Math.max(p, WaterSaturatedPeridotiteSolidus.MIN_GPA * 1e9),
+                WaterSaturatedPeridotiteSolidus.MAX_GPA * 1e9);
+        double target = drySolidus(pc) - WaterSaturatedPeridotiteSolidus.temperature(pc);
+        return target / solidusDepression(waterSaturation(pc));
+    }
+
     /** The water-saturated solidus (K): the dry solidus lowered by ΔT(Xsat). */
     public double saturatedSolidus(double p) {
-        return drySolidus(p) - solidusDepression(waterSaturation(p));
+        return drySolidus(p) - depression(p, waterSaturation(p));
     }
 
     /** Solidus (K) lowered by bulk water: incipient melt carries Xbulk / D, capped at saturation. */
     public double wetSolidus(double p, double bulkWater) {
-        return drySolidus(p) - solidusDepression(waterInMelt(p, 0.0, bulkWater));
+        return drySolidus(p) - depression(p, waterInMelt(p, 0.0, bulkWater));
     }
 
     /** Same as {@link #wetSolidus}. */
@@ -197,7 +277,7 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
 
     /** Liquidus (K) at bulk water: the melt carries all the water, capped at saturation. */
     public double wetLiquidus(double p, double bulkWater) {
-        return dryLiquidus(p) - solidusDepression(waterInMelt(p, 1.0, bulkWater));
+        return dryLiquidus(p) - depression(p, waterInMelt(p, 1.0, bulkWater));
     }
 
     /** Water in the melt (mass fraction) at melt fraction {@code f}: Xbulk / (D + F(1 − D)), capped at Xsat. */
@@ -262,21 +342,23 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         double fCpx = cpxExhaustionFraction(p);
         double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
         double xSat = waterSaturation(p);
-        if (dryMeltFraction(t + solidusDepression(Math.min(bulkWater / D_WATER, xSat)), ts, tl, tq, fCpx, tCpx) <= 0) {
+        double scale = wetSolidus == WetSolidus.KATZ2003 ? 1.0 : experimentalScale(p);
+        if (dryMeltFraction(t + scale * solidusDepression(Math.min(bulkWater / D_WATER, xSat)), ts, tl, tq, fCpx, tCpx)
+                <= 0) {
             return 0.0;
         }
-        if (dryMeltFraction(t + solidusDepression(Math.min(bulkWater, xSat)), ts, tl, tq, fCpx, tCpx) >= 1.0) {
+        if (dryMeltFraction(t + scale * solidusDepression(Math.min(bulkWater, xSat)), ts, tl, tq, fCpx, tCpx) >= 1.0) {
             return 1.0;
         }
         BrentSolver solver = new BrentSolver(ROOT_ACCURACY);
         return solver.solve(MAX_EVALUATIONS, f -> f - dryMeltFraction(
-                t + solidusDepression(Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), xSat)),
+                t + scale * solidusDepression(Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), xSat)),
                 ts, tl, tq, fCpx, tCpx), 0.0, 1.0);
     }
 
     @Override
     public double temperatureAt(double p, double f, double bulkWater) {
-        double dT = solidusDepression(waterInMelt(p, f, bulkWater));
+        double dT = depression(p, waterInMelt(p, f, bulkWater));
         double ts = drySolidus(p);
         double fCpx = cpxExhaustionFraction(p);
         if (f <= fCpx) {
@@ -306,7 +388,7 @@ public record Katz2003Peridotite(double cpxMode) implements MantleLithology {
         }
         double ts = drySolidus(p);
         return ts + Math.pow(f, 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts)
-                - solidusDepression(waterInMelt(p, f, bulkWater));
+                - depression(p, waterInMelt(p, f, bulkWater));
     }
 
     private List<String> check(double p, double bulkWater) {

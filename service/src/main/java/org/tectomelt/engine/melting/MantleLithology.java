@@ -69,4 +69,22 @@ public interface MantleLithology extends Lithology {
         }
         return melt(p, temperatureAt(p, f, bulkWater), bulkWater).waterInMelt();
     }
+
+    /**
+     * Bulk/melt partition coefficient D of water, for hydrous laws (0.01 for Katz et al. 2003); 0 for
+     * dry laws. The water of a solid residue in equilibrium with melt holding X is D·X.
+     */
+    default double waterPartition() {
+        return 0.0;
+    }
+
+    /**
+     * Melt fraction (the extent of melting of the source) at pressure {@code p} (Pa) and temperature
+     * {@code t} (K) when the melt present holds water {@code waterInMelt} (mass fraction), whatever
+     * bulk water that implies: the form fractional melting needs, where the melt present is a small
+     * retained fraction while the extent of melting grows. Dry laws ignore the water (the default).
+     */
+    default double meltFractionAtMeltWater(double p, double t, double waterInMelt) {
+        return meltFraction(p, t, 0.0);
+    }
 }

@@ -8,7 +8,8 @@ import org.apache.commons.math3.analysis.solvers.BrentSolver;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.column.ColumnResult;
-import org.tectomelt.engine.column.DecompressionColumn;
+import org.tectomelt.engine.column.MantleSource;
+import org.tectomelt.engine.column.MeltingColumn;
 import org.tectomelt.engine.column.Upwelling;
 import org.tectomelt.engine.melting.MantleLithology;
 import org.tectomelt.engine.thermal.LithostaticColumn;
@@ -34,14 +35,14 @@ import org.tectomelt.engine.thermal.LithostaticColumn;
  * <p>Instantaneous stretching neglects conductive cooling during rifting, so it gives the largest
  * melt thickness for a given β (McKenzie &amp; Bickle 1988 discuss finite stretching times).
  *
- * @param lithology            mantle melting law
+ * @param source               the mantle source (lithologies and melting mode)
  * @param potentialTemperature potential temperature of the asthenosphere (K)
  * @param stretchingFactor     β ≥ 1
  * @param lithosphereThickness thickness a of the unstretched lithosphere (m)
  * @param crustThickness       thickness c of the unstretched crust (m), less than a
  * @param bulkWater            bulk water of the mantle source (mass fraction)
  */
-public record ContinentalRift(MantleLithology lithology, double potentialTemperature, double stretchingFactor,
+public record ContinentalRift(MantleSource source, double potentialTemperature, double stretchingFactor,
                               double lithosphereThickness, double crustThickness, double bulkWater) {
 
     /** Uniform stretching of the lithosphere. */
@@ -56,6 +57,18 @@ public record ContinentalRift(MantleLithology lithology, double potentialTempera
             "10.1029/JB094iB06p07685");
     /** Largest stretching factor searched for the onset. */
     public static final double MAX_STRETCHING_FACTOR = 1e4;
+
+    /** A rift over one lithology melting in batch. */
+    public ContinentalRift(MantleLithology lithology, double potentialTemperature, double stretchingFactor,
+                           double lithosphereThickness, double crustThickness, double bulkWater) {
+        this(MantleSource.of(lithology), potentialTemperature, stretchingFactor, lithosphereThickness, crustThickness,
+                bulkWater);
+    }
+
+    /** The source's main lithology. */
+    public MantleLithology lithology() {
+        return source.peridotite();
+    }
 
     /** Validates the geometry. */
     public ContinentalRift {
@@ -92,8 +105,8 @@ public record ContinentalRift(MantleLithology lithology, double potentialTempera
     }
 
     /** The column beneath the lithosphere stretched by {@code beta}, melting up to a/β. */
-    public DecompressionColumn columnAt(double beta) {
-        DecompressionColumn base = DecompressionColumn.of(lithology, potentialTemperature, bulkWater);
+    public MeltingColumn columnAt(double beta) {
+        MeltingColumn base = source.column(potentialTemperature, bulkWater);
         LithostaticColumn pressures = new LithostaticColumn(crustThickness / beta, LithostaticColumn.CRUST_DENSITY,
                 base.thermodynamics().solidDensity(), LithostaticColumn.G);
         return base.withPressures(pressures).withLidDepth(lithosphereThickness / beta).withUpwelling(Upwelling.PASSIVE)
@@ -129,7 +142,7 @@ public record ContinentalRift(MantleLithology lithology, double potentialTempera
 
     /** Runs the rift. */
     public Result solve() {
-        DecompressionColumn col = columnAt(stretchingFactor);
+        MeltingColumn col = columnAt(stretchingFactor);
         ColumnResult c = col.solve();
         double before = 0.0;
         if (c.onset().isPresent() && c.onset().get().depth() > lithosphereThickness) {

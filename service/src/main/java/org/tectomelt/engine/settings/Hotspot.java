@@ -7,7 +7,8 @@ import java.util.OptionalDouble;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.column.ColumnResult;
-import org.tectomelt.engine.column.DecompressionColumn;
+import org.tectomelt.engine.column.MantleSource;
+import org.tectomelt.engine.column.MeltingColumn;
 import org.tectomelt.engine.column.Upwelling;
 import org.tectomelt.engine.melting.MantleLithology;
 
@@ -27,7 +28,7 @@ import org.tectomelt.engine.melting.MantleLithology;
  * given Tp and w are representative. Excess temperature ΔT = Tp − Tp,ambient; published plume
  * excess temperatures span about 100–300 K and are debated.
  *
- * @param lithology                   mantle melting law
+ * @param source                      the plume's mantle source (lithologies and melting mode)
  * @param potentialTemperature        plume potential temperature (K)
  * @param ambientPotentialTemperature potential temperature of the surrounding mantle (K)
  * @param lithosphereThickness        thickness of the lid (m)
@@ -35,7 +36,7 @@ import org.tectomelt.engine.melting.MantleLithology;
  * @param upwellingVelocity           upwelling velocity w of the plume (m/s)
  * @param bulkWater                   bulk water of the plume source (mass fraction)
  */
-public record Hotspot(MantleLithology lithology, double potentialTemperature, double ambientPotentialTemperature,
+public record Hotspot(MantleSource source, double potentialTemperature, double ambientPotentialTemperature,
                       double lithosphereThickness, double plumeRadius, double upwellingVelocity, double bulkWater) {
 
     /** The lid effect: melting beneath a plume stops at the base of the lithosphere. */
@@ -46,6 +47,18 @@ public record Hotspot(MantleLithology lithology, double potentialTemperature, do
     public static final double TYPICAL_MIN_EXCESS_K = 100.0;
     /** Upper end of the commonly inferred plume excess temperature (K). */
     public static final double TYPICAL_MAX_EXCESS_K = 300.0;
+
+    /** A plume of one lithology melting in batch. */
+    public Hotspot(MantleLithology lithology, double potentialTemperature, double ambientPotentialTemperature,
+                   double lithosphereThickness, double plumeRadius, double upwellingVelocity, double bulkWater) {
+        this(MantleSource.of(lithology), potentialTemperature, ambientPotentialTemperature, lithosphereThickness,
+                plumeRadius, upwellingVelocity, bulkWater);
+    }
+
+    /** The source's main lithology. */
+    public MantleLithology lithology() {
+        return source.peridotite();
+    }
 
     /** Validates the geometry. */
     public Hotspot {
@@ -79,7 +92,7 @@ public record Hotspot(MantleLithology lithology, double potentialTemperature, do
 
     /** Runs the plume column. */
     public Result solve() {
-        DecompressionColumn col = DecompressionColumn.of(lithology, potentialTemperature, bulkWater)
+        MeltingColumn col = source.column(potentialTemperature, bulkWater)
                 .withUpwelling(Upwelling.ACTIVE).withLidDepth(lithosphereThickness)
                 .withOutputStep(MidOceanRidge.PROFILE_STEP);
         ColumnResult c = col.solve();

@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.function.DoubleFunction;
+import java.util.function.DoubleUnaryOperator;
 import org.apache.commons.math3.analysis.UnivariateFunction;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
 import org.tectomelt.engine.EngineException;
@@ -84,13 +85,17 @@ public final class Geotherm {
      * empty when that does not happen above {@link #MAX_DEPTH_M}.
      */
     public static OptionalDouble lithosphereBase(ConductiveGeotherm conductive, MantleAdiabat adiabat) {
-        UnivariateFunction excess = z -> conductive.temperatureAt(z) - adiabat.temperatureAt(z);
+        return firstCrossing(z -> conductive.temperatureAt(z) - adiabat.temperatureAt(z), MAX_DEPTH_M);
+    }
+
+    /** The first depth in [0, maxDepth] where {@code excess} becomes ≥ 0: scan by {@link #SCAN_STEP_M}, then Brent. */
+    private static OptionalDouble firstCrossing(UnivariateFunction excess, double maxDepth) {
         double previous = 0;
         if (excess.value(0) >= 0) {
             return OptionalDouble.of(0);
         }
-        while (previous < MAX_DEPTH_M) {
-            double z = Math.min(previous + SCAN_STEP_M, MAX_DEPTH_M);
+        while (previous < maxDepth) {
+            double z = Math.min(previous + SCAN_STEP_M, maxDepth);
             double f = excess.value(z);
             if (f == 0) {
                 return OptionalDouble.of(z);
@@ -102,6 +107,56 @@ public final class Geotherm {
             previous = z;
         }
         return OptionalDouble.empty();
+    }
+
+    /**
+     * Where this geotherm lies at or above a solidus, searched from the surface down to {@code maxDepth}
+     * (m) by the same scan and Brent refinement as the lithosphere base: the shallowest depth where it
+     * reaches the solidus (0 when it is above it at the surface, as an adiabat is) and the depth below
+     * that where it falls back below the solidus (for an adiabat, where rising mantle would start to
+     * melt). Empty when the geotherm stays below the solidus.
+     *
+     * @param solidusAtDepth the solidus temperature (K) as a function of depth (m): the caller composes a
+     *                       lithology's solidus with its pressure column
+     * @param maxDepth       deepest depth searched (m), at most {@link #MAX_DEPTH_M}
+     */
+    public Optional<SolidusInterval> solidusInterval(DoubleUnaryOperator solidusAtDepth, double maxDepth) {
+        double limit = Math.min(maxDepth, MAX_DEPTH_M);
+        UnivariateFunction excess = z -> temperatureAt(z) - solidusAtDepth.applyAsDouble(z);
+        OptionalDouble top = firstCrossing(excess, limit);
+        if (top.isEmpty()) {
+            return Optional.empty();
+        }
+        double from = top.getAsDouble();
+        OptionalDouble below = firstCrossing(z -> -excess.value(z + from) - 1e-9, limit - from);
+        return Optional.of(new SolidusInterval(from, below.isPresent()
+                ? OptionalDouble.of(from + below.getAsDouble()) : OptionalDouble.empty()));
+    }
+
+    /**
+     * The depths where a geotherm lies at or above a solidus (m).
+     *
+     * @param topDepth  the shallowest depth at or above the solidus (0 when the surface is)
+     * @param baseDepth where the geotherm falls below the solidus again; empty when it stays above to the
+     *                  depth searched
+     */
+    public record SolidusInterval(double topDepth, OptionalDouble baseDepth) {
+    }
+
+    /**
+     * Thickness of the thermal lithosphere (m) this geotherm implies: for half-space cooling the depth of
+     * the 0.9 isotherm ratio, 2.32·√(κt) (Turcotte &amp; Schubert, Geodynamics, ch. 4); for a plate model the
+     * plate thickness; otherwise the depth where the conductive part meets the adiabat. Empty for an
+     * adiabat alone, or a conductive profile that never meets one.
+     */
+    public OptionalDouble thermalLithosphereThickness() {
+        if (conductive instanceof HalfSpaceCooling h) {
+            return OptionalDouble.of(h.thermalThickness());
+        }
+        if (conductive instanceof PlateCooling p) {
+            return OptionalDouble.of(p.parameters().plateThickness());
+        }
+        return conductive == null ? OptionalDouble.empty() : lithosphereBaseDepth();
     }
 
     /**
