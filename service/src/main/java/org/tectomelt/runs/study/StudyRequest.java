@@ -42,11 +42,17 @@ import org.tectomelt.studies.UncertainInputs;
  * once, naming the field ({@code uncertainty.inputs.potentialTemperatureC},
  * {@code solve.min}, {@code observed.crustalThicknessKm.sd}).
  *
- * @param uncertainty the forward study or the nuisance inputs, or null
+ * @param uncertainty the forward study or the nuisance inputs (samples and seed of an inversion
+ *                    without uncertain inputs), or null without a study
  * @param solve       the inversion, or null
  * @param observed    observations by output name (empty without {@code solve})
+ * @param definition  the parts as given, with the seed filled in when drawn: what a run stores
  */
-public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Observation> observed) {
+public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Observation> observed,
+                           ObjectNode definition) {
+
+    /** The run body's fields that carry a study. */
+    public static final List<String> FIELDS = List.of("uncertainty", "solve", "observed");
 
     /** Most samples of one study (per sweep point). */
     public static final int MAX_SAMPLES = 100_000;
@@ -101,6 +107,34 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         return uncertainty != null || solve != null;
     }
 
+    /** Monte Carlo samples: of the forward study, the nuisance draws of a posterior, the draws of sampling. */
+    public int samples() {
+        return uncertainty.samples();
+    }
+
+    /** The seed (stored with the run and reported). */
+    public long seed() {
+        return uncertainty.seed();
+    }
+
+    /** The uncertain inputs (none when only an inversion is asked). */
+    public UncertainInputs inputs() {
+        return uncertainty.inputs();
+    }
+
+    /**
+     * Representative values of the varied fields (each distribution's mean, the middle of the solved
+     * interval), for checking the base request once before a run starts.
+     */
+    public Map<String, Double> representative() {
+        Map<String, Double> m = new LinkedHashMap<>();
+        inputs().distributions().forEach((f, d) -> m.put(f, d.mean()));
+        if (solve != null) {
+            m.put(solve.field(), 0.5 * (solve.min() + solve.max()));
+        }
+        return m;
+    }
+
     /** Reads the study parts of a run body; an absent part is null. */
     public static StudyRequest parse(ObjectNode body, Operation<?, ?> op, Invoker invoker) {
         List<Violation> v = new ArrayList<>();
@@ -126,7 +160,7 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
             if (s == null || s.isNull()) {
                 v.add(new Violation("observed", "goes with solve: name the field to solve for"));
             }
-        } else if (solve != null) {
+        } else if (s != null && !s.isNull()) {
             v.add(new Violation("observed", "is required with solve: {\"<output>\": {\"value\": ..., \"sd\": ...}}"));
         }
         if (solve != null && "sampling".equals(solve.method()) && observed.size() > 1) {
@@ -148,7 +182,23 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         if (!v.isEmpty()) {
             throw new OperationException(v);
         }
-        return new StudyRequest(uncertainty, solve, observed);
+        ObjectNode definition = body.objectNode();
+        for (String f : FIELDS) {
+            JsonNode part = body.get(f);
+            if (part != null && !part.isNull()) {
+                definition.set(f, part.deepCopy());
+            }
+        }
+        if (uncertainty == null && solve != null) {
+            // an inversion without uncertain inputs: its draws of the observation still need a seed
+            uncertainty = new Uncertainty(DEFAULT_SAMPLES, ThreadLocalRandom.current().nextLong(0, 1L << 53),
+                    UncertainInputs.none());
+            definition.putObject("uncertainty");
+        }
+        if (uncertainty != null) {
+            ((ObjectNode) definition.get("uncertainty")).put("seed", uncertainty.seed());
+        }
+        return new StudyRequest(uncertainty, solve, observed, definition);
     }
 
     /** The spec's range of a request field. */
@@ -177,6 +227,9 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         }
         Map<String, Distribution> dists = new LinkedHashMap<>();
         JsonNode inputs = obj.get("inputs");
+        if (inputs == null && withSolve) {
+            inputs = obj.objectNode();
+        }
         if (!(inputs instanceof ObjectNode in) || (inputs.isEmpty() && !withSolve)) {
             v.add(new Violation("uncertainty.inputs", "must name at least one input with its distribution, e.g. "
                     + "{\"potentialTemperatureC\": {\"normal\": {\"mean\": 1350, \"sd\": 25}}}; inputs that can take "
