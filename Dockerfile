@@ -16,12 +16,16 @@ RUN mvn -B -q -DskipTests package
 
 FROM eclipse-temurin:17-jre
 RUN groupadd --system tectomelt && useradd --system --gid tectomelt --home-dir /app --shell /usr/sbin/nologin tectomelt \
-    && apt-get update && apt-get install -y --no-install-recommends curl && rm -rf /var/lib/apt/lists/*
+    && apt-get update && apt-get install -y --no-install-recommends curl && rm -rf /var/lib/apt/lists/* \
+    && mkdir -p /data && chown tectomelt:tectomelt /data
 WORKDIR /app
 COPY --from=build /src/service/target/tectomelt.jar /app/tectomelt.jar
 ENV HOST=0.0.0.0 \
     PORT=7070 \
+    TECTOMELT_DATA_DIR=/data \
     JAVA_TOOL_OPTIONS="-Xmx256m -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError"
+# the embedded run database (unless TECTOMELT_DATABASE_URL names a PostgreSQL): keep it on a volume
+VOLUME /data
 STOPSIGNAL SIGTERM
 USER tectomelt
 EXPOSE 7070

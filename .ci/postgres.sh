@@ -6,6 +6,7 @@
 #   bash .ci/postgres.sh start DIR PORT   initialises DIR (if empty), starts the server, creates
 #                                         the database 'tectomelt' (user 'tectomelt', password
 #                                         'tectomelt') and prints its JDBC URL on the last line
+#   bash .ci/postgres.sh createdb DIR PORT NAME   a further empty database owned by 'tectomelt'
 #   bash .ci/postgres.sh stop DIR         stops it (the folder can then be removed)
 set -euo pipefail
 
@@ -46,6 +47,12 @@ SQL
       as_pg "'$PGBIN/createdb' -h 127.0.0.1 -p $port -U postgres -O tectomelt tectomelt"
     fi
     echo "jdbc:postgresql://127.0.0.1:$port/tectomelt"
+    ;;
+  createdb)
+    port="${3:?port}"
+    name="${4:?name}"
+    as_pg "'$PGBIN/createdb' -h 127.0.0.1 -p $port -U postgres -O tectomelt '$name'"
+    echo "jdbc:postgresql://127.0.0.1:$port/$name"
     ;;
   stop)
     as_pg "'$PGBIN/pg_ctl' -D '$dir' -m fast -w stop" >/dev/null || true

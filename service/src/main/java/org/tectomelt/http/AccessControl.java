@@ -5,8 +5,10 @@ import io.javalin.http.HandlerType;
 import java.nio.charset.StandardCharsets;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import org.tectomelt.Tokens;
 
 /**
  * Optional bearer-token access control for a shared server ({@code TECTOMELT_TOKEN} or
@@ -21,16 +23,40 @@ import java.util.Map;
  */
 final class AccessControl {
 
-    private final byte[] expectedHash;
+    private static final String CALLER_ATTR = "tectomelt.caller";
+
+    private final List<byte[]> hashes = new ArrayList<>();
+    private final List<String> names = new ArrayList<>();
 
     /** @param token the configured token; empty for an open server */
     AccessControl(String token) {
-        this.expectedHash = token.isEmpty() ? null : sha256(token);
+        this(Tokens.fromEnvironment(Map.of(), token));
+    }
+
+    /**
+     * @param tokens every accepted token with its member's name ({@code TECTOMELT_TOKEN} as
+     *               {@value Tokens#SHARED_TOKEN_NAME}, {@code TECTOMELT_TOKENS_FILE}); none for an
+     *               open server
+     */
+    AccessControl(Tokens tokens) {
+        tokens.byToken().forEach((token, name) -> {
+            hashes.add(sha256(token));
+            names.add(name);
+        });
     }
 
     /** True when a token is required. */
     boolean enabled() {
-        return expectedHash != null;
+        return !hashes.isEmpty();
+    }
+
+    /**
+     * The name of the member whose token the request carried ({@value Tokens#ANONYMOUS} on an open
+     * server): the owner a new run records.
+     */
+    static String caller(Context ctx) {
+        String name = ctx.attribute(CALLER_ATTR);
+        return name == null ? Tokens.ANONYMOUS : name;
     }
 
     /** Whether {@code path} needs the token (when one is configured). */
@@ -44,7 +70,7 @@ final class AccessControl {
      * @throws ApiProblem 401 {@code unauthorized} with a {@code WWW-Authenticate} challenge
      */
     void check(Context ctx) {
-        if (expectedHash == null || ctx.method() == HandlerType.OPTIONS || !protects(ctx.path())) {
+        if (hashes.isEmpty() || ctx.method() == HandlerType.OPTIONS || !protects(ctx.path())) {
             return;
         }
         String header = ctx.header("Authorization");
@@ -53,10 +79,23 @@ final class AccessControl {
                     "This server requires an access token: send Authorization: Bearer <token>");
         }
         String given = bearer(header);
-        if (given == null || !MessageDigest.isEqual(sha256(given), expectedHash)) {
+        String name = given == null ? null : nameOf(sha256(given));
+        if (name == null) {
             throw unauthorized("Bearer realm=\"tectomelt\", error=\"invalid_token\"",
                     "The access token is not valid for this server");
         }
+        ctx.attribute(CALLER_ATTR, name);
+    }
+
+    /** The member whose token hashes to {@code given}; every entry is compared, so timing tells nothing. */
+    private String nameOf(byte[] given) {
+        String found = null;
+        for (int i = 0; i < hashes.size(); i++) {
+            if (MessageDigest.isEqual(given, hashes.get(i))) {
+                found = names.get(i);
+            }
+        }
+        return found;
     }
 
     /** The token of a {@code Bearer} credential, or null when the scheme is another one. */

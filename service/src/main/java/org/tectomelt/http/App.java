@@ -12,7 +12,15 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Properties;
 import org.eclipse.jetty.server.handler.GracefulHandler;
+import java.time.Duration;
+import java.util.Map;
 import org.tectomelt.Config;
+import org.tectomelt.RunsConfig;
+import org.tectomelt.Tokens;
+import org.tectomelt.runs.Evaluator;
+import org.tectomelt.runs.InteractiveLoad;
+import org.tectomelt.runs.RunService;
+import org.tectomelt.runs.sweep.SweepEvaluator;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.SpecContract;
 import org.tectomelt.operations.Operations;
@@ -52,10 +60,31 @@ public final class App {
 
     /** Builds the app with an explicit route list and heavy-route limiter (tests saturate it). */
     static Javalin create(Config config, RequestObserver observer, List<Route> routes, Heavy heavy) {
+        return create(config, Tokens.fromEnvironment(Map.of(), config.token()), null, observer, routes, heavy);
+    }
+
+    /**
+     * The app for production: its runs kept in {@code runs} (opened by {@code Main} on the
+     * configured database), and every member token of {@code tokens} accepted.
+     */
+    public static Javalin create(Config config, Tokens tokens, RunService runs) {
+        return create(config, tokens, runs, RequestObserver.NONE, routes(config), new Heavy(config));
+    }
+
+    /**
+     * Builds the app. {@code runs} may be null: the app then keeps its runs in a private in-memory
+     * database (tests, and every app built without storage settings). The app starts computing
+     * runs when the server has started and closes {@code runs} when it stops.
+     */
+    static Javalin create(Config config, Tokens tokens, RunService givenRuns, RequestObserver observer,
+                          List<Route> routes, Heavy heavy) {
+        RunService runs = givenRuns != null ? givenRuns : RunService.open(RunsConfig.inMemory(), evaluator(config));
         ResultCache cache = new ResultCache(config.cacheMegabytes());
         Metrics metrics = new Metrics(heavy, cache);
+        metrics.bindRuns(runs);
         RequestKey keys = new RequestKey(VERSION + ";" + config.resultFingerprint());
-        AccessControl access = new AccessControl(config.token());
+        AccessControl access = new AccessControl(tokens);
+        InteractiveLoad load = runs.interactiveLoad();
         Javalin app = Javalin.create(c -> {
             c.startup.showJavalinBanner = false;
             c.startup.showOldJavalinVersionWarning = false;
@@ -63,6 +92,7 @@ public final class App {
             c.http.prefer405over404 = true;
             c.appData(Metrics.KEY, metrics);
             c.appData(Heavy.KEY, heavy);
+            c.appData(RunsRoutes.KEY, runs);
             c.staticFiles.add(sf -> {
                 sf.hostedPath = "/";
                 sf.directory = "/public";
@@ -75,6 +105,9 @@ public final class App {
                 server.setHandler(new GracefulHandler());
             });
             c.routes.before(RequestPlumbing::assignRequestId);
+            // background run points give way while an interactive request is being served
+            c.routes.before(ctx -> interactiveBegin(ctx, load));
+            c.routes.after(ctx -> interactiveEnd(ctx, load));
             // after every before-handler (the CORS plugin's among them), so refusals carry CORS headers
             c.routes.beforeMatched(ctx -> Cors.acceptUnlistedOrigin(ctx, config.corsOrigins()));
             c.routes.beforeMatched(access::check);
@@ -85,16 +118,21 @@ public final class App {
                     c.routes.get(r.path(), h);
                 } else if (r.method() == HandlerType.POST) {
                     c.routes.post(r.path(), h);
+                } else if (r.method() == HandlerType.DELETE) {
+                    c.routes.delete(r.path(), h);
                 } else {
                     throw new IllegalArgumentException("unsupported method " + r.method());
                 }
             }
             Problems.register(c.routes);
             c.requestLogger.http((ctx, ms) -> {
+                interactiveEnd(ctx, load);
                 metrics.finished(ctx, ms);
                 RequestPlumbing.finished(ctx, ms, observer);
             });
+            c.events.serverStarted(runs::start);
             c.events.serverStopped(metrics::close);
+            c.events.serverStopped(runs::close);
         });
         return app;
     }
@@ -132,6 +170,27 @@ public final class App {
         };
     }
 
+    private static final String INTERACTIVE_ATTR = "tectomelt.interactive";
+
+    private static void interactiveBegin(Context ctx, InteractiveLoad load) {
+        ctx.attribute(INTERACTIVE_ATTR, Boolean.TRUE);
+        load.begin();
+    }
+
+    /** Idempotent: called by the after-handler and by the request logger, whichever comes first. */
+    private static void interactiveEnd(Context ctx, InteractiveLoad load) {
+        if (ctx.attribute(INTERACTIVE_ATTR) != null) {
+            ctx.attribute(INTERACTIVE_ATTR, null);
+            load.end();
+        }
+    }
+
+    /** What computes the points of runs: the operations on their engine path, per-point budget as a heavy request's. */
+    public static Evaluator evaluator(Config config) {
+        return new SweepEvaluator(new Invoker(SpecContract.standard(), Operations.of(config)),
+                Duration.ofMillis(config.heavyBudgetMillis()));
+    }
+
     private static boolean succeeded(Context ctx) {
         return ctx.status().getCode() == 200 && Responses.written(ctx) != null;
     }
@@ -153,7 +212,10 @@ public final class App {
         List<Route> all = new ArrayList<>();
         all.addAll(MetaRoutes.routes());
         // every computation registered in org.tectomelt.operations, served by the one generic handler
-        all.addAll(OperationHandler.routes(new Invoker(spec, Operations.of(config))));
+        Invoker invoker = new Invoker(spec, Operations.of(config));
+        all.addAll(OperationHandler.routes(invoker));
+        // runs: parameter sweeps of those operations, persisted and computed in the background
+        all.addAll(RunsRoutes.routes(invoker));
         // thermal: geotherm routes
         all.addAll(GeothermRoutes.routes(config));
 

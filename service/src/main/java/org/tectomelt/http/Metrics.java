@@ -3,6 +3,7 @@ package org.tectomelt.http;
 import io.javalin.config.Key;
 import io.javalin.http.Context;
 import io.micrometer.core.instrument.Counter;
+import io.micrometer.core.instrument.FunctionCounter;
 import io.micrometer.core.instrument.Gauge;
 import io.micrometer.core.instrument.Timer;
 import io.micrometer.core.instrument.binder.cache.CaffeineCacheMetrics;
@@ -21,6 +22,8 @@ import java.time.Duration;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.function.Supplier;
+import org.tectomelt.runs.RunService;
+import org.tectomelt.runs.RunStatus;
 
 /**
  * The service's metrics, exposed at {@code GET /metrics} in the Prometheus text format:
@@ -106,6 +109,55 @@ public final class Metrics implements AutoCloseable {
                     .tag("reason", problem).tag("status", String.valueOf(status))
                     .register(registry)).increment();
         }
+    }
+
+    /**
+     * The runs' meters: {@code tectomelt_runs{status}} (runs per status, all instances),
+     * {@code tectomelt_run_queue_chunks} (chunks waiting, all instances),
+     * {@code tectomelt_run_points_total} (points this instance computed) and
+     * {@code tectomelt_run_points_per_second} (this instance, last ten seconds). The database is
+     * read at most once a second; while it is unreachable the shared figures are NaN.
+     */
+    void bindRuns(RunService runs) {
+        Supplier<Map<RunStatus, Integer>> counts = cached(runs::countsByStatus);
+        for (RunStatus s : RunStatus.values()) {
+            Gauge.builder("tectomelt.runs", () -> {
+                Map<RunStatus, Integer> m = counts.get();
+                return m == null ? Double.NaN : m.get(s);
+            }).tag("status", s.wire()).description("Runs per status (every instance sharing the database)")
+                    .register(registry);
+        }
+        Supplier<Integer> queued = cached(runs::queuedChunks);
+        Gauge.builder("tectomelt.run.queue.chunks", () -> {
+            Integer q = queued.get();
+            return q == null ? Double.NaN : q;
+        }).description("Chunks of runs waiting to be computed (every instance)").register(registry);
+        FunctionCounter.builder("tectomelt.run.points", runs, RunService::pointsComputed)
+                .description("Points of runs this instance computed").register(registry);
+        Gauge.builder("tectomelt.run.points.per.second", runs, RunService::pointsPerSecond)
+                .description("Points of runs this instance computed per second, over the last ten seconds")
+                .register(registry);
+    }
+
+    /** {@code read} at most once a second; null while it fails. */
+    private static <T> Supplier<T> cached(Supplier<T> read) {
+        Object[] box = {null, 0L};
+        return () -> {
+            synchronized (box) {
+                long now = System.nanoTime();
+                if ((long) box[1] == 0L || now - (long) box[1] > 1_000_000_000L) {
+                    try {
+                        box[0] = read.get();
+                    } catch (RuntimeException e) {
+                        box[0] = null;
+                    }
+                    box[1] = now;
+                }
+                @SuppressWarnings("unchecked")
+                T t = (T) box[0];
+                return t;
+            }
+        };
     }
 
     /** The Prometheus text exposition of every meter. */

@@ -13,6 +13,7 @@ import org.tectomelt.contract.Json;
 import org.tectomelt.contract.MalformedBodyException;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.operations.OperationException;
+import org.tectomelt.runs.StorageUnavailableException;
 
 /**
  * The one place where failures become RFC 9457 {@code application/problem+json} responses.
@@ -35,6 +36,11 @@ public final class Problems {
         routes.exception(ApiProblem.class, (e, ctx) -> write(ctx, e));
         routes.exception(OperationException.class, (e, ctx) -> write(ctx, ApiProblem.invalid(e.violations().stream()
                 .map(v -> new FieldError(v.field(), v.message())).toList())));
+        routes.exception(StorageUnavailableException.class, (e, ctx) -> {
+            LOG.warn("run storage unavailable, requestId={}: {}", RequestPlumbing.requestId(ctx), e.getMessage());
+            write(ctx, new ApiProblem(503, "storage-unavailable", "Run storage unavailable", e.getMessage()
+                    + "; runs resume when it answers again", List.of(), Map.of("Retry-After", "10")));
+        });
         routes.exception(MalformedBodyException.class, (e, ctx) -> write(ctx, ApiProblem.malformed(e.getMessage())));
         routes.exception(EngineException.class, (e, ctx) -> write(ctx, new ApiProblem(400, "outside-model-range",
                 "Outside what the model can compute", e.getMessage(), List.of(), Map.of())));

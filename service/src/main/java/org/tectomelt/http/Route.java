@@ -53,6 +53,16 @@ public record Route(HandlerType method, String path, Handler handler, Kind kind)
         return new Route(HandlerType.POST, path, handler, Kind.HEAVY);
     }
 
+    /** A POST route whose effect is not a pure function of its body (it creates something): no ETag. */
+    public static Route livePost(String path, Handler handler) {
+        return new Route(HandlerType.POST, path, handler, Kind.LIVE);
+    }
+
+    /** A DELETE route (never conditional). */
+    public static Route delete(String path, Handler handler) {
+        return new Route(HandlerType.DELETE, path, handler, Kind.LIVE);
+    }
+
     /** A GET route whose answer changes from call to call. */
     public static Route liveGet(String path, Handler handler) {
         return new Route(HandlerType.GET, path, handler, Kind.LIVE);

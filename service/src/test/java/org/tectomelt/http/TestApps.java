@@ -46,6 +46,15 @@ final class TestApps {
                 .start("127.0.0.1", 0);
     }
 
+    /**
+     * Starts an app with the production routes, its runs in {@code runs} (which it closes when it
+     * stops) and the member tokens of {@code tokens}.
+     */
+    static Javalin start(Config config, org.tectomelt.Tokens tokens, org.tectomelt.runs.RunService runs) {
+        return App.create(config, tokens, runs, (m, r, s) -> TestServer.OBSERVED.add(TestServer.key(m, r, s)),
+                App.routes(config), new Heavy(config)).start("127.0.0.1", 0);
+    }
+
     /** Starts an app with the production routes. */
     static Javalin start(Config config) {
         return start(config, App.routes(config), new Heavy(config));

@@ -1,0 +1,334 @@
+package org.tectomelt.http;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import io.javalin.config.Key;
+import io.javalin.http.Context;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.tectomelt.contract.Invoker;
+import org.tectomelt.contract.Json;
+import org.tectomelt.operations.Operation;
+import org.tectomelt.runs.NewRun;
+import org.tectomelt.runs.PointResult;
+import org.tectomelt.runs.RunRecord;
+import org.tectomelt.runs.RunService;
+import org.tectomelt.runs.RunStatus;
+import org.tectomelt.runs.RunStore;
+import org.tectomelt.runs.sweep.Sweep;
+
+/**
+ * {@code /v1/runs}: parameter sweeps as persisted, asynchronous runs any token holder can read.
+ * The app keeps its {@link RunService} under {@link #KEY}; the handlers only translate.
+ */
+final class RunsRoutes {
+
+    /** Where the app keeps its run service. */
+    static final Key<RunService> KEY = new Key<>("tectomelt.runs");
+
+    /** Media type of streamed results. */
+    static final String NDJSON = "application/x-ndjson";
+    /** Rows read from the database per page while streaming results. */
+    private static final int PAGE = 500;
+    /** Longest page of {@code GET /v1/runs}. */
+    static final int MAX_LIMIT = 100;
+
+    private RunsRoutes() {
+    }
+
+    static List<Route> routes(Invoker invoker) {
+        return List.of(
+                Route.livePost("/v1/runs", ctx -> submit(ctx, invoker)),
+                Route.liveGet("/v1/runs", RunsRoutes::list),
+                Route.liveGet("/v1/runs/{id}", ctx -> ctx.contentType(Responses.JSON).result(Json.write(view(found(ctx))))),
+                Route.liveGet("/v1/runs/{id}/results", RunsRoutes::results),
+                Route.delete("/v1/runs/{id}", RunsRoutes::delete));
+    }
+
+    private static RunService runs(Context ctx) {
+        return ctx.appData(KEY);
+    }
+
+    // ---- POST /v1/runs ---------------------------------------------------------------------
+
+    private static void submit(Context ctx, Invoker invoker) {
+        RunService runs = runs(ctx);
+        JsonNode body = Json.readTree(ctx.bodyAsBytes());
+        Sweep sweep = Sweep.parse(body, invoker, runs.config().maxRunPoints());
+        String owner = AccessControl.caller(ctx);
+        runs.queueLimitProblem(owner).ifPresent(detail -> {
+            throw new ApiProblem(429, "too-many-runs", "Too many runs queued", detail, List.of(),
+                    Map.of("Retry-After", "30"));
+        });
+        RunRecord r = runs.submit(new NewRun(Sweep.KIND, sweep.operation(), owner, sweep.label(), sweep.definition(),
+                provenance(invoker, sweep), sweep.size()));
+        ctx.status(202).header("Location", "/v1/runs/" + r.id()).contentType(Responses.JSON).result(Json.write(view(r)));
+    }
+
+    private static String provenance(Invoker invoker, Sweep sweep) {
+        ObjectNode p = Json.mapper().createObjectNode();
+        p.put("version", App.VERSION);
+        p.put("operation", sweep.operation());
+        Operation<?, ?> op = invoker.operation(sweep.operation());
+        p.put("path", op.path());
+        p.put("spec", "/openapi.yaml");
+        return p.toString();
+    }
+
+    // ---- GET /v1/runs/{id} and the listing ----------------------------------------------------
+
+    private static RunRecord found(Context ctx) {
+        String id = ctx.pathParam("id");
+        return runs(ctx).find(id).orElseThrow(() -> new ApiProblem(404, "run-not-found", "No such run",
+                "No run has the id '" + id + "' (finished runs are kept TECTOMELT_RUN_RETENTION_DAYS days)",
+                List.of(), Map.of()));
+    }
+
+    /** The JSON of a run: what {@code POST}, {@code GET /v1/runs/{id}} and the listing show. */
+    static ObjectNode view(RunRecord r) {
+        ObjectNode o = Json.mapper().createObjectNode();
+        o.put("id", r.id());
+        o.put("kind", r.kind());
+        o.put("status", r.status().wire());
+        o.put("operation", r.operation());
+        if (r.label() != null) {
+            o.put("label", r.label());
+        }
+        o.put("owner", r.owner());
+        ObjectNode progress = o.putObject("progress");
+        progress.put("done", r.donePoints() + r.failedPoints());
+        progress.put("total", r.totalPoints());
+        progress.put("failed", r.failedPoints());
+        JsonNode d = tree(r.definition());
+        o.set("request", d.path("request"));
+        o.set("sweep", d.path("sweep"));
+        o.set("outputs", d.path("outputs"));
+        o.put("createdAt", r.createdAt().toString());
+        if (r.startedAt() != null) {
+            o.put("startedAt", r.startedAt().toString());
+        }
+        if (r.finishedAt() != null) {
+            o.put("finishedAt", r.finishedAt().toString());
+        }
+        if (r.statusReason() != null) {
+            o.put("statusReason", r.statusReason());
+        }
+        if (r.provenance() != null) {
+            o.set("provenance", tree(r.provenance()));
+        }
+        ObjectNode links = o.putObject("links");
+        links.put("self", "/v1/runs/" + r.id());
+        links.put("results", "/v1/runs/" + r.id() + "/results");
+        links.put("page", "/#/runs/" + r.id());
+        return o;
+    }
+
+    private static void list(Context ctx) {
+        RunService runs = runs(ctx);
+        RunStatus status = null;
+        String s = ctx.queryParam("status");
+        if (s != null && !s.isBlank()) {
+            try {
+                status = RunStatus.fromWire(s.trim());
+            } catch (IllegalArgumentException e) {
+                throw ApiProblem.invalid("status", "must be one of queued, running, succeeded, failed, cancelled, got '"
+                        + s + "'");
+            }
+        }
+        int limit = intParam(ctx, "limit", 20, 1, MAX_LIMIT);
+        int offset = intParam(ctx, "offset", 0, 0, Integer.MAX_VALUE);
+        RunStore.Filter f = new RunStore.Filter(status, blankToNull(ctx.queryParam("owner")),
+                blankToNull(ctx.queryParam("operation")));
+        ObjectNode o = Json.mapper().createObjectNode();
+        ArrayNode items = o.putArray("runs");
+        for (RunRecord r : runs.list(f, limit, offset)) {
+            items.add(view(r));
+        }
+        o.put("total", runs.count(f));
+        o.put("limit", limit);
+        o.put("offset", offset);
+        ctx.contentType(Responses.JSON).result(Json.write(o));
+    }
+
+    // ---- DELETE /v1/runs/{id} ---------------------------------------------------------------
+
+    private static void delete(Context ctx) {
+        RunRecord r = found(ctx);
+        String caller = AccessControl.caller(ctx);
+        if (!caller.equals(r.owner())) {
+            throw new ApiProblem(403, "not-owner", "Only the owner may delete a run",
+                    "Run " + r.id() + " belongs to " + r.owner() + "; " + caller + " may read it but not delete it",
+                    List.of(), Map.of());
+        }
+        switch (runs(ctx).delete(r.id(), caller)) {
+            case CANCELLED -> ctx.contentType(Responses.JSON).result(Json.write(view(runs(ctx).find(r.id()).orElseThrow())));
+            case REMOVED -> ctx.status(204);
+            case NOT_FOUND -> throw new ApiProblem(404, "run-not-found", "No such run",
+                    "Run " + r.id() + " was deleted meanwhile", List.of(), Map.of());
+        }
+    }
+
+    // ---- GET /v1/runs/{id}/results -------------------------------------------------------------
+
+    enum Format { JSON, CSV, NDJSON }
+
+    static Format format(Context ctx) {
+        String f = ctx.queryParam("format");
+        if (f != null && !f.isBlank()) {
+            return switch (f.trim().toLowerCase(Locale.ROOT)) {
+                case "json" -> Format.JSON;
+                case "csv" -> Format.CSV;
+                case "ndjson" -> Format.NDJSON;
+                default -> throw ApiProblem.invalid("format", "must be json, csv or ndjson, got '" + f + "'");
+            };
+        }
+        String accept = ctx.header("Accept");
+        if (accept != null) {
+            // the first of the three media types the client lists wins
+            String a = accept.toLowerCase(Locale.ROOT);
+            Format best = Format.JSON;
+            int at = Integer.MAX_VALUE;
+            for (Map.Entry<String, Format> e : Map.of("application/json", Format.JSON, "text/csv", Format.CSV,
+                    NDJSON, Format.NDJSON).entrySet()) {
+                int i = a.indexOf(e.getKey());
+                if (i >= 0 && i < at) {
+                    at = i;
+                    best = e.getValue();
+                }
+            }
+            return best;
+        }
+        return Format.JSON;
+    }
+
+    private static void results(Context ctx) throws IOException {
+        RunRecord r = found(ctx);
+        Format format = format(ctx);
+        RunService runs = runs(ctx);
+        JsonNode d = tree(r.definition());
+        List<String> inputs = new ArrayList<>();
+        d.path("axes").fieldNames().forEachRemaining(inputs::add);
+        List<String> outputs = new ArrayList<>();
+        d.path("outputs").forEach(x -> outputs.add(x.asText()));
+        ctx.header("X-Run-Status", r.status().wire());
+        ctx.header("X-Run-Progress", (r.donePoints() + r.failedPoints()) + "/" + r.totalPoints());
+        ctx.contentType(switch (format) {
+            case JSON -> Responses.JSON;
+            case CSV -> Responses.CSV;
+            case NDJSON -> NDJSON + "; charset=utf-8";
+        });
+        if (format == Format.CSV) {
+            ctx.header("Content-Disposition", "attachment; filename=\"run-" + r.id() + ".csv\"");
+        }
+        OutputStream out = ctx.outputStream();
+        StringBuilder sb = new StringBuilder(64 * 1024);
+        if (format == Format.JSON) {
+            sb.append('[');
+        } else if (format == Format.CSV) {
+            List<String> header = new ArrayList<>(List.of("index"));
+            header.addAll(inputs);
+            header.addAll(outputs);
+            header.add("problem");
+            sb.append(String.join(",", header)).append("\r\n");
+        }
+        boolean[] first = {true};
+        int last = -1;
+        while (true) {
+            int before = last;
+            last = runs.points(r.id(), last, PAGE, p -> {
+                switch (format) {
+                    case JSON -> {
+                        sb.append(first[0] ? "" : ",").append(row(p));
+                        first[0] = false;
+                    }
+                    case NDJSON -> sb.append(row(p)).append('\n');
+                    case CSV -> csvRow(p, inputs, outputs, sb);
+                }
+            });
+            out.write(sb.toString().getBytes(StandardCharsets.UTF_8));
+            sb.setLength(0);
+            if (last == before) {
+                break;
+            }
+            out.flush();
+        }
+        if (format == Format.JSON) {
+            out.write(']');
+        }
+        out.flush();
+    }
+
+    /** One result row as JSON text: index, inputs, and outputs or problem. */
+    private static String row(PointResult p) {
+        StringBuilder sb = new StringBuilder(160);
+        sb.append("{\"index\":").append(p.index()).append(",\"inputs\":").append(p.inputs());
+        if (p.ok()) {
+            sb.append(",\"outputs\":").append(p.outputs());
+        } else {
+            sb.append(",\"problem\":").append(p.problem());
+        }
+        return sb.append('}').toString();
+    }
+
+    private static void csvRow(PointResult p, List<String> inputs, List<String> outputs, StringBuilder sb) {
+        sb.append(p.index());
+        JsonNode in = tree(p.inputs());
+        for (String f : inputs) {
+            sb.append(',');
+            number(in.get(f), sb);
+        }
+        JsonNode out = p.ok() ? tree(p.outputs()) : Json.mapper().createObjectNode();
+        for (String f : outputs) {
+            sb.append(',');
+            number(out.get(f), sb);
+        }
+        sb.append(',');
+        if (!p.ok()) {
+            String detail = tree(p.problem()).path("detail").asText("");
+            sb.append('"').append(detail.replace("\"", "\"\"")).append('"');
+        }
+        sb.append("\r\n");
+    }
+
+    private static void number(JsonNode v, StringBuilder sb) {
+        if (v != null && v.isNumber()) {
+            sb.append(v.asText());
+        }
+    }
+
+    // ---- helpers -------------------------------------------------------------------------------
+
+    private static JsonNode tree(String json) {
+        try {
+            return Json.mapper().readTree(json);
+        } catch (IOException e) {
+            throw new IllegalStateException("stored JSON is unreadable", e);
+        }
+    }
+
+    private static String blankToNull(String s) {
+        return s == null || s.isBlank() ? null : s.trim();
+    }
+
+    private static int intParam(Context ctx, String name, int fallback, int min, int max) {
+        String raw = ctx.queryParam(name);
+        if (raw == null || raw.isBlank()) {
+            return fallback;
+        }
+        try {
+            int v = Integer.parseInt(raw.trim());
+            if (v >= min && v <= max) {
+                return v;
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        throw ApiProblem.invalid(name, "must be an integer between " + min + " and " + max + ", got '" + raw + "'");
+    }
+}

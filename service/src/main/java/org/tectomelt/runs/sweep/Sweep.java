@@ -1,0 +1,376 @@
+package org.tectomelt.runs.sweep;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
+import org.tectomelt.contract.Invoker;
+import org.tectomelt.contract.Json;
+import org.tectomelt.operations.Input;
+import org.tectomelt.operations.Operation;
+import org.tectomelt.operations.OperationException;
+import org.tectomelt.operations.Output;
+import org.tectomelt.operations.Violation;
+
+/**
+ * A parameter sweep: one operation, its base request, the axes (a swept request field and its
+ * values) and the outputs to keep. The points are the Cartesian product of the axes in the order
+ * given, the last axis varying fastest; point {@code i} is the base request with each swept field
+ * set to its value.
+ *
+ * @param operation the operation's name
+ * @param request   the base request, as sent (swept fields are set per point)
+ * @param sweep     the axes as sent (kept for display)
+ * @param axes      each swept field with its values, in order
+ * @param outputs   output names, in order
+ * @param label     free text, or null
+ */
+public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<String, List<Double>> axes,
+                    List<String> outputs, String label) {
+
+    /** Longest label. */
+    public static final int MAX_LABEL = 200;
+    /** Kind of run this describes. */
+    public static final String KIND = "sweep";
+
+    private static final Set<String> TOP = Set.of("operation", "request", "sweep", "outputs", "label");
+    private static final MathContext TWELVE = new MathContext(12);
+
+    /** Number of points. */
+    public int size() {
+        long n = 1;
+        for (List<Double> v : axes.values()) {
+            n *= v.size();
+        }
+        return (int) n;
+    }
+
+    /** The swept values of point {@code index}, field → value, in axis order. */
+    public Map<String, Double> inputs(int index) {
+        Map<String, Double> out = new LinkedHashMap<>();
+        List<String> fields = new ArrayList<>(axes.keySet());
+        int rest = index;
+        Double[] values = new Double[fields.size()];
+        for (int a = fields.size() - 1; a >= 0; a--) {
+            List<Double> v = axes.get(fields.get(a));
+            values[a] = v.get(rest % v.size());
+            rest /= v.size();
+        }
+        for (int a = 0; a < fields.size(); a++) {
+            out.put(fields.get(a), values[a]);
+        }
+        return out;
+    }
+
+    /** The request of point {@code index}: a fresh copy of the base with the swept fields set. */
+    public ObjectNode pointRequest(int index) {
+        ObjectNode r = request.deepCopy();
+        for (Map.Entry<String, Double> e : inputs(index).entrySet()) {
+            String[] parts = e.getKey().split("\\.");
+            ObjectNode at = r;
+            for (int i = 0; i < parts.length - 1; i++) {
+                JsonNode child = at.get(parts[i]);
+                at = child instanceof ObjectNode o ? o : at.putObject(parts[i]);
+            }
+            at.put(parts[parts.length - 1], e.getValue());
+        }
+        return r;
+    }
+
+    /** The stored definition: request, sweep as sent, expanded axes and outputs (JSON). */
+    public String definition() {
+        ObjectNode d = Json.mapper().createObjectNode();
+        d.put("operation", operation);
+        d.set("request", request);
+        d.set("sweep", sweep);
+        ObjectNode ax = d.putObject("axes");
+        axes.forEach((f, v) -> {
+            ArrayNode a = ax.putArray(f);
+            v.forEach(a::add);
+        });
+        ArrayNode o = d.putArray("outputs");
+        outputs.forEach(o::add);
+        return d.toString();
+    }
+
+    /** Reads a stored {@link #definition()}. */
+    public static Sweep fromDefinition(String definition, String label) {
+        JsonNode d;
+        try {
+            d = Json.mapper().readTree(definition);
+        } catch (java.io.IOException e) {
+            throw new IllegalArgumentException("the stored sweep is not readable JSON: " + e.getMessage());
+        }
+        Map<String, List<Double>> axes = new LinkedHashMap<>();
+        for (Iterator<Map.Entry<String, JsonNode>> it = d.path("axes").fields(); it.hasNext(); ) {
+            Map.Entry<String, JsonNode> e = it.next();
+            List<Double> v = new ArrayList<>();
+            e.getValue().forEach(x -> v.add(x.doubleValue()));
+            axes.put(e.getKey(), List.copyOf(v));
+        }
+        List<String> outputs = new ArrayList<>();
+        d.path("outputs").forEach(x -> outputs.add(x.asText()));
+        return new Sweep(d.path("operation").asText(), (ObjectNode) d.get("request"), (ObjectNode) d.get("sweep"),
+                axes, List.copyOf(outputs), label);
+    }
+
+    /**
+     * Reads and checks the body of {@code POST /v1/runs}: the operation, the axes (each a swept,
+     * sweepable field with {@code values} or {@code from}/{@code to}/{@code steps}), the outputs,
+     * the size against {@code maxPoints}, and then every point against the spec, through the same
+     * contract the operation's own route uses. Every problem is reported at once, naming the field
+     * ({@code sweep.potentialTemperatureC}, {@code outputs[1]}) and, for a sweep leaving a field's
+     * range, the offending values.
+     *
+     * @throws OperationException listing every violation
+     */
+    public static Sweep parse(JsonNode body, Invoker invoker, int maxPoints) {
+        if (!(body instanceof ObjectNode b)) {
+            throw new OperationException("(body)", "must be a JSON object with operation, request, sweep and outputs");
+        }
+        List<Violation> v = new ArrayList<>();
+        for (Iterator<String> it = b.fieldNames(); it.hasNext(); ) {
+            String f = it.next();
+            if (!TOP.contains(f)) {
+                v.add(new Violation(f, "is not a field of a run; fields: operation, request, sweep, outputs, label"));
+            }
+        }
+        JsonNode opNode = b.get("operation");
+        Operation<?, ?> op = null;
+        List<String> known = invoker.operations().list().stream().map(Operation::name).toList();
+        if (opNode == null || !opNode.isTextual()) {
+            v.add(new Violation("operation", "is required: the name of an operation, one of " + known));
+        } else {
+            op = invoker.operations().named(opNode.asText()).orElse(null);
+            if (op == null) {
+                v.add(new Violation("operation", "names no operation: '" + opNode.asText() + "'; known: " + known));
+            } else if (op.outputs().isEmpty()) {
+                v.add(new Violation("operation", op.name() + " has no scalar output a run could keep; operations with "
+                        + "outputs: " + invoker.operations().list().stream().filter(o -> !o.outputs().isEmpty())
+                        .map(Operation::name).toList()));
+                op = null;
+            }
+        }
+        JsonNode reqNode = b.get("request");
+        ObjectNode request;
+        if (reqNode == null || reqNode.isNull()) {
+            request = Json.mapper().createObjectNode();
+        } else if (reqNode instanceof ObjectNode o) {
+            request = o;
+        } else {
+            v.add(new Violation("request", "must be a JSON object: the operation's usual request body"));
+            request = Json.mapper().createObjectNode();
+        }
+        String label = null;
+        JsonNode labelNode = b.get("label");
+        if (labelNode != null && !labelNode.isNull()) {
+            if (!labelNode.isTextual() || labelNode.asText().length() > MAX_LABEL) {
+                v.add(new Violation("label", "must be a string of at most " + MAX_LABEL + " characters"));
+            } else {
+                label = labelNode.asText();
+            }
+        }
+        JsonNode sweepNode = b.get("sweep");
+        Map<String, List<Double>> axes = new LinkedHashMap<>();
+        if (!(sweepNode instanceof ObjectNode sweep) || sweepNode.isEmpty()) {
+            v.add(new Violation("sweep", "is required: an object of at least one swept field, each "
+                    + "{\"values\": [...]} or {\"from\": a, \"to\": b, \"steps\": n}"));
+            sweepNode = Json.mapper().createObjectNode();
+        } else if (op != null) {
+            Set<String> sweepable = new LinkedHashSet<>();
+            op.inputs().stream().map(Input::name).forEach(sweepable::add);
+            for (Iterator<Map.Entry<String, JsonNode>> it = sweep.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> e = it.next();
+                String field = "sweep." + e.getKey();
+                if (!sweepable.contains(e.getKey())) {
+                    boolean exists = invoker.spec().range(op.path(), e.getKey()).isPresent();
+                    v.add(new Violation(field, (exists ? "is a field of " + op.name() + " that a sweep cannot address"
+                            : "is not a field of " + op.name()) + "; sweepable fields: " + sweepable));
+                    continue;
+                }
+                List<Double> values = axis(field, e.getValue(), maxPoints, v);
+                if (values != null) {
+                    axes.put(e.getKey(), values);
+                }
+            }
+        }
+        List<String> outputs = new ArrayList<>();
+        outputs(op, b.get("outputs"), outputs, v);
+        if (!v.isEmpty()) {
+            throw new OperationException(v);
+        }
+        long total = 1;
+        for (List<Double> values : axes.values()) {
+            total *= values.size();
+            if (total > maxPoints) {
+                break;
+            }
+        }
+        if (total > maxPoints) {
+            StringBuilder sizes = new StringBuilder();
+            axes.forEach((f, vals) -> sizes.append(sizes.length() == 0 ? "" : " × ").append(vals.size()));
+            throw new OperationException("sweep", "has " + sizes + " points, more than the " + maxPoints
+                    + " a run may have (server cap TECTOMELT_MAX_RUN_POINTS)");
+        }
+        Sweep s = new Sweep(op.name(), request, (ObjectNode) sweepNode, axes, List.copyOf(outputs), label);
+        s.checkEveryPoint(invoker, op);
+        return s;
+    }
+
+    /** Holds every point to the spec; a violation of a swept field lists its offending values. */
+    private void checkEveryPoint(Invoker invoker, Operation<?, ?> op) {
+        Map<String, String> firstMessage = new LinkedHashMap<>();
+        Map<String, TreeSet<Double>> offending = new LinkedHashMap<>();
+        int n = size();
+        for (int i = 0; i < n; i++) {
+            ObjectNode point = pointRequest(i);
+            List<Violation> vs = invoker.spec().check(op.path(), point, op.caps());
+            if (vs.isEmpty()) {
+                continue;
+            }
+            Map<String, Double> in = inputs(i);
+            for (Violation x : vs) {
+                boolean swept = in.containsKey(x.field());
+                String field = (swept ? "sweep." : "request.") + x.field();
+                firstMessage.putIfAbsent(field, x.message());
+                if (swept) {
+                    offending.computeIfAbsent(field, k -> new TreeSet<>()).add(in.get(x.field()));
+                }
+            }
+            if (firstMessage.size() > 20) {
+                break;
+            }
+        }
+        if (firstMessage.isEmpty()) {
+            return;
+        }
+        List<Violation> out = new ArrayList<>();
+        firstMessage.forEach((field, message) -> {
+            TreeSet<Double> bad = offending.get(field);
+            if (bad == null) {
+                out.add(new Violation(field, message));
+            } else {
+                List<String> shown = bad.stream().limit(10).map(Sweep::format).toList();
+                String more = bad.size() > 10 ? " and " + (bad.size() - 10) + " more" : "";
+                String rule = message.replaceAll(",? got [^,;]*$", "");
+                out.add(new Violation(field, rule + "; offending values: " + String.join(", ", shown) + more));
+            }
+        });
+        throw new OperationException(out);
+    }
+
+    private static List<Double> axis(String field, JsonNode a, int maxPoints, List<Violation> v) {
+        if (!(a instanceof ObjectNode o)) {
+            v.add(new Violation(field, "must be {\"values\": [...]} or {\"from\": a, \"to\": b, \"steps\": n}"));
+            return null;
+        }
+        for (Iterator<String> it = o.fieldNames(); it.hasNext(); ) {
+            String k = it.next();
+            if (!Set.of("values", "from", "to", "steps").contains(k)) {
+                v.add(new Violation(field + "." + k, "is not part of an axis; use values, or from, to and steps"));
+                return null;
+            }
+        }
+        if (o.has("values")) {
+            if (o.has("from") || o.has("to") || o.has("steps")) {
+                v.add(new Violation(field, "give either values or from, to and steps, not both"));
+                return null;
+            }
+            JsonNode vals = o.get("values");
+            if (!vals.isArray() || vals.isEmpty() || vals.size() > maxPoints) {
+                v.add(new Violation(field + ".values", "must be a list of 1 to " + maxPoints
+                        + " numbers (server cap TECTOMELT_MAX_RUN_POINTS)"));
+                return null;
+            }
+            List<Double> out = new ArrayList<>();
+            for (int i = 0; i < vals.size(); i++) {
+                JsonNode x = vals.get(i);
+                if (!x.isNumber() || !Double.isFinite(x.doubleValue())) {
+                    v.add(new Violation(field + ".values[" + i + "]", "must be a finite number"));
+                    return null;
+                }
+                out.add(x.doubleValue());
+            }
+            return List.copyOf(out);
+        }
+        JsonNode from = o.get("from");
+        JsonNode to = o.get("to");
+        JsonNode steps = o.get("steps");
+        if (from == null || to == null || steps == null) {
+            v.add(new Violation(field, "needs from, to and steps (or a list of values)"));
+            return null;
+        }
+        boolean ok = true;
+        for (Map.Entry<String, JsonNode> e : Map.of("from", from, "to", to).entrySet()) {
+            if (!e.getValue().isNumber() || !Double.isFinite(e.getValue().doubleValue())) {
+                v.add(new Violation(field + "." + e.getKey(), "must be a finite number"));
+                ok = false;
+            }
+        }
+        if (!steps.isIntegralNumber() || steps.asLong() < 2 || steps.asLong() > maxPoints) {
+            v.add(new Violation(field + ".steps", "must be an integer between 2 and " + maxPoints
+                    + " (server cap TECTOMELT_MAX_RUN_POINTS), got " + steps));
+            ok = false;
+        }
+        if (!ok) {
+            return null;
+        }
+        double a0 = from.doubleValue();
+        double a1 = to.doubleValue();
+        if (!(a0 < a1)) {
+            v.add(new Violation(field, "from must be below to (got from " + format(a0) + ", to " + format(a1)
+                    + "); for a descending or uneven axis list the values"));
+            return null;
+        }
+        int n = steps.asInt();
+        List<Double> out = new ArrayList<>(n);
+        for (int k = 0; k < n; k++) {
+            double x = k == n - 1 ? a1 : a0 + (a1 - a0) * k / (n - 1);
+            out.add(new BigDecimal(x).round(TWELVE).doubleValue());
+        }
+        return List.copyOf(out);
+    }
+
+    /** Checks the output names ({@code op} null: the operation is unknown, only the JSON types are checked). */
+    private static void outputs(Operation<?, ?> op, JsonNode node, List<String> out, List<Violation> v) {
+        List<String> names = op == null ? List.of() : op.outputs().stream().map(Output::name).toList();
+        if (node == null || node.isNull()) {
+            out.addAll(names);
+            return;
+        }
+        if (!node.isArray() || node.isEmpty()) {
+            v.add(new Violation("outputs", "must be a non-empty list of output names"
+                    + (op == null ? "" : "; " + op.name() + " offers " + names)));
+            return;
+        }
+        for (int i = 0; i < node.size(); i++) {
+            JsonNode x = node.get(i);
+            if (!x.isTextual()) {
+                v.add(new Violation("outputs[" + i + "]", "must be a string: the name of an output"));
+            } else if (op == null) {
+                continue;
+            } else if (!names.contains(x.asText())) {
+                v.add(new Violation("outputs[" + i + "]", "names no output of " + op.name() + ": " + x + "; outputs: "
+                        + names));
+            } else if (out.contains(x.asText())) {
+                v.add(new Violation("outputs[" + i + "]", "repeats " + x));
+            } else {
+                out.add(x.asText());
+            }
+        }
+    }
+
+    /** A value as a person writes it: 1250 rather than 1250.0. */
+    static String format(double x) {
+        return x == Math.rint(x) && Math.abs(x) < 1e15 ? Long.toString((long) x) : Double.toString(x);
+    }
+}

@@ -1,0 +1,95 @@
+package org.tectomelt.runs.sweep;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.time.Duration;
+import java.util.Map;
+import org.tectomelt.contract.Invoker;
+import org.tectomelt.contract.Json;
+import org.tectomelt.engine.BudgetExceededException;
+import org.tectomelt.engine.Deadline;
+import org.tectomelt.engine.EngineException;
+import org.tectomelt.operations.Operation;
+import org.tectomelt.operations.OperationException;
+import org.tectomelt.operations.Violation;
+import org.tectomelt.runs.Evaluator;
+import org.tectomelt.runs.PointResult;
+import org.tectomelt.runs.RunRecord;
+
+/**
+ * Computes the points of a sweep on the operations' engine path: the point's request through
+ * {@link Invoker#prepare} (the spec's rules and defaults, as over HTTP) and
+ * {@code run(request, deadline)}, then the chosen outputs. A point the model cannot compute
+ * ({@link EngineException}), one breaking a rule across fields ({@link OperationException}) or one
+ * over its budget records a problem in the form the HTTP route would have answered; the run goes on.
+ */
+public final class SweepEvaluator implements Evaluator {
+
+    private final Invoker invoker;
+    private final Duration pointBudget;
+
+    /**
+     * @param invoker     the operations and the spec
+     * @param pointBudget wall-clock budget of one point ({@code TECTOMELT_HEAVY_BUDGET_MS})
+     */
+    public SweepEvaluator(Invoker invoker, Duration pointBudget) {
+        this.invoker = invoker;
+        this.pointBudget = pointBudget;
+    }
+
+    @Override
+    public Prepared prepare(RunRecord run) {
+        if (!Sweep.KIND.equals(run.kind())) {
+            throw new IllegalArgumentException("runs of kind '" + run.kind() + "' are not computed by this version");
+        }
+        Sweep sweep = Sweep.fromDefinition(run.definition(), run.label());
+        Operation<?, ?> op = invoker.operations().named(sweep.operation()).orElseThrow(() ->
+                new IllegalArgumentException("this version has no operation '" + sweep.operation() + "'"));
+        return index -> evaluate(sweep, op, index);
+    }
+
+    private PointResult evaluate(Sweep sweep, Operation<?, ?> op, int index) {
+        String inputs = json(sweep.inputs(index));
+        try {
+            Record result = invoker.prepare(op, sweep.pointRequest(index)).run(Deadline.after(pointBudget));
+            Map<String, Double> out = invoker.outputs(op.name(), result, sweep.outputs());
+            return new PointResult(index, inputs, json(out), null, null);
+        } catch (EngineException e) {
+            return problem(index, inputs, 400, "outside-model-range", "Outside what the model can compute", e.getMessage(),
+                    null);
+        } catch (OperationException e) {
+            return problem(index, inputs, 400, "validation", "Invalid request field", e.getMessage(), e);
+        } catch (BudgetExceededException e) {
+            return problem(index, inputs, 503, "over-budget", "Computation budget exceeded",
+                    e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS per point)", null);
+        }
+    }
+
+    private static PointResult problem(int index, String inputs, int status, String type, String title, String detail,
+                                       OperationException errors) {
+        ObjectNode p = Json.mapper().createObjectNode();
+        p.put("type", "/problems/" + type);
+        p.put("title", title);
+        p.put("status", status);
+        p.put("detail", detail);
+        if (errors != null) {
+            ArrayNode a = p.putArray("errors");
+            for (Violation v : errors.violations()) {
+                a.addObject().put("field", v.field()).put("message", v.message());
+            }
+        }
+        return new PointResult(index, inputs, null, p.toString(), null);
+    }
+
+    private static String json(Map<String, Double> values) {
+        ObjectNode o = Json.mapper().createObjectNode();
+        values.forEach((k, v) -> {
+            if (v == null || !Double.isFinite(v)) {
+                o.putNull(k);
+            } else {
+                o.put(k, v);
+            }
+        });
+        return o.toString();
+    }
+}
