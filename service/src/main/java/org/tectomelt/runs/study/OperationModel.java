@@ -61,7 +61,7 @@ public final class OperationModel implements StudyModel {
     }
 
     /** Sets {@code field} (a dotted path) in {@code request}, creating objects on the way. */
-    static void set(ObjectNode request, String field, double value) {
+    public static void set(ObjectNode request, String field, double value) {
         String[] parts = field.split("\\.");
         ObjectNode at = request;
         for (int i = 0; i < parts.length - 1; i++) {

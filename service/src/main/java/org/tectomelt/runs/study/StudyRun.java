@@ -1,6 +1,7 @@
 package org.tectomelt.runs.study;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -127,6 +128,71 @@ public final class StudyRun {
         out.put("seed", study.seed());
         out.setAll((ObjectNode) Json.mapper().valueToTree(result));
         return out;
+    }
+
+    private static final List<String> STATS = List.of("mean", "sd", "p2_5", "p16", "p50", "p84", "p97_5");
+
+    /**
+     * Column names of one result flattened for CSV: per summarised output its statistics
+     * ({@code crustalThicknessKm.mean}, {@code crustalThicknessKm.p16}, …) and counts for a forward
+     * study; the solved field's estimate and the bound masses for a posterior; its summary and the
+     * counts of draws without a single root for sampling.
+     */
+    public List<String> csvColumns() {
+        List<String> c = new ArrayList<>();
+        switch (kind()) {
+            case FORWARD -> {
+                for (String o : outputs) {
+                    STATS.forEach(x -> c.add(o + "." + x));
+                    c.add(o + ".n");
+                }
+                c.addAll(List.of("failed", "outOfRange"));
+            }
+            case POSTERIOR -> {
+                String f = study.solve().field();
+                List.of("mean", "sd", "mode", "p2_5", "p16", "p50", "p84", "p97_5").forEach(x -> c.add(f + "." + x));
+                c.addAll(List.of("massAtMin", "massAtMax", "failed"));
+            }
+            case SAMPLING -> {
+                String f = study.solve().field();
+                STATS.forEach(x -> c.add(f + "." + x));
+                c.addAll(List.of("solved", "noRootAbove", "noRootBelow", "severalRoots", "failed"));
+            }
+        }
+        return c;
+    }
+
+    /** The values of {@link #csvColumns()} from an {@link #assemble}d result (null where absent). */
+    public List<JsonNode> csvValues(ObjectNode result) {
+        List<JsonNode> v = new ArrayList<>();
+        switch (kind()) {
+            case FORWARD -> {
+                for (String o : outputs) {
+                    JsonNode s = result.path("summaries").path(o);
+                    STATS.forEach(x -> v.add(s.get(x)));
+                    v.add(s.get("n"));
+                }
+                v.add(result.get("failed"));
+                int outside = 0;
+                for (JsonNode n : result.path("outOfRange")) {
+                    outside += n.asInt();
+                }
+                v.add(Json.mapper().getNodeFactory().numberNode(outside));
+            }
+            case POSTERIOR -> {
+                JsonNode e = result.path("estimate");
+                List.of("mean", "sd", "mode", "p2_5", "p16", "p50", "p84", "p97_5").forEach(x -> v.add(e.get(x)));
+                v.add(result.get("massAtMin"));
+                v.add(result.get("massAtMax"));
+                v.add(result.get("failed"));
+            }
+            case SAMPLING -> {
+                JsonNode s = result.path("summary");
+                STATS.forEach(x -> v.add(s.get(x)));
+                List.of("solved", "noRootAbove", "noRootBelow", "severalRoots", "failed").forEach(x -> v.add(result.get(x)));
+            }
+        }
+        return v;
     }
 
     private static <T> List<T> read(List<String> blocks, Class<T> type) {

@@ -20,6 +20,9 @@ import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
 import org.tectomelt.operations.Output;
 import org.tectomelt.operations.Violation;
+import org.tectomelt.runs.study.OperationModel;
+import org.tectomelt.runs.study.StudyRequest;
+import org.tectomelt.runs.study.StudyRun;
 
 /**
  * A parameter sweep: one operation, its base request, the axes (a swept request field and its
@@ -33,16 +36,21 @@ import org.tectomelt.operations.Violation;
  * @param axes      each swept field with its values, in order
  * @param outputs   output names, in order
  * @param label     free text, or null
+ * @param study     the study parts ({@code uncertainty}, {@code solve}, {@code observed}, the seed filled
+ *                  in) when every sweep point carries a Monte Carlo study or an inversion, else null
+ * @param blocks    stored points per sweep point: 1 without a study, else the study's blocks
+ *                  ({@link StudyRun#blocks()})
  */
 public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<String, List<Double>> axes,
-                    List<String> outputs, String label) {
+                    List<String> outputs, String label, ObjectNode study, int blocks) {
 
     /** Longest label. */
     public static final int MAX_LABEL = 200;
     /** Kind of run this describes. */
     public static final String KIND = "sweep";
 
-    private static final Set<String> TOP = Set.of("operation", "request", "sweep", "outputs", "label");
+    private static final Set<String> TOP = Set.of("operation", "request", "sweep", "outputs", "label", "uncertainty",
+            "solve", "observed");
     private static final MathContext TWELVE = new MathContext(12);
 
     /** Number of points. */
@@ -52,6 +60,11 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
             n *= v.size();
         }
         return (int) n;
+    }
+
+    /** Points the run stores: every sweep point times its study's blocks. */
+    public int points() {
+        return size() * blocks;
     }
 
     /** The swept values of point {@code index}, field → value, in axis order. */
@@ -74,15 +87,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
     /** The request of point {@code index}: a fresh copy of the base with the swept fields set. */
     public ObjectNode pointRequest(int index) {
         ObjectNode r = request.deepCopy();
-        for (Map.Entry<String, Double> e : inputs(index).entrySet()) {
-            String[] parts = e.getKey().split("\\.");
-            ObjectNode at = r;
-            for (int i = 0; i < parts.length - 1; i++) {
-                JsonNode child = at.get(parts[i]);
-                at = child instanceof ObjectNode o ? o : at.putObject(parts[i]);
-            }
-            at.put(parts[parts.length - 1], e.getValue());
-        }
+        inputs(index).forEach((field, value) -> OperationModel.set(r, field, value));
         return r;
     }
 
@@ -99,6 +104,10 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         });
         ArrayNode o = d.putArray("outputs");
         outputs.forEach(o::add);
+        if (study != null) {
+            d.set("study", study);
+            d.put("blocks", blocks);
+        }
         return d.toString();
     }
 
@@ -120,7 +129,8 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         List<String> outputs = new ArrayList<>();
         d.path("outputs").forEach(x -> outputs.add(x.asText()));
         return new Sweep(d.path("operation").asText(), (ObjectNode) d.get("request"), (ObjectNode) d.get("sweep"),
-                axes, List.copyOf(outputs), label);
+                axes, List.copyOf(outputs), label, d.get("study") instanceof ObjectNode st ? st : null,
+                d.path("blocks").asInt(1));
     }
 
     /**
@@ -179,9 +189,20 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
                 label = labelNode.asText();
             }
         }
+        boolean withStudy = StudyRequest.FIELDS.stream().anyMatch(f -> b.get(f) != null && !b.get(f).isNull());
+        StudyRequest study = null;
+        if (withStudy && op != null) {
+            try {
+                study = StudyRequest.parse(b, op, invoker);
+            } catch (OperationException e) {
+                v.addAll(e.violations());
+            }
+        }
         JsonNode sweepNode = b.get("sweep");
         Map<String, List<Double>> axes = new LinkedHashMap<>();
-        if (!(sweepNode instanceof ObjectNode sweep) || sweepNode.isEmpty()) {
+        if (withStudy && (sweepNode == null || sweepNode.isNull())) {
+            sweepNode = Json.mapper().createObjectNode(); // one study at the request itself
+        } else if (!(sweepNode instanceof ObjectNode sweep) || sweepNode.isEmpty()) {
             v.add(new Violation("sweep", "is required: an object of at least one swept field, each "
                     + "{\"values\": [...]} or {\"from\": a, \"to\": b, \"steps\": n}"));
             sweepNode = Json.mapper().createObjectNode();
@@ -203,12 +224,22 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
                 }
             }
         }
+        if (withStudy) {
+            String solved = b.path("solve").path("field").asText("");
+            for (String f : axes.keySet()) {
+                if (f.equals(solved) || b.path("uncertainty").path("inputs").has(f)) {
+                    v.add(new Violation("sweep." + f, "is " + (f.equals(solved) ? "the solved field" : "an uncertain "
+                            + "input") + " of the study: it cannot be swept too"));
+                }
+            }
+        }
         List<String> outputs = new ArrayList<>();
         outputs(op, b.get("outputs"), outputs, v);
         if (!v.isEmpty()) {
             throw new OperationException(v);
         }
-        long total = 1;
+        int blocks = study == null ? 1 : new StudyRun(invoker, op, study, outputs).blocks();
+        long total = blocks;
         for (List<Double> values : axes.values()) {
             total *= values.size();
             if (total > maxPoints) {
@@ -218,21 +249,27 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         if (total > maxPoints) {
             StringBuilder sizes = new StringBuilder();
             axes.forEach((f, vals) -> sizes.append(sizes.length() == 0 ? "" : " × ").append(vals.size()));
-            throw new OperationException("sweep", "has " + sizes + " points, more than the " + maxPoints
-                    + " a run may have (server cap TECTOMELT_MAX_RUN_POINTS)");
+            if (blocks > 1) {
+                sizes.append(sizes.length() == 0 ? "" : " × ").append(blocks).append(" study blocks");
+            }
+            throw new OperationException(axes.isEmpty() ? "uncertainty.samples" : "sweep", "has " + sizes
+                    + " points, more than the " + maxPoints + " a run may have (server cap TECTOMELT_MAX_RUN_POINTS; a "
+                    + "study stores one point per " + StudyRun.BLOCK_SAMPLES + " samples or per grid point)");
         }
-        Sweep s = new Sweep(op.name(), request, (ObjectNode) sweepNode, axes, List.copyOf(outputs), label);
-        s.checkEveryPoint(invoker, op);
+        Sweep s = new Sweep(op.name(), request, (ObjectNode) sweepNode, axes, List.copyOf(outputs), label,
+                study == null ? null : study.definition(), blocks);
+        s.checkEveryPoint(invoker, op, study == null ? Map.of() : study.representative());
         return s;
     }
 
     /** Holds every point to the spec; a violation of a swept field lists its offending values. */
-    private void checkEveryPoint(Invoker invoker, Operation<?, ?> op) {
+    private void checkEveryPoint(Invoker invoker, Operation<?, ?> op, Map<String, Double> studied) {
         Map<String, String> firstMessage = new LinkedHashMap<>();
         Map<String, TreeSet<Double>> offending = new LinkedHashMap<>();
         int n = size();
         for (int i = 0; i < n; i++) {
             ObjectNode point = pointRequest(i);
+            studied.forEach((f, x) -> OperationModel.set(point, f, x)); // a study sets these per sample
             List<Violation> vs = invoker.spec().check(op.path(), point, op.caps());
             if (vs.isEmpty()) {
                 continue;
