@@ -1,7 +1,7 @@
 // The page: builds one form per entry of tools.json, calls the API, shows a summary table,
 // SVG plots, downloads and a "copy as curl" command. Everything is served by this service.
 
-import { drawPlot } from "./plot.js";
+import { mountPlot, wrapText, PALETTE, OVERLAY_COLOURS, breakJumps, dataDomain, niceScale, saveBlob, shortCitation, interpolate } from "./plot.js";
 
 const TOKEN_KEY = "tectomelt.token";
 const MELT_FRACTION = "/v1/melt-fraction";
@@ -15,7 +15,14 @@ const state = {
   lithologiesFromServer: false,
   tool: null,
   last: null, // {tool, body, url, response, values}
+  version: "", // the service's version, from /v1/health
+  pinned: {}, // tool id -> [run, ...]: results kept for comparison
+  plots: [], // mounted plot handles of the result on show
+  overlays: {}, // "tool/plot title" -> {lithologies: [ids], isopleths, cpxOut}
 };
+
+/** At most this many runs are drawn together in a comparison. */
+export const MAX_COMPARED = 6;
 
 // ---------------------------------------------------------------- small helpers
 
@@ -142,8 +149,9 @@ async function init() {
   if (version) {
     document.getElementById("version").textContent = "API version " + version[1] + ".";
   }
-  await loadLithologies();
+  await Promise.all([loadLithologies(), loadVersion(spec)]);
   renderNav();
+  watchPlotWidths();
   const wanted = location.hash.replace(/^#/, "");
   const first = config.tools.find((t) => t.id === wanted)
     || config.tools.find((t) => state.paths.has(t.endpoint))
@@ -176,6 +184,22 @@ export function specPaths(yaml) {
     }
   }
   return out;
+}
+
+async function loadVersion(spec) {
+  const fromSpec = /^\s*version:\s*(\S+)/m.exec(spec);
+  state.version = fromSpec ? fromSpec[1] : "";
+  try {
+    const res = await fetch(apiUrl("/v1/health"), { headers: headers(false) });
+    if (res.ok) {
+      const body = await res.json();
+      if (body && body.version) {
+        state.version = String(body.version);
+      }
+    }
+  } catch (e) {
+    // keep the spec's version
+  }
 }
 
 async function loadLithologies() {
@@ -234,8 +258,27 @@ function selectTool(id) {
     }
   }
   renderForm(tool);
-  document.getElementById("results").replaceChildren();
-  document.getElementById("results").removeAttribute("data-state");
+  clearResults();
+}
+
+/** Removes the result on show (it no longer belongs to the form's inputs). */
+function clearResults() {
+  const results = document.getElementById("results");
+  results.replaceChildren();
+  results.removeAttribute("data-stale");
+  state.plots = [];
+  state.last = null;
+}
+
+/** Marks the result on show as computed from earlier inputs. */
+function markStale() {
+  const results = document.getElementById("results");
+  if (!state.last || results.dataset.stale === "true" || !results.firstChild) {
+    return;
+  }
+  results.dataset.stale = "true";
+  results.prepend(h("p", { class: "stale-note", id: "stale-note", role: "status" },
+    "The inputs have changed since this result was computed; it does not belong to them. Press Calculate to update it."));
 }
 
 function lithologyOptions(field) {
@@ -293,12 +336,19 @@ function renderForm(tool) {
   form.append(h("div", { id: "form-error", class: "form-error", role: "alert" }));
   form.append(h("div", { class: "actions" },
     h("button", { type: "submit", id: "run", disabled: !available }, "Calculate"),
-    h("button", { type: "button", class: "quiet", id: "reset", onclick: () => renderForm(tool) }, "Restore defaults")));
+    h("button", { type: "button", class: "quiet", id: "reset", onclick: () => {
+      renderForm(tool);
+      clearResults();
+    } }, "Restore defaults")));
   form.addEventListener("submit", (ev) => {
     ev.preventDefault();
     run(tool, form);
   });
-  form.addEventListener("change", () => applyVisibility(tool, form));
+  form.addEventListener("change", () => {
+    applyVisibility(tool, form);
+    markStale();
+  });
+  form.addEventListener("input", () => markStale());
   box.replaceChildren(form);
   applyVisibility(tool, form);
 }
@@ -404,19 +454,57 @@ function clearErrors(form) {
   form.querySelector("#form-error").replaceChildren();
 }
 
+/** A field's label without its parenthesised remarks ("Mantle temperature (optional)" -> "Mantle temperature"). */
+function shortLabel(f) {
+  return f.label.replace(/\s*\(.*\)\s*$/, "").replace(/^…\s*/, "");
+}
+
+/**
+ * An API field path in the form's words: "lithosphere.mantleTemperatureC" becomes "Mantle
+ * temperature", "depthsKm[0]" becomes "Depths, value 1".
+ */
+export function fieldWords(tool, path) {
+  const visible = tool.fields.filter((f) => f.send !== false);
+  const exact = visible.find((f) => f.name === path);
+  if (exact) {
+    return shortLabel(exact);
+  }
+  const m = /^(.*)\[(\d+)\](.*)$/.exec(path);
+  if (m) {
+    const base = visible.find((f) => f.name === m[1]);
+    if (base) {
+      return `${shortLabel(base)}, value ${Number(m[2]) + 1}${m[3] ? " (" + m[3].replace(/^\./, "") + ")" : ""}`;
+    }
+  }
+  return path;
+}
+
+/** Replaces every API field name in an error message by the form's label for it. */
+export function inFormWords(tool, message) {
+  const names = [...new Set(tool.fields.filter((f) => f.send !== false).map((f) => f.name))]
+    .sort((a, b) => b.length - a.length);
+  let out = String(message);
+  for (const n of names) {
+    const re = new RegExp("(^|[^A-Za-z0-9_.])" + n.replace(/[.]/g, "\\.") + "(\\[\\d+\\])?(?![A-Za-z0-9_])", "g");
+    out = out.replace(re, (all, pre, idx) => pre + "“" + fieldWords(tool, n + (idx || "")) + "”");
+  }
+  return out;
+}
+
 function showFieldErrors(tool, form, errors) {
   const general = [];
-  for (const err of errors) {
+  for (const raw of errors) {
+    const err = { field: raw.field, message: inFormWords(tool, raw.message) };
     const name = fieldForError(tool, err.field);
     const visible = name && [...form.querySelectorAll(".field")]
       .find((row) => row.dataset.field === name && !row.hidden);
     if (visible) {
       const span = visible.querySelector(".field-error");
-      const text = err.field === name ? err.message : `${err.field}: ${err.message}`;
+      const text = err.field === name ? err.message : `${fieldWords(tool, err.field)}: ${err.message}`;
       span.textContent = span.textContent ? span.textContent + "; " + text : text;
       visible.classList.add("invalid");
     } else {
-      general.push(`${err.field}: ${err.message}`);
+      general.push(`${fieldWords(tool, err.field)}: ${err.message}`);
     }
   }
   return general;
@@ -424,7 +512,8 @@ function showFieldErrors(tool, form, errors) {
 
 function showFormError(form, title, lines) {
   const box = form.querySelector("#form-error");
-  box.replaceChildren(h("strong", {}, title), lines.length ? h("ul", {}, lines.map((l) => h("li", {}, l))) : null);
+  box.replaceChildren(...[h("strong", {}, title), lines.length ? h("ul", {}, lines.map((l) => h("li", {}, l))) : null]
+    .filter((n) => n !== null));
 }
 
 // ---------------------------------------------------------------- running a calculation
@@ -432,12 +521,14 @@ function showFormError(form, title, lines) {
 async function run(tool, form) {
   clearErrors(form);
   const { body, values, errors } = collect(tool, form);
+  const results = document.getElementById("results");
   if (errors.length) {
+    clearResults();
+    results.dataset.state = "failed";
     const general = showFieldErrors(tool, form, errors);
     showFormError(form, "Please correct the marked fields.", general);
     return;
   }
-  const results = document.getElementById("results");
   results.dataset.state = "running";
   const button = form.querySelector("#run");
   button.disabled = true;
@@ -445,6 +536,7 @@ async function run(tool, form) {
   try {
     res = await post(tool.endpoint, body);
   } catch (e) {
+    clearResults();
     showFormError(form, "The service could not be reached.", [String(e.message || e)]);
     results.dataset.state = "failed";
     button.disabled = false;
@@ -452,6 +544,7 @@ async function run(tool, form) {
   }
   button.disabled = false;
   if (!res.ok) {
+    clearResults();
     results.dataset.state = "failed";
     const p = res.body || {};
     if (res.status === 401) {
@@ -461,11 +554,11 @@ async function run(tool, form) {
     } else {
       const general = Array.isArray(p.errors) ? showFieldErrors(tool, form, p.errors) : [];
       showFormError(form, p.title || `HTTP ${res.status}`,
-        [p.detail || res.text.slice(0, 300)].concat(general).filter((x) => x));
+        [p.detail ? inFormWords(tool, p.detail) : res.text.slice(0, 300)].concat(general).filter((x) => x));
     }
     return;
   }
-  state.last = { tool, body, values, url: apiUrl(tool.endpoint), response: res.body };
+  state.last = { tool, body, values, url: apiUrl(tool.endpoint), response: res.body, at: new Date() };
   await renderResults(state.last);
 }
 
@@ -474,11 +567,84 @@ function rowsOf(response, paths) {
   return Array.isArray(rows) ? rows : [];
 }
 
+function lithologyInfo(id) {
+  return state.lithologies.find((l) => l.id === id);
+}
+
+/** A lithology's name for legends: "Peridotite (Katz, Spiegelman & Langmuir 2003)", not its id. */
+export function lithologyName(id) {
+  const l = lithologyInfo(id);
+  const name = l && l.name ? l.name : String(id || "");
+  return name.replace(/,\s*(dry and hydrous|dry or hydrous|dry)\s*$/i, "").replace(/\s*\((dry|dry or hydrous)\)\s*$/i, "")
+    .replace(/\(([^()]*\d{4})\)/, (all, authors) => {
+      // "(Katz, Spiegelman & Langmuir 2003)" -> "(Katz et al. 2003)"
+      const m = /^(.*?)\s+(\d{4})$/.exec(authors.trim());
+      return m ? `(${shortCitation(m[1].replace(/\s*&\s*/g, ", ") + " (" + m[2] + ")").replace(/^(\S+) & (\S+) (\d{4})$/, "$1 & $2 $3")})` : all;
+    });
+}
+
+/** Whether a summary row applies to this run (e.g. water and clinopyroxene rows only for mantle rock). */
+function rowApplies(row, values) {
+  const w = row.when;
+  if (!w) {
+    return true;
+  }
+  const info = lithologyInfo(values[w.lithology]);
+  if (!info) {
+    return true;
+  }
+  if (w.kinds && !w.kinds.includes(info.kind)) {
+    return false;
+  }
+  if (w.hydrous !== undefined && Boolean(info.hydrous) !== w.hydrous) {
+    return false;
+  }
+  return true;
+}
+
+/** A duration given in kyr, in the unit the trade would write: yr, kyr or Myr. */
+export function timeInUnits(kyr) {
+  const a = Math.abs(kyr);
+  if (a < 1) {
+    return { value: kyr * 1000, unit: "yr", digits: a * 1000 >= 100 ? 0 : 1 };
+  }
+  if (a < 1000) {
+    return { value: kyr, unit: "kyr", digits: a >= 100 ? 0 : 1 };
+  }
+  return { value: kyr / 1000, unit: "Myr", digits: 2 };
+}
+
+/** The text, unit and raw value of one summary row for a response, or null when it does not apply. */
+function summaryCell(row, response, values) {
+  const v = pick(response, row.path);
+  if (v === undefined || !rowApplies(row, values)) {
+    return null;
+  }
+  if (row.requires) {
+    const r = pick(response, row.requires);
+    if (typeof r === "number" && r <= 0) {
+      return { text: "no melt", unit: "", value: v };
+    }
+  }
+  if (row.format === "bool") {
+    return { text: v ? "yes" : "no", unit: "", value: v };
+  }
+  if (row.format === "time-kyr" && typeof v === "number") {
+    const t = timeInUnits(v);
+    return { text: fmt(t.value, t.digits), unit: t.unit, value: v };
+  }
+  if (typeof v === "number") {
+    return { text: fmt(v * (row.scale || 1), row.digits), unit: row.unit || "", value: v };
+  }
+  return { text: String(v), unit: row.unit || "", value: v };
+}
+
 async function renderResults(last) {
   const { tool, response } = last;
   const results = document.getElementById("results");
   results.dataset.state = "drawing";
   results.replaceChildren();
+  results.removeAttribute("data-stale");
   results.append(h("h2", {}, "Result: " + tool.label));
   results.append(h("p", { class: "result-caution" },
     "Research estimate from simplified published models — not a hazard, geothermal or site assessment."));
@@ -501,22 +667,14 @@ async function renderResults(last) {
 
   const summary = h("table", { id: "summary", class: "summary" });
   for (const row of tool.summary || []) {
-    const v = pick(response, row.path);
-    if (v === undefined) {
+    const cell = summaryCell(row, response, last.values);
+    if (!cell) {
       continue;
-    }
-    let text;
-    if (row.format === "bool") {
-      text = v ? "yes" : "no";
-    } else if (typeof v === "number") {
-      text = fmt(v * (row.scale || 1), row.digits);
-    } else {
-      text = String(v);
     }
     summary.append(h("tr", { "data-path": row.path.find((p) => getPath(response, p) !== undefined) },
       h("th", { scope: "row" }, row.label),
-      h("td", { class: "value" }, text),
-      h("td", { class: "unit" }, row.format === "bool" ? "" : row.unit || "")));
+      h("td", { class: "value" }, cell.text),
+      h("td", { class: "unit" }, cell.unit)));
   }
   if (summary.children.length) {
     results.append(summary);
@@ -534,13 +692,18 @@ async function renderResults(last) {
     results.append(rows.length ? table : h("p", { class: "empty" }, `No ${tool.listing.title.toLowerCase()}.`));
   }
 
+  const compare = h("section", { id: "compare", class: "compare", "aria-label": "Comparison" });
+  results.append(compare);
   const plots = h("div", { id: "plots", class: "plots" });
   results.append(plots);
 
   results.append(h("div", { class: "downloads" },
+    h("button", { type: "button", id: "pin", onclick: () => pinCurrent() }, "Pin for comparison"),
     h("button", { type: "button", id: "download-csv", onclick: () => download(last, "csv") }, "Download CSV"),
     h("button", { type: "button", id: "download-json", onclick: () => download(last, "json") }, "Download JSON"),
     h("button", { type: "button", id: "copy-curl", onclick: () => copyCurl(last) }, "Copy as curl"),
+    h("label", { class: "density" }, "PNG density ",
+      h("select", { id: "png-density" }, [1, 2, 3, 4].map((d) => h("option", { value: d, selected: d === 2 }, `${d}×`)))),
     h("span", { id: "copy-status", class: "hint", role: "status" })));
   results.append(h("textarea", { id: "curl-text", class: "curl", readonly: true, rows: 4, hidden: true,
     "aria-label": "curl command" }));
@@ -556,11 +719,11 @@ async function renderResults(last) {
         m.doi ? h("span", { class: "doi" }, " doi:" + m.doi) : null)))));
   }
 
-  for (const spec of tool.plots || []) {
-    const figure = h("figure", { class: "figure", "data-plot": spec.title });
-    plots.append(figure);
-    await drawFigure(figure, spec, last);
-  }
+  renderCompare(tool);
+  await drawFigures(last);
+  // the result may have changed the page's layout (a scroll bar): fit the plots before saying done
+  await new Promise((r) => requestAnimationFrame(() => r()));
+  fitPlotWidths();
   results.dataset.state = "done";
 }
 
@@ -587,6 +750,147 @@ function allValues(response) {
       h("td", {}, typeof v === "number" ? String(v) : String(v))))));
 }
 
+// ---------------------------------------------------------------- comparison
+
+function sameRun(a, b) {
+  return JSON.stringify(a.body) === JSON.stringify(b.body);
+}
+
+/** The runs of the current tool drawn together: the pinned ones and the one on show, at most MAX_COMPARED. */
+function comparedRuns(tool) {
+  const pinned = state.pinned[tool.id] || [];
+  const runs = pinned.slice();
+  if (state.last && state.last.tool.id === tool.id && !pinned.some((p) => sameRun(p, state.last))) {
+    runs.push(state.last);
+  }
+  return runs.slice(-MAX_COMPARED);
+}
+
+/** The fields whose values differ between runs (page-only fields too), in form order. */
+function differingFields(tool, runs) {
+  const seen = new Set();
+  return tool.fields.filter((f) => {
+    if (seen.has(f.name)) {
+      return false;
+    }
+    const vals = runs.map((r) => JSON.stringify(r.values[f.name] ?? null));
+    const differs = new Set(vals).size > 1;
+    if (differs) {
+      seen.add(f.name);
+    }
+    return differs;
+  });
+}
+
+function valueText(f, v) {
+  if (v === undefined || v === null) {
+    return "default";
+  }
+  if (f.type === "lithology") {
+    return lithologyName(v);
+  }
+  if (f.type === "select") {
+    const o = (f.options || []).find((x) => x.value === v);
+    return o ? o.label : String(v);
+  }
+  if (Array.isArray(v)) {
+    return v.map((x) => (typeof x === "object" ? Object.values(x).join(":") : x)).join(", ");
+  }
+  return String(v);
+}
+
+/** What names a run among the others: "Tp 1350 °C" (its values of the differing fields). */
+function runLabel(run, differing, index) {
+  if (!differing.length) {
+    return `run ${index + 1}`;
+  }
+  return differing.map((f) => `${f.short || shortLabel(f)} ${valueText(f, run.values[f.name])}${f.unit && !["–", ""].includes(f.unit) && typeof run.values[f.name] === "number" ? " " + f.unit : ""}`).join(", ");
+}
+
+/** "Tp 1300 / 1350 / 1400 °C": the differing values side by side, for the legend's heading. */
+function compareTitle(runs, differing) {
+  return "Runs: " + differing.map((f) => {
+    const vals = runs.map((r) => valueText(f, r.values[f.name]));
+    const unit = f.unit && !["–"].includes(f.unit) && runs.every((r) => typeof r.values[f.name] === "number") ? " " + f.unit : "";
+    return `${f.short || shortLabel(f)} ${vals.join(" / ")}${unit}`;
+  }).join("; ");
+}
+
+function pinCurrent() {
+  const last = state.last;
+  if (!last) {
+    return;
+  }
+  const list = state.pinned[last.tool.id] || (state.pinned[last.tool.id] = []);
+  if (!list.some((p) => sameRun(p, last))) {
+    list.push(last);
+    while (list.length > MAX_COMPARED) {
+      list.shift();
+    }
+  }
+  renderCompare(last.tool);
+  drawFigures(last);
+}
+
+function unpin(tool, run) {
+  state.pinned[tool.id] = (state.pinned[tool.id] || []).filter((p) => p !== run);
+  renderCompare(tool);
+  if (state.last) {
+    drawFigures(state.last);
+  }
+}
+
+/** The side-by-side table of the compared runs: differing inputs and the key outputs. */
+function renderCompare(tool) {
+  const box = document.getElementById("compare");
+  if (!box) {
+    return;
+  }
+  const runs = comparedRuns(tool);
+  const pinned = state.pinned[tool.id] || [];
+  const pinButton = document.getElementById("pin");
+  if (pinButton) {
+    const isPinned = state.last && pinned.some((p) => sameRun(p, state.last));
+    pinButton.disabled = Boolean(isPinned);
+    pinButton.textContent = isPinned ? "Pinned" : "Pin for comparison";
+  }
+  if (pinned.length === 0 || runs.length < 2) {
+    box.replaceChildren(pinned.length ? h("p", { class: "hint", id: "compare-hint" },
+      `${pinned.length} run pinned: change an input and press Calculate to draw it beside the new result (up to ${MAX_COMPARED} runs).`) : "");
+    return;
+  }
+  const differing = differingFields(tool, runs);
+  const head = h("tr", { class: "run-head" }, h("th", { scope: "col" }, "Run"), runs.map((r, i) => h("th", { scope: "col", "data-run": i },
+    h("span", { class: "swatch", style: `background: ${PALETTE[i % PALETTE.length]}` }), " ",
+    runLabel(r, differing, i), r === state.last && !pinned.includes(r) ? " (on show)" : "",
+    pinned.includes(r) ? h("button", { type: "button", class: "quiet unpin", onclick: () => unpin(tool, r),
+      "aria-label": "Unpin " + runLabel(r, differing, i) }, "Unpin") : null)));
+  const rows = [];
+  for (const f of differing) {
+    rows.push(h("tr", { class: "input-row", "data-field": f.name }, h("th", { scope: "row" }, shortLabel(f) + (f.unit ? ` (${f.unit})` : "")),
+      runs.map((r) => h("td", {}, valueText(f, r.values[f.name])))));
+  }
+  for (const row of tool.summary || []) {
+    const cells = runs.map((r) => summaryCell(row, r.response, r.values));
+    if (cells.every((c) => c === null)) {
+      continue;
+    }
+    const unit = (cells.find((c) => c && c.unit) || {}).unit;
+    rows.push(h("tr", { class: "output-row", "data-path": row.path[0] }, h("th", { scope: "row" }, row.label + (unit ? ` (${unit})` : "")),
+      cells.map((c) => h("td", { class: "value" }, c ? c.text : "–"))));
+  }
+  box.replaceChildren(h("h3", {}, `Comparison of ${runs.length} runs`),
+    h("table", { id: "compare-table", class: "compare-table" }, h("caption", { class: "visually-hidden" }, "Differing inputs and key outputs of the compared runs"),
+      head, rows),
+    h("p", { class: "actions-inline" }, h("button", { type: "button", class: "quiet", id: "compare-clear", onclick: () => {
+      state.pinned[tool.id] = [];
+      renderCompare(tool);
+      if (state.last) {
+        drawFigures(state.last);
+      }
+    } }, "Clear the comparison")));
+}
+
 // ---------------------------------------------------------------- plots
 
 function sourceValue(src, last) {
@@ -602,12 +906,20 @@ function sourceValue(src, last) {
   return typeof v === "number" ? v * (src.scale || 1) : NaN;
 }
 
-async function drawFigure(figure, spec, last) {
-  const rows = rowsOf(last.response, spec.data);
+const EXTRA_KEYS = [["temperatureC", "T", "°C", 1, 0], ["meltFraction", "F", "%", 100, 1], ["pressureGPa", "P", "GPa", 1, 2]];
+
+function extrasOf(r, skip) {
+  return EXTRA_KEYS.filter(([k]) => !skip.includes(k) && typeof r[k] === "number")
+    .map(([k, name, unit, scale, d]) => `${name} ${(r[k] * scale).toFixed(d)} ${unit}`).join(", ");
+}
+
+/** The curves a plot draws from one run's response (its data, not the solidus or adiabat overlays). */
+function dataSeries(spec, run) {
+  const rows = rowsOf(run.response, spec.data);
   const depthPlot = spec.type === "depth";
   const series = [];
   for (const s of spec.series) {
-    const points = rows.map((r) => {
+    let points = rows.map((r) => {
       const keep = !s.where || (typeof r[s.where] === "number" && r[s.where] > 0);
       const xv = depthPlot ? r[s.x] : r[spec.x.key];
       const yv = depthPlot ? r[spec.y.key] : r[s.y];
@@ -616,12 +928,16 @@ async function drawFigure(figure, spec, last) {
       }
       return depthPlot ? [xv * (s.scale || 1), yv] : [xv, yv * (s.scale || 1)];
     });
-    series.push({ label: s.label, role: s.role, dots: s.dots, points });
+    if (s.breakAtJumps) {
+      points = breakJumps(points, depthPlot ? 0 : 1);
+    }
+    const extras = s.breakAtJumps ? undefined : rows.map((r) => extrasOf(r, [depthPlot ? s.x : s.y, spec.y.key, spec.x.key, spec.y2 ? spec.y2.key : ""]));
+    series.push({ label: s.label, role: s.role, dots: s.dots, points, extras });
   }
   if (spec.seriesFrom) {
     // one curve per element of an array (e.g. a profile per requested time), in sequence colours
     const sf = spec.seriesFrom;
-    rowsOf(last.response, sf.data).forEach((e, i) => {
+    rowsOf(run.response, sf.data).forEach((e, i) => {
       const pts = Array.isArray(e[sf.points]) ? e[sf.points] : [];
       series.push({
         label: sf.label.replace(/\{(\w+)\}/g, (_, k) => (typeof e[k] === "number" ? fmt(e[k], Number.isInteger(e[k]) ? 0 : 1) : String(e[k] ?? ""))),
@@ -631,6 +947,77 @@ async function drawFigure(figure, spec, last) {
       });
     });
   }
+  return series;
+}
+
+/**
+ * The depths a plot's curves are "affected" over (where they leave their own typical value, e.g.
+ * melt above zero or a thermal halo around a sill), padded; null when nothing stands out.
+ */
+export function affectedDepths(series) {
+  let lo = Infinity, hi = -Infinity, xmin = Infinity, xmax = -Infinity;
+  for (const s of series) {
+    for (const [x] of s.points) {
+      if (isFinite(x)) {
+        xmin = Math.min(xmin, x);
+        xmax = Math.max(xmax, x);
+      }
+    }
+  }
+  const tol = 0.02 * (xmax - xmin);
+  for (const s of series) {
+    const xs = s.points.map((p) => p[0]).filter((x) => isFinite(x)).sort((a, b) => a - b);
+    if (!xs.length) {
+      continue;
+    }
+    const typical = xs[Math.floor(xs.length / 2)];
+    for (const [x, y] of s.points) {
+      if (isFinite(x) && isFinite(y) && Math.abs(x - typical) > tol) {
+        lo = Math.min(lo, y);
+        hi = Math.max(hi, y);
+      }
+    }
+  }
+  if (!(hi >= lo)) {
+    return null;
+  }
+  const pad = Math.max(1, 0.25 * (hi - lo));
+  return [Math.max(0, lo - pad), hi + pad];
+}
+
+function overlayKey(tool, spec) {
+  return tool.id + "/" + spec.title;
+}
+
+function overlaysFor(tool, spec) {
+  const k = overlayKey(tool, spec);
+  if (!state.overlays[k]) {
+    state.overlays[k] = { lithologies: [], isopleths: true, cpxOut: true };
+  }
+  return state.overlays[k];
+}
+
+/** Builds what one figure draws for the result on show (and the compared runs): {plot, notes, pressurePairs}. */
+async function figureSpec(spec, last, runs) {
+  const depthPlot = spec.type === "depth";
+  const compared = runs.length > 1;
+  const differing = compared ? differingFields(last.tool, runs) : [];
+  const series = [];
+  runs.forEach((run, i) => {
+    const own = dataSeries(spec, run);
+    if (!compared) {
+      series.push(...own);
+      return;
+    }
+    const name = runLabel(run, differing, i);
+    for (const s of own) {
+      series.push(Object.assign(s, {
+        label: own.length > 1 ? `${s.label}, ${name}` : name,
+        color: PALETTE[i % PALETTE.length], run: i,
+      }));
+    }
+  });
+  const rows = rowsOf(last.response, spec.data);
   const levels = (spec.levels || []).map((l) => ({ y: sourceValue(l, last), label: l.label }));
   const marks = (spec.marks || []).map((mk) => ({ x: sourceValue(mk.x, last), y: sourceValue(mk.y, last), label: mk.label }));
   if (spec.pointsFrom) {
@@ -648,7 +1035,7 @@ async function drawFigure(figure, spec, last) {
       const line = (key) => a.rows.map((r) => [typeof r[key] === "number" ? r[key] : NaN, r.depthKm]);
       const extra = [{ label: a.label, role: "adiabat", points: line("temperatureC") }];
       if (a.rows.some((r) => typeof r.solidusC === "number")) {
-        extra.unshift({ label: `solidus (${last.values[spec.adiabat.lithology]}${wetLabel(last, spec.adiabat.water)})`,
+        extra.unshift({ label: `solidus, ${lithologyName(last.values[spec.adiabat.lithology])}${wetLabel(last, spec.adiabat.water)}`,
           role: "solidus", points: line("solidusC") },
         { label: "liquidus", role: "liquidus", points: line("liquidusC") });
         solidusDrawn = true;
@@ -659,31 +1046,275 @@ async function drawFigure(figure, spec, last) {
       notes.push(a.note);
     }
   }
+  let grid = null;
   if (spec.solidus && !solidusDrawn) {
     const extra = await solidusCurves(spec, rows, last);
     series.unshift(...extra.series);
     if (extra.note) {
       notes.push(extra.note);
     }
+    grid = extra.grid || null;
   }
-  const drawn = series.filter((s) => s.points.some(([x, y]) => isFinite(x) && isFinite(y)));
-  figure.replaceChildren();
-  if (drawn.length === 0 && marks.every((mk) => !isFinite(mk.x))) {
-    figure.append(h("p", { class: "empty" }, `${spec.title}: nothing to draw (no melting or no profile returned).`));
-    return;
+  // depth ↔ pressure pairs of this plot, for the second axis and for extra melting curves
+  let pressurePairs = null;
+  const pkey = spec.y2 ? spec.y2.key : "pressureGPa";
+  if (spec.y.key === "pressureGPa") {
+    pressurePairs = "identity";
+  } else {
+    const pairs = axisRows.filter((r) => typeof r[spec.y.key] === "number" && typeof r[pkey] === "number")
+      .map((r) => [r[spec.y.key], r[pkey]]);
+    pressurePairs = pairs.length > 1 ? pairs.sort((a, b) => a[0] - b[0]) : null;
+  }
+  const overlays = overlaysFor(last.tool, spec);
+  if (grid) {
+    if (overlays.isopleths) {
+      series.push(...grid.isopleths);
+    }
+    if (overlays.cpxOut && grid.cpxOut) {
+      series.push(grid.cpxOut);
+    }
+  }
+  if (overlays.lithologies.length && pressurePairs && isTemperaturePlot(spec)) {
+    const extra = await extraSolidi(overlays.lithologies, pressurePairs, spec);
+    series.push(...extra.series);
+    notes.push(...extra.notes);
   }
   let y2;
-  if (spec.y2) {
-    const pairs = axisRows.filter((r) => typeof r[spec.y.key] === "number" && typeof r[spec.y2.key] === "number")
-      .map((r) => [r[spec.y.key], r[spec.y2.key]]);
-    y2 = pairs.length > 1 ? { label: spec.y2.label, unit: spec.y2.unit, pairs } : undefined;
+  if (spec.y2 && Array.isArray(pressurePairs)) {
+    y2 = { label: spec.y2.label, unit: spec.y2.unit, pairs: pressurePairs };
   }
-  figure.append(drawPlot({
-    title: spec.title, x: spec.x, y: spec.y, invertY: depthPlot, series: drawn, levels, marks, y2,
-  }));
-  for (const n of notes) {
-    figure.append(h("figcaption", { class: "plot-note" }, n));
+  const drawn = series.filter((s) => s.points.some(([x, y]) => isFinite(x) && isFinite(y)));
+  const plot = {
+    title: spec.title, x: Object.assign({}, spec.x), y: Object.assign({}, spec.y), invertY: depthPlot,
+    series: drawn, levels, marks, y2, legendTitle: compared ? compareTitle(runs, differing) : undefined,
+  };
+  if (spec.zoom === "affected") {
+    const own = drawn.filter((s) => s.role && s.role.startsWith("seq-") || s.run !== undefined || spec.series.some((t) => t.label === s.label));
+    const range = affectedDepths(own.length ? own : drawn);
+    if (range) {
+      plot.y.domain = range;
+      plot.zoomed = true;
+    }
   }
+  return { plot, notes, drawn, marks, hasGrid: Boolean(grid), pressurePairs };
+}
+
+function isTemperaturePlot(spec) {
+  return spec.type === "depth" && /temperature/i.test(spec.x.label);
+}
+
+/** Every figure of the result: built, given a shared depth axis, mounted with its tools. */
+async function drawFigures(last) {
+  const plotsBox = document.getElementById("plots");
+  if (!plotsBox) {
+    return;
+  }
+  const token = {};
+  state.drawing = token;
+  const runs = comparedRuns(last.tool);
+  const built = [];
+  for (const spec of last.tool.plots || []) {
+    built.push({ spec, fig: await figureSpec(spec, last, runs.length ? runs : [last]) });
+  }
+  if (state.drawing !== token) {
+    return; // a newer drawing started meanwhile
+  }
+  // panels of one result share their depth axis (a plot zoomed to the affected depths keeps its own)
+  const groups = {};
+  for (const b of built) {
+    if (b.spec.type === "depth" && !b.fig.plot.zoomed && b.fig.drawn.length) {
+      (groups[b.spec.y.key] = groups[b.spec.y.key] || []).push(b.fig.plot);
+    }
+  }
+  for (const plots of Object.values(groups)) {
+    if (plots.length > 1) {
+      const doms = plots.map((p) => dataDomain(p).y);
+      const range = [Math.min(...doms.map((d) => d[0])), Math.max(...doms.map((d) => d[1]))];
+      const s = niceScale(range[0], range[1], 6);
+      for (const p of plots) {
+        p.y.domain = [s.lo, s.hi];
+      }
+    }
+  }
+  plotsBox.replaceChildren();
+  state.plots = [];
+  for (const { spec, fig } of built) {
+    const figure = h("figure", { class: "figure", "data-plot": spec.title });
+    plotsBox.append(figure);
+    if (fig.drawn.length === 0 && fig.marks.every((mk) => !isFinite(mk.x))) {
+      figure.append(h("p", { class: "empty" }, `${spec.title}: nothing to draw (no melting or no profile returned).`));
+      for (const n of fig.notes) {
+        figure.append(h("figcaption", { class: "plot-note" }, n));
+      }
+      continue;
+    }
+    mountFigure(figure, spec, fig, last);
+  }
+  document.getElementById("results").dataset.plots = String(state.plots.length);
+}
+
+/** Draws one figure again (its overlays changed), keeping its shared depth axis and its tools. */
+async function redrawFigure(spec) {
+  const entry = state.plots.find((p) => p.spec === spec);
+  const last = state.last;
+  if (!entry || !last) {
+    return;
+  }
+  const token = {};
+  entry.pending = token;
+  const fig = await figureSpec(spec, last, comparedRuns(last.tool).length ? comparedRuns(last.tool) : [last]);
+  if (entry.pending !== token || state.last !== last) {
+    return; // a later change of the overlays is being drawn
+  }
+  if (entry.sharedY && !fig.plot.zoomed) {
+    fig.plot.y.domain = entry.sharedY;
+  }
+  entry.holder.replaceChildren();
+  const width = Math.floor(entry.figure.clientWidth || 480);
+  entry.handle = mountPlot(entry.holder, fig.plot, { width, readout: entry.readout, titleLines: titleRoom(last.tool, width) });
+  entry.notes.replaceChildren(...fig.notes.map((n) => h("figcaption", { class: "plot-note" }, n)));
+  entry.figure.dataset.overlays = String(fig.plot.series.filter((x) => x.role === "extra").length);
+}
+
+/** Title lines to leave room for, so that the frames of panels side by side stay level. */
+function titleRoom(tool, width) {
+  return Math.min(2, Math.max(1, ...(tool.plots || []).map((p) => wrapText(p.title, 14, width - 72).length)));
+}
+
+function slug(s) {
+  return String(s).toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "");
+}
+
+/** The small provenance line of an exported figure: service version, models, date. */
+export function provenanceLine(last) {
+  const p = last.response && last.response.provenance;
+  let version = state.version;
+  let models = (Array.isArray(last.response.models) ? last.response.models : []).map((m) => shortCitation(m.citation || m.id));
+  if (p && typeof p === "object") {
+    version = p.serviceVersion || p.version || version;
+    if (Array.isArray(p.models) && p.models.length) {
+      models = p.models.map((m) => (typeof m === "string" ? m : shortCitation(m.citation || m.id || "")));
+    }
+  }
+  const when = (last.at || new Date()).toISOString().slice(0, 10);
+  return `tectomelt ${version || "?"} · ${last.tool.endpoint} · ${when} · models: ${[...new Set(models)].join("; ") || "none"}`;
+}
+
+function mountFigure(figure, spec, fig, last) {
+  const holder = h("div", { class: "plot-holder" });
+  const readout = h("output", { class: "readout", "aria-live": "off",
+    "data-hint": "Point at the plot for its values; drag to pan, shift+drag to zoom a box, double-click for the full view." });
+  const tools = h("div", { class: "plot-tools", role: "toolbar", "aria-label": spec.title + " tools" });
+  const notes = h("div", { class: "plot-notes" });
+  figure.append(tools, holder, readout);
+  const width = Math.floor(figure.clientWidth || 480);
+  const handle = mountPlot(holder, fig.plot, { width, readout, titleLines: titleRoom(last.tool, width) });
+  const entry = { figure, handle, spec, holder, readout, notes, sharedY: fig.plot.zoomed ? null : fig.plot.y.domain };
+  state.plots.push(entry);
+  const file = `tectomelt-${last.tool.id}-${slug(spec.title)}`;
+  const density = () => Number((document.getElementById("png-density") || {}).value || 2);
+  tools.append(
+    h("button", { type: "button", class: "quiet small", "data-act": "zoom-in", onclick: () => handle.zoom(1.5) }, "Zoom in"),
+    h("button", { type: "button", class: "quiet small", "data-act": "zoom-out", onclick: () => handle.zoom(1 / 1.5) }, "Zoom out"),
+    h("button", { type: "button", class: "quiet small", "data-act": "reset", onclick: () => handle.reset() }, "Full view"),
+    h("button", { type: "button", class: "quiet small", "data-act": "svg", onclick: () => {
+      const mk = handle.markup(provenanceLine(last));
+      saveBlob(new Blob([mk.text], { type: "image/svg+xml" }), file + ".svg");
+    } }, "SVG"),
+    h("button", { type: "button", class: "quiet small", "data-act": "png", onclick: async () => {
+      try {
+        saveBlob(await handle.png(provenanceLine(last), density()), file + ".png");
+      } catch (e) {
+        readout.textContent = String(e.message || e);
+      }
+    } }, "PNG"));
+  const chooser = overlayChooser(spec, fig, last);
+  if (chooser) {
+    figure.append(chooser);
+  }
+  figure.append(notes);
+  notes.append(...fig.notes.map((n) => h("figcaption", { class: "plot-note" }, n)));
+}
+
+/** Check boxes for extra melting curves: other lithologies' solidi, F isopleths, clinopyroxene-out. */
+function overlayChooser(spec, fig, last) {
+  const tool = last.tool;
+  const o = overlaysFor(tool, spec);
+  const redraw = () => redrawFigure(spec);
+  const boxes = [];
+  if (fig.hasGrid) {
+    boxes.push(h("label", {}, h("input", { type: "checkbox", "data-overlay": "isopleths", checked: o.isopleths,
+      onchange: (ev) => {
+        o.isopleths = ev.target.checked;
+        redraw();
+      } }), " melt-fraction isopleths"));
+    const info = lithologyInfo(last.values[spec.solidus.lithology]);
+    if (!info || info.kind === "mantle") {
+      boxes.push(h("label", {}, h("input", { type: "checkbox", "data-overlay": "cpx-out", checked: o.cpxOut,
+        onchange: (ev) => {
+          o.cpxOut = ev.target.checked;
+          redraw();
+        } }), " clinopyroxene-out curve"));
+    }
+  }
+  if (fig.pressurePairs && isTemperaturePlot(spec) && state.paths.has(MELT_FRACTION)) {
+    const own = [spec.solidus && last.values[spec.solidus.lithology], spec.adiabat && last.values[spec.adiabat.lithology]];
+    for (const l of state.lithologies.filter((x) => !own.includes(x.id))) {
+      boxes.push(h("label", {}, h("input", { type: "checkbox", "data-overlay": "solidus", value: l.id,
+        checked: o.lithologies.includes(l.id), onchange: (ev) => {
+          o.lithologies = ev.target.checked ? o.lithologies.concat(l.id) : o.lithologies.filter((x) => x !== l.id);
+          redraw();
+        } }), " solidus of " + lithologyName(l.id)));
+    }
+  }
+  if (!boxes.length) {
+    return null;
+  }
+  const open = o.lithologies.length > 0 || fig.hasGrid;
+  return h("details", { class: "overlays", open }, h("summary", {}, "Melting curves to draw"),
+    h("div", { class: "overlay-list" }, boxes));
+}
+
+/** Solidi of other lithologies at the plot's pressures (within each one's range): {series, notes}. */
+async function extraSolidi(ids, pairs, spec) {
+  const series = [], notes = [];
+  const jobs = ids.map(async (id, k) => {
+    const info = lithologyInfo(id);
+    const range = info && Array.isArray(info.pressureRangeGPa) ? info.pressureRangeGPa : [0, Infinity];
+    let samples;
+    if (pairs === "identity") {
+      samples = [];
+      for (let i = 0; i <= 40; i++) {
+        const p = range[0] + (Math.min(range[1], 6) - range[0]) * i / 40;
+        samples.push({ y: p, p });
+      }
+    } else {
+      const pmax = Math.max(...pairs.map((q) => q[1]));
+      const lo = range[0], hi = Math.min(range[1], pmax);
+      const inverse = pairs.map(([a, b]) => [b, a]);
+      samples = [];
+      for (let i = 0; i <= 40 && hi > lo; i++) {
+        const p = lo + (hi - lo) * i / 40;
+        const y = interpolate(inverse, p);
+        if (isFinite(y)) {
+          samples.push({ y, p });
+        }
+      }
+    }
+    if (!samples.length) {
+      notes.push(`Solidus of ${lithologyName(id)} not drawn: its model covers ${range[0]}–${range[1]} GPa, outside this plot.`);
+      return;
+    }
+    const { results, error } = await meltBatch(id, 0, samples.map((s) => ({ pressureGPa: s.p, temperatureC: 800 })));
+    if (!results) {
+      notes.push(`Solidus of ${lithologyName(id)} not drawn: ${error}`);
+      return;
+    }
+    series[k] = { label: `solidus, ${lithologyName(id)}`, role: "extra", color: OVERLAY_COLOURS[k % OVERLAY_COLOURS.length],
+      points: results.map((r, i) => [r.solidusC, samples[i].y]) };
+  });
+  await Promise.all(jobs);
+  return { series: series.filter(Boolean), notes };
 }
 
 /**
@@ -726,8 +1357,40 @@ function wetLabel(last, waterField) {
 }
 
 /**
+ * One batch call of the melt-fraction endpoint: {results} (one per point, in order) or {error}
+ * saying why there are none.
+ */
+async function meltBatch(lithology, water, points) {
+  const body = { lithology, points };
+  if (water > 0) {
+    body.bulkWaterWtPct = water;
+  }
+  let res;
+  try {
+    res = await post(MELT_FRACTION, body);
+  } catch (e) {
+    return { error: String(e.message || e) };
+  }
+  if (res.ok && res.body && Array.isArray(res.body.results)) {
+    return { results: res.body.results };
+  }
+  return { error: res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}` };
+}
+
+/** Where along a row of increasing temperatures a quantity first reaches `level` (linear), or NaN. */
+function firstCrossing(temps, vals, level) {
+  for (let i = 1; i < temps.length; i++) {
+    if (vals[i - 1] < level && vals[i] >= level) {
+      return temps[i - 1] + (temps[i] - temps[i - 1]) * (level - vals[i - 1]) / (vals[i] - vals[i - 1]);
+    }
+  }
+  return NaN;
+}
+
+/**
  * Solidus and liquidus of the chosen lithology at the plot's pressures, from the melt-fraction
- * endpoint in batch form: {series: [...], note}.
+ * endpoint in batch form: {series: [...], note, grid}. On a P–T diagram (pressureRangeGPa) it also
+ * samples a P–T grid in one batch for the F isopleths and the clinopyroxene-out curve.
  */
 async function solidusCurves(spec, rows, last) {
   const cfg = spec.solidus;
@@ -742,7 +1405,7 @@ async function solidusCurves(spec, rows, last) {
     await loadLithologies(); // a server that asks for a token refused it before one was entered
   }
   const water = typeof last.values[cfg.water] === "number" ? last.values[cfg.water] : 0;
-  const info = state.lithologies.find((l) => l.id === lithology);
+  const info = lithologyInfo(lithology);
   const range = info && Array.isArray(info.pressureRangeGPa) ? info.pressureRangeGPa : [0, Infinity];
   let samples = [];
   if (cfg.pressureRangeGPa) {
@@ -766,28 +1429,86 @@ async function solidusCurves(spec, rows, last) {
   if (samples.length === 0) {
     return { series: [], note: "Solidus and liquidus not drawn: no pressures within the model's range." };
   }
-  const body = { lithology, points: samples.map((s) => ({ pressureGPa: s.pressureGPa, temperatureC: s.temperatureC })) };
-  if (water > 0) {
-    body.bulkWaterWtPct = water;
-  }
-  let res;
-  try {
-    res = await post(MELT_FRACTION, body);
-  } catch (e) {
-    return { series: [], note: "Solidus and liquidus not drawn: " + (e.message || e) };
-  }
-  const results = res.ok && res.body && Array.isArray(res.body.results) ? res.body.results : null;
+  const { results, error } = await meltBatch(lithology, water,
+    samples.map((s) => ({ pressureGPa: s.pressureGPa, temperatureC: s.temperatureC })));
   if (!results) {
-    const why = res.body && res.body.detail ? res.body.detail : `HTTP ${res.status}`;
-    return { series: [], note: "Solidus and liquidus not drawn: " + why };
+    return { series: [], note: "Solidus and liquidus not drawn: " + error };
   }
-  return {
-    series: [
-      { label: `solidus (${lithology}${wetLabel(last, cfg.water)})`, role: "solidus",
-        points: results.map((r, i) => [r.solidusC, samples[i].y]) },
-      { label: "liquidus", role: "liquidus", points: results.map((r, i) => [r.liquidusC, samples[i].y]) },
-    ],
-  };
+  const name = lithologyName(lithology);
+  const out = [{ label: `solidus, ${name}${wetLabel(last, cfg.water)}`, role: "solidus",
+    points: results.map((r, i) => [r.solidusC, samples[i].y]) }];
+  if (results.some((r) => typeof r.liquidusC === "number")) {
+    out.push({ label: "liquidus", role: "liquidus", points: results.map((r, i) => [typeof r.liquidusC === "number" ? r.liquidusC : NaN, samples[i].y]) });
+  }
+  const grid = cfg.pressureRangeGPa ? await meltGrid(lithology, water, samples, results) : null;
+  return { series: out, grid };
+}
+
+/** F isopleths and the clinopyroxene-out curve on a P–T diagram, from one batch over a grid. */
+async function meltGrid(lithology, water, samples, edge) {
+  const solidi = edge.map((r) => r.solidusC).filter((x) => isFinite(x));
+  const liquidi = edge.map((r) => r.liquidusC).filter((x) => typeof x === "number");
+  const tLo = Math.floor((Math.min(...solidi) - 20) / 10) * 10;
+  const tHi = liquidi.length ? Math.max(...liquidi) : Math.max(...solidi) + 400;
+  const nT = 90, ps = samples.filter((_, i) => i % 3 === 0).map((s) => s.pressureGPa);
+  const temps = [];
+  for (let j = 0; j <= nT; j++) {
+    temps.push(tLo + (tHi - tLo) * j / nT);
+  }
+  const points = [];
+  for (const p of ps) {
+    for (const t of temps) {
+      points.push({ pressureGPa: p, temperatureC: t });
+    }
+  }
+  const { results } = await meltBatch(lithology, water, points);
+  if (!results) {
+    return null;
+  }
+  const levels = [0.1, 0.2, 0.3, 0.4, 0.5];
+  const isopleths = [];
+  const rowsF = ps.map((_, i) => results.slice(i * temps.length, (i + 1) * temps.length));
+  levels.forEach((lv, k) => {
+    const pts = ps.map((p, i) => [firstCrossing(temps, rowsF[i].map((r) => r.meltFraction), lv), p]);
+    if (pts.some(([x]) => isFinite(x))) {
+      isopleths.push({ label: k === 0 ? `melt fraction ${levels.map((l) => l * 100).join(", ")} %` : `F ${lv * 100} %`,
+        role: "isopleth", points: pts, legend: k === 0, isopleth: lv });
+    }
+  });
+  let cpxOut = null;
+  const cpx = ps.map((p, i) => [firstCrossing(temps, rowsF[i].map((r) => (r.cpxExhausted ? 1 : 0)), 0.5), p]);
+  if (cpx.some(([x]) => isFinite(x))) {
+    cpxOut = { label: "clinopyroxene out", role: "cpx-out", points: cpx };
+  }
+  return { isopleths, cpxOut };
+}
+
+/** Redraws every plot whose figure changed width (text stays at its size). */
+function fitPlotWidths() {
+  if (window.matchMedia && window.matchMedia("print").matches) {
+    return; // a printed page scales the figures as drawn
+  }
+  for (const { figure, handle } of state.plots) {
+    const w = Math.floor(figure.clientWidth);
+    if (w > 0 && Math.abs(w - handle.svg.frame.W) > 2) {
+      handle.redraw(w, { titleLines: state.last ? titleRoom(state.last.tool, w) : 1 });
+    }
+  }
+}
+
+/** Redraws the plots at their new widths when the page is resized (text stays at its size). */
+function watchPlotWidths() {
+  if (typeof ResizeObserver === "undefined") {
+    return;
+  }
+  let pending = null;
+  const ro = new ResizeObserver(() => {
+    clearTimeout(pending);
+    pending = setTimeout(() => {
+      fitPlotWidths();
+    }, 80);
+  });
+  ro.observe(document.getElementById("results"));
 }
 
 // ---------------------------------------------------------------- downloads and curl
@@ -842,14 +1563,7 @@ export function toCsv(tool, response) {
 
 function download(last, kind) {
   const text = kind === "csv" ? toCsv(last.tool, last.response) : JSON.stringify(last.response, null, 2) + "\n";
-  const blob = new Blob([text], { type: kind === "csv" ? "text/csv" : "application/json" });
-  const a = h("a", { href: URL.createObjectURL(blob), download: `tectomelt-${last.tool.id}.${kind}` });
-  document.body.append(a);
-  a.click();
-  setTimeout(() => {
-    URL.revokeObjectURL(a.href);
-    a.remove();
-  }, 1000);
+  saveBlob(new Blob([text], { type: kind === "csv" ? "text/csv" : "application/json" }), `tectomelt-${last.tool.id}.${kind}`);
 }
 
 function shellQuote(s) {

@@ -108,6 +108,62 @@ final class HeadlessChromium implements AutoCloseable {
         }
     }
 
+    /** Sets the window's inner size (CSS pixels), e.g. a phone's 390 px width. */
+    void resize(int width, int height) {
+        driver.manage().window().setSize(new Dimension(width, height));
+    }
+
+    /** Shows the page as printed ("print"), or as the output medium says ("": no override). */
+    void emulateMedia(String media) {
+        driver.executeCdpCommand("Emulation.setEmulatedMedia", Map.of("media", media));
+    }
+
+    /** The page printed to PDF (A4, the page's own print stylesheet), also saved under target/browser/. */
+    byte[] printToPdf(String name) {
+        Map<String, Object> out = driver.executeCdpCommand("Page.printToPDF",
+                Map.of("paperWidth", 8.27, "paperHeight", 11.69, "printBackground", true));
+        byte[] pdf = java.util.Base64.getDecoder().decode((String) out.get("data"));
+        try {
+            Files.createDirectories(SCREENSHOTS);
+            Files.write(SCREENSHOTS.resolve(name + ".pdf"), pdf);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+        return pdf;
+    }
+
+    /**
+     * Runs the axe-core accessibility engine (the script shipped in the com.deque.html.axe-core
+     * test dependency) on the page as it is and returns its violations: {id, impact, help, nodes}.
+     */
+    @SuppressWarnings("unchecked")
+    java.util.List<Map<String, Object>> axeViolations() {
+        String axe;
+        try (var in = HeadlessChromium.class.getResourceAsStream("/axe.min.js")) {
+            if (in == null) {
+                throw new IllegalStateException("axe.min.js is not on the test class path");
+            }
+            axe = new String(in.readAllBytes(), java.nio.charset.StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+        js(axe);
+        Object r = driver.executeAsyncScript("const done = arguments[arguments.length - 1];"
+                + "axe.run(document, {resultTypes: ['violations']}).then((res) => done(res.violations.map((v) => ({"
+                + "  id: v.id, impact: v.impact, help: v.help,"
+                + "  nodes: v.nodes.slice(0, 5).map((n) => n.target.join(' '))}))), (e) => done([{id: 'axe-error', impact: 'critical', help: String(e)}]));");
+        return (java.util.List<Map<String, Object>>) r;
+    }
+
+    /** Removes an earlier download called {@code fileName}, so the next one keeps that name. */
+    void forgetDownload(String fileName) {
+        try {
+            Files.deleteIfExists(downloads.resolve(fileName));
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+
     /** Waits for a finished download called {@code fileName} and returns its path. */
     Path downloaded(String fileName) {
         Path file = downloads.resolve(fileName);

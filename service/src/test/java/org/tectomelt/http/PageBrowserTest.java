@@ -13,8 +13,10 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.concurrent.atomic.AtomicReference;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -188,7 +190,9 @@ class PageBrowserTest {
         String crust = text(".field[data-field='crustThicknessKm'] .field-error");
         assertTrue(crust.contains("between 0 and 100"), crust);
         String depths = text(".field[data-field='depthsKm'] .field-error");
-        assertTrue(depths.contains("depthsKm[0]"), depths);
+        // the API's path depthsKm[0] in the form's words
+        assertTrue(depths.contains("Depths, value 1"), depths);
+        assertFalse(depths.contains("depthsKm"), depths);
         assertTrue(browser.driver.findElement(By.cssSelector(".field[data-field='crustThicknessKm']"))
                 .getAttribute("class").contains("invalid"));
         browser.screenshot("pressure-validation");
@@ -291,8 +295,9 @@ class PageBrowserTest {
         double crust = summary("crustalThicknessKm");
         // common practice: a normal ridge makes crust of several km (Klein & Langmuir 1987 rule of thumb, REFERENCES §2.5)
         assertTrue(crust > 4 && crust < 12, "crust " + crust);
-        // new crust per km of ridge per year = crust thickness × full spreading rate (issue definition)
-        assertEquals(crust * 48e-6, summary("meltProductionKm3PerYrPerKm"), 0.00006);
+        // new crust per km of ridge = crust thickness × full spreading rate (issue definition), shown in km³/km/Myr:
+        // 48 mm/yr = 48 km/Myr, so crust (km) × 48 km³/km/Myr; shown to the unit (0.00006 km³/yr per km before)
+        assertEquals(crust * 48, summary("meltProductionKm3PerYrPerKm"), 60);
 
         WebElement diagram = browser.driver.findElement(By.cssSelector("#plots figure:first-child svg"));
         List<String> drawn = new ArrayList<>();
@@ -338,6 +343,7 @@ class PageBrowserTest {
         browser.fill("outputEveryKyr", "5");
         browser.fill("profileTimesKyr", "0, 50, 150, 300");
         assertEquals("done", browser.submit());
+        browser.forgetDownload("tectomelt-sill.json");
         browser.driver.findElement(By.id("download-json")).click();
         JsonNode json = JSON.readTree(browser.downloaded("tectomelt-sill.json").toFile());
         JsonNode series = json.get("series");
@@ -474,5 +480,720 @@ class PageBrowserTest {
             browser.js("sessionStorage.clear()");
             app.stop();
         }
+    }
+
+    // ------------------------------------------------------------------ issue 19: faults
+
+    /** Data-space reading of an SVG plot: frame in user units and the shown domains. */
+    @SuppressWarnings("unchecked")
+    private static Map<String, Object> frameOf(WebElement svg) {
+        return (Map<String, Object>) browser.js(""
+                + "const svg = arguments[0], f = svg.querySelector('.plot-frame');"
+                + "const num = (a) => Number(f.getAttribute(a));"
+                + "const vb = svg.viewBox.baseVal;"
+                + "return {x: num('x'), y: num('y'), w: num('width'), h: num('height'), vbw: vb.width, vbh: vb.height,"
+                + "  xd: svg.dataset.xDomain.split(',').map(Number), yd: svg.dataset.yDomain.split(',').map(Number),"
+                + "  shown: svg.getBoundingClientRect().width};", svg);
+    }
+
+    private static double num(Object o) {
+        return ((Number) o).doubleValue();
+    }
+
+    @SuppressWarnings("unchecked")
+    private static double[] domain(Map<String, Object> f, String key) {
+        List<Object> d = (List<Object>) f.get(key);
+        return new double[] {num(d.get(0)), num(d.get(1))};
+    }
+
+    /** Data x of an SVG user-space x in plot {@code f}. */
+    private static double dataX(Map<String, Object> f, double sx) {
+        double[] d = domain(f, "xd");
+        return d[0] + (sx - num(f.get("x"))) / num(f.get("w")) * (d[1] - d[0]);
+    }
+
+    /** Data y of an SVG user-space y in a depth-downward plot {@code f}. */
+    private static double dataDepth(Map<String, Object> f, double sy) {
+        double[] d = domain(f, "yd");
+        return d[0] + (sy - num(f.get("y"))) / num(f.get("h")) * (d[1] - d[0]);
+    }
+
+    private static WebElement figureSvg(String title) {
+        return browser.driver.findElement(By.cssSelector("#plots figure[data-plot='" + title + "'] svg.plot"));
+    }
+
+    private static boolean present(String css) {
+        return !browser.driver.findElements(By.cssSelector(css)).isEmpty();
+    }
+
+    private static void select(String name, String value) {
+        new org.openqa.selenium.support.ui.Select(browser.driver.findElement(By.cssSelector(".field:not([hidden]) [name='" + name + "']")))
+                .selectByValue(value);
+    }
+
+    /** The result on show, through its "Download JSON" button (an earlier download of the same name is removed first). */
+    private static JsonNode downloadedJson(String tool) throws IOException {
+        browser.forgetDownload("tectomelt-" + tool + ".json");
+        browser.driver.findElement(By.id("download-json")).click();
+        return JSON.readTree(browser.downloaded("tectomelt-" + tool + ".json").toFile());
+    }
+
+    @Test
+    void aResultNeverStaysBesideInputsItDoesNotBelongTo() {
+        browser.open(page("hotspot"));
+        browser.fill("lithosphereThicknessKm", "200");
+        assertEquals("done", browser.submit());
+        assertTrue(present("#summary tr[data-path='onsetDepthKm']"));
+
+        // changing an input marks the result at once
+        browser.fill("potentialTemperatureC", "1600");
+        assertEquals("true", browser.driver.findElement(By.id("results")).getAttribute("data-stale"));
+        assertTrue(browser.driver.findElement(By.id("stale-note")).isDisplayed());
+        assertTrue(text("#stale-note").contains("does not belong"), text("#stale-note"));
+
+        // a run the service refuses leaves no numbers of the earlier run on screen
+        browser.fill("bulkWaterWtPct", "0.5");
+        assertEquals("failed", browser.submit());
+        assertTrue(browser.driver.findElement(By.id("form-error")).isDisplayed());
+        assertFalse(present("#summary"), "the lid-200 numbers are gone");
+        assertFalse(present("#plots"), "and so are its plots");
+        browser.screenshot("stale-after-refusal");
+
+        // a run refused by the page itself (letters in a number) does the same
+        browser.fill("potentialTemperatureC", "1480");
+        browser.fill("bulkWaterWtPct", "0");
+        assertEquals("done", browser.submit());
+        browser.fill("plumeRadiusKm", "wide");
+        assertEquals("failed", browser.submit());
+        assertFalse(present("#summary"));
+
+        // and so does Restore defaults
+        browser.fill("plumeRadiusKm", "100");
+        assertEquals("done", browser.submit());
+        browser.driver.findElement(By.id("reset")).click();
+        assertFalse(present("#summary"));
+        assertEquals("80", browser.driver.findElement(By.name("lithosphereThicknessKm")).getAttribute("value"));
+    }
+
+    @Test
+    void everyGeothermModelRunsWithItsDefaultsAndErrorsUseTheFormsLabels() {
+        browser.open(page("geotherm"));
+        List<String> types = new ArrayList<>();
+        for (WebElement o : browser.driver.findElements(By.cssSelector("[name='lithosphere.type'] option"))) {
+            types.add(o.getAttribute("value"));
+        }
+        assertEquals(4, types.size(), types.toString());
+        for (String type : types) {
+            browser.open(page("geotherm"));
+            select("lithosphere.type", type);
+            assertEquals("done", browser.submit(), "'" + type + "' with its defaults: " + text("#form-error"));
+        }
+        // a half-space interior colder than the adiabat cannot meet it: the message names the form's fields
+        browser.open(page("geotherm"));
+        select("lithosphere.type", "oceanic-half-space");
+        browser.fill("lithosphere.mantleTemperatureC", "1300");
+        assertEquals("failed", browser.submit());
+        String tp = text(".field[data-field='potentialTemperatureC'] .field-error");
+        String tm = text(".field:not([hidden])[data-field='lithosphere.mantleTemperatureC'] .field-error");
+        assertTrue(tp.contains("“Mantle temperature”"), tp);
+        assertTrue(tm.contains("at least"), tm);
+        for (String shown : List.of(tp, tm, text("#form-error"))) {
+            assertFalse(shown.contains("lithosphere.") || shown.contains("potentialTemperatureC"), "API paths on the page: " + shown);
+        }
+        browser.screenshot("geotherm-half-space-refused");
+    }
+
+    @Test
+    void theFormErrorIsASentence() {
+        browser.open(page("pressure"));
+        browser.fill("crustThicknessKm", "forty");
+        assertEquals("failed", browser.submit());
+        assertEquals("Please correct the marked fields.", text("#form-error"));
+    }
+
+    @Test
+    void aMetapelitePressureTemperatureDiagramSpansItsMeltingAndShowsOnlyCrustalRows() {
+        browser.open(page("melt-fraction"));
+        select("lithology", "metapelite");
+        browser.fill("pressureGPa", "1");
+        browser.fill("temperatureC", "800");
+        browser.fill("bulkWaterWtPct", "0");
+        assertEquals("done", browser.submit());
+        for (String row : List.of("cpxExhausted", "waterInMeltWtPct", "waterSaturated", "drySolidusC")) {
+            assertFalse(present("#summary tr[data-path='" + row + "']"), row + " does not apply to a crustal rock");
+        }
+        assertEquals(5.0, summary("meltFraction"), 0.01, "the service's default metapelite curve gives 5 % at 800 °C");
+        WebElement svg = figureSvg("Pressure–temperature diagram");
+        Map<String, Object> f = frameOf(svg);
+        double[] xd = domain(f, "xd");
+        assertTrue(xd[1] - xd[0] >= 200, "the diagram spans the melting interval, not 750–800 °C: " + xd[0] + "–" + xd[1]);
+        // the requested point lies inside the frame, not cut by it
+        WebElement mark = svg.findElement(By.cssSelector("g.area path.mark"));
+        Map<String, Object> b = bbox(mark);
+        assertTrue(num(b.get("x")) >= num(f.get("x")) + 2 && num(b.get("x")) + num(b.get("width")) <= num(f.get("x")) + num(f.get("w")) - 2,
+                "the point is inside the frame: " + b + " " + f);
+        assertTrue(svg.findElements(By.cssSelector("path.curve.role-isopleth")).size() >= 3, "melt-fraction isopleths drawn");
+        assertTrue(svg.getText().contains("Metapelite"), "the legend names the rock: " + svg.getText());
+        browser.screenshot("melt-fraction-metapelite");
+    }
+
+    @SuppressWarnings("unchecked")
+    private static Map<String, Object> bbox(WebElement e) {
+        return (Map<String, Object>) browser.js("const b = arguments[0].getBBox(); return {x: b.x, y: b.y, width: b.width, height: b.height};", e);
+    }
+
+    @Test
+    void sillMeltFractionProfilesShowTheAffectedDepths() throws Exception {
+        browser.open(page("sill"));
+        browser.fill("durationKyr", "300");
+        browser.fill("profileTimesKyr", "0, 50, 150, 300");
+        assertEquals("done", browser.submit());
+        JsonNode json = downloadedJson("sill");
+        double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+        for (JsonNode prof : json.get("profiles")) {
+            for (JsonNode p : prof.get("points")) {
+                if (p.get("meltFraction").asDouble() > 0.01) {
+                    lo = Math.min(lo, p.get("depthKm").asDouble());
+                    hi = Math.max(hi, p.get("depthKm").asDouble());
+                }
+            }
+        }
+        assertTrue(hi > lo, "the sills melt some crust");
+        double[] yd = domain(frameOf(figureSvg("Melt-fraction profiles")), "yd");
+        assertTrue(yd[0] <= lo && yd[1] >= hi, "the melted depths " + lo + "–" + hi + " km are shown: " + yd[0] + "–" + yd[1]);
+        assertTrue((hi - lo) / (yd[1] - yd[0]) >= 0.2,
+                "the melted depths fill a fifth of the axis or more, not a few pixels: " + lo + "–" + hi + " of " + yd[0] + "–" + yd[1]);
+        browser.screenshot("sill-profiles-zoomed");
+    }
+
+    /** Checks that every plot is drawn at its real width (text at its CSS size), panels equal, depth axes shared. */
+    private static void plotsAreReadable(String where) {
+        List<WebElement> figures = browser.driver.findElements(By.cssSelector("#plots figure"));
+        double width = figures.get(0).getSize().getWidth();
+        List<String> depthDomains = new ArrayList<>();
+        for (WebElement fig : figures) {
+            assertEquals(width, fig.getSize().getWidth(), 1.5, where + ": panels of one result have equal widths");
+            WebElement svg = fig.findElement(By.cssSelector("svg.plot"));
+            Map<String, Object> f = frameOf(svg);
+            double scale = num(f.get("shown")) / num(f.get("vbw"));
+            assertTrue(scale > 0.97 && scale < 1.03, where + ": drawn at its own width, scale " + scale);
+            for (WebElement t : svg.findElements(By.cssSelector(".tick, .legend-text, .axis-title"))) {
+                double px = Double.parseDouble(t.getCssValue("font-size").replace("px", "")) * scale;
+                assertTrue(px >= 11, where + ": text of " + px + " px in '" + fig.getAttribute("data-plot") + "'");
+            }
+            if (svg.getAttribute("aria-label") != null && fig.getText().contains("Depth (km)")) {
+                depthDomains.add(svg.getAttribute("data-y-domain"));
+            }
+        }
+        assertTrue(depthDomains.size() >= 3, where + ": " + depthDomains);
+        assertEquals(1, new HashSet<>(depthDomains).size(), where + ": one depth axis shared by the panels " + depthDomains);
+    }
+
+    @Test
+    void sideBySidePlotsHaveReadableTextEqualPanelsAndASharedDepthAxisOnDesktopAndPhone() {
+        browser.open(page("ridge"));
+        assertEquals("done", browser.submit());
+        plotsAreReadable("desktop");
+        browser.screenshot("ridge-desktop");
+        try {
+            browser.resize(390, 900);
+            browser.open(page("ridge"));
+            assertEquals("done", browser.submit());
+            plotsAreReadable("phone");
+            browser.screenshot("ridge-phone");
+        } finally {
+            browser.resize(1400, 1500);
+        }
+    }
+
+    /** Every label inside its plot, off the other labels and off the curves. */
+    @SuppressWarnings("unchecked")
+    private static void labelsAreClear(String where) {
+        List<Map<String, Object>> problems = (List<Map<String, Object>>) browser.js(""
+                + "const out = [];"
+                + "for (const svg of document.querySelectorAll('#plots svg.plot')) {"
+                + "  const vb = svg.viewBox.baseVal, fr = svg.querySelector('.plot-frame').getBBox();"
+                + "  const labels = [...svg.querySelectorAll('.level-label, .mark-label')].map((t) => ({t: t.textContent, b: t.getBBox()}));"
+                + "  const pts = [];"
+                + "  for (const p of svg.querySelectorAll('g.area path.curve')) {"
+                + "    const len = p.getTotalLength();"
+                + "    for (let s = 0; s <= len; s += 2) { const q = p.getPointAtLength(s); pts.push([q.x, q.y]); }"
+                + "  }"
+                + "  labels.forEach((l, i) => {"
+                + "    const b = l.b;"
+                + "    if (b.x < fr.x || b.y < fr.y || b.x + b.width > fr.x + fr.width || b.y + b.height > fr.y + fr.height)"
+                + "      out.push({plot: svg.dataset.title, label: l.t, problem: 'outside the frame'});"
+                + "    labels.slice(i + 1).forEach((m) => { const c = m.b;"
+                + "      if (b.x < c.x + c.width && b.x + b.width > c.x && b.y < c.y + c.height && b.y + b.height > c.y)"
+                + "        out.push({plot: svg.dataset.title, label: l.t + ' / ' + m.t, problem: 'overlap'}); });"
+                + "    const hit = pts.filter(([x, y]) => x > b.x + 1 && x < b.x + b.width - 1 && y > b.y + 1 && y < b.y + b.height - 1).length;"
+                + "    if (hit > 0) out.push({plot: svg.dataset.title, label: l.t, problem: 'on a curve (' + hit + ')'});"
+                + "  });"
+                + "}"
+                + "return out;");
+        assertTrue(problems.isEmpty(), where + ": " + problems);
+    }
+
+    /** Every axis ends on a labelled tick. */
+    @SuppressWarnings("unchecked")
+    private static void axesEndOnTicks(String where) {
+        List<String> problems = (List<String>) browser.js(""
+                + "const out = [];"
+                + "for (const svg of document.querySelectorAll('#plots svg.plot')) {"
+                + "  const f = svg.querySelector('.plot-frame'); const x0 = +f.getAttribute('x'), y0 = +f.getAttribute('y');"
+                + "  const x1 = x0 + +f.getAttribute('width'), y1 = y0 + +f.getAttribute('height');"
+                + "  const xs = [...svg.querySelectorAll('.tick-x')].map((t) => +t.getAttribute('x'));"
+                + "  const ys = [...svg.querySelectorAll('.tick-y')].map((t) => +t.getAttribute('y') - 4);"
+                + "  const near = (arr, v) => arr.some((a) => Math.abs(a - v) < 0.5);"
+                + "  if (!near(xs, x0) || !near(xs, x1)) out.push(svg.dataset.title + ': x axis ' + xs + ' vs ' + x0 + '..' + x1);"
+                + "  if (!near(ys, y0) || !near(ys, y1)) out.push(svg.dataset.title + ': y axis ' + ys + ' vs ' + y0 + '..' + y1);"
+                + "}"
+                + "return out;");
+        assertTrue(problems.isEmpty(), where + ": " + problems);
+    }
+
+    @Test
+    void labelsStayClearAndAxesEndOnLabelledTicks() {
+        for (String tool : List.of("ridge", "hotspot", "rift", "decompression", "geotherm", "melt-fraction", "solidus-crossings", "sill", "pressure")) {
+            browser.open(page(tool));
+            assertEquals("done", browser.submit(), tool);
+            labelsAreClear(tool);
+            axesEndOnTicks(tool);
+        }
+        browser.open(page("decompression"));
+        browser.fill("lidDepthKm", "60");
+        assertEquals("done", browser.submit());
+        labelsAreClear("decompression, 60 km lid");
+        browser.screenshot("decompression-lid-labels");
+    }
+
+    @Test
+    void productivityIsNotDrawnAcrossTheClinopyroxeneExhaustionJump() throws Exception {
+        browser.open(page("decompression"));
+        browser.fill("potentialTemperatureC", "1500");
+        browser.fill("lidDepthKm", "0");
+        assertEquals("done", browser.submit());
+        JsonNode profile = downloadedJson("decompression").get("profile");
+        // Katz et al. (2003) eq. 6-7: productivity falls where clinopyroxene runs out; find that step in the answer
+        int jumps = 0;
+        for (int i = 2; i < profile.size() - 1; i++) {
+            double a = profile.get(i - 1).get("productivityPercentPerGPa").asDouble();
+            double b = profile.get(i).get("productivityPercentPerGPa").asDouble();
+            double before = Math.abs(a - profile.get(i - 2).get("productivityPercentPerGPa").asDouble());
+            if (profile.get(i - 1).get("meltFraction").asDouble() > 0 && Math.abs(b - a) > 2 && Math.abs(b - a) > 6 * before) {
+                jumps++;
+            }
+        }
+        assertTrue(jumps >= 1, "a 1500 °C column exhausts clinopyroxene on its way up");
+        WebElement curve = figureSvg("Productivity").findElement(By.cssSelector("path.curve.role-productivity"));
+        long pieces = curve.getAttribute("d").chars().filter(c -> c == 'M').count();
+        assertTrue(pieces >= 2, "the productivity curve is broken at the jump, not joined across it: " + pieces);
+        browser.screenshot("decompression-cpx-out");
+    }
+
+    @Test
+    void legendsNameRocksAndSummariesUseTheTradesUnits() throws Exception {
+        browser.open(page("ridge"));
+        assertEquals("done", browser.submit());
+        String legend = figureSvg("Temperature along the upwelling column").getText();
+        assertTrue(legend.contains("Peridotite (Katz"), legend);
+        assertFalse(legend.contains("peridotite-katz2003"), legend);
+
+        browser.open(page("subduction"));
+        assertEquals("done", browser.submit());
+        JsonNode json = downloadedJson("subduction");
+        assertEquals("km³/km/Myr", text("#summary tr[data-path='magmaProductionKm3PerYrPerKm'] td.unit"));
+        assertEquals(json.get("magmaProductionKm3PerYrPerKm").asDouble() * 1e6, summary("magmaProductionKm3PerYrPerKm"), 0.051,
+                "1 km³/yr per km = 10⁶ km³/km/Myr");
+
+        // a cold wedge: no melt, so "water-saturated" has nothing to say
+        browser.fill("wedgeTemperatureC", "900");
+        assertEquals("done", browser.submit());
+        assertEquals(0.0, summary("meltFraction"), 0);
+        assertEquals("no melt", text("#summary tr[data-path='waterSaturated'] td.value"));
+
+        browser.open(page("sill"));
+        assertEquals("done", browser.submit());
+        String unit = text("#summary tr[data-path='summary.timeToFirstCrustMeltKyr'] td.unit");
+        String value = text("#summary tr[data-path='summary.timeToFirstCrustMeltKyr'] td.value");
+        assertTrue(List.of("yr", "kyr", "Myr").contains(unit), unit);
+        assertFalse(value.contains("e"), "no exponent: " + value);
+        double kyr = downloadedJson("sill").at("/summary/timeToFirstCrustMeltKyr").asDouble();
+        double shown = Double.parseDouble(value) * Map.of("yr", 1e-3, "kyr", 1.0, "Myr", 1e3).get(unit);
+        assertEquals(kyr, shown, kyr * 0.05);
+        if (kyr < 1) {
+            assertEquals("yr", unit, "a few years are written in years");
+        }
+    }
+
+    @Test
+    void thePageHasAFavicon() {
+        browser.open(page("pressure"));
+        @SuppressWarnings("unchecked")
+        Map<String, Object> r = (Map<String, Object>) browser.driver.executeAsyncScript(""
+                + "const done = arguments[arguments.length - 1];"
+                + "const link = document.querySelector('link[rel=icon]');"
+                + "if (!link) { done({status: 0}); return; }"
+                + "fetch(link.href).then(async (res) => done({status: res.status, type: res.headers.get('Content-Type'),"
+                + "  body: await res.text()}));");
+        assertEquals(200L, ((Number) r.get("status")).longValue());
+        assertTrue(String.valueOf(r.get("type")).startsWith("image/svg+xml"), String.valueOf(r.get("type")));
+        assertTrue(String.valueOf(r.get("body")).contains("<svg"));
+    }
+
+    @Test
+    void printingLeavesOutTheTokenBoxAndButtonsAndTakesFewerPages() {
+        browser.open(page("ridge"));
+        assertEquals("done", browser.submit());
+        try {
+            browser.emulateMedia("print");
+            for (String css : List.of("#access", "#run", "#reset", ".downloads", "#tools", ".plot-tools")) {
+                for (WebElement e : browser.driver.findElements(By.cssSelector(css))) {
+                    assertFalse(e.isDisplayed(), css + " is not printed");
+                }
+            }
+            assertTrue(browser.driver.findElement(By.cssSelector("#plots svg.plot")).isDisplayed(), "the plots are printed");
+            assertTrue(browser.driver.findElement(By.id("cautions")).isDisplayed(), "the cautions are printed");
+            browser.screenshot("ridge-print-layout");
+        } finally {
+            browser.emulateMedia(""); // no override: on screen as screen, printed as print
+        }
+        byte[] pdf = browser.printToPdf("ridge-print");
+        String raw = new String(pdf, StandardCharsets.ISO_8859_1);
+        Matcher m = Pattern.compile("/Type\\s*/Page[^s]").matcher(raw);
+        int pages = 0;
+        while (m.find()) {
+            pages++;
+        }
+        assertTrue(pages >= 1 && pages <= 3, "the ridge result prints on at most three A4 pages, not four: " + pages);
+    }
+
+    // ------------------------------------------------------------------ issue 19: compare, export, inspect, overlays
+
+    @Test
+    void pinnedRunsAreOverlaidInTheirOwnColoursWithALegendAndATableOfWhatDiffers() {
+        browser.open(page("ridge"));
+        for (String tp : List.of("1300", "1350")) {
+            browser.fill("potentialTemperatureC", tp);
+            assertEquals("done", browser.submit());
+            browser.driver.findElement(By.id("pin")).click();
+            browser.waitFor(By.cssSelector("#pin[disabled]"));
+        }
+        browser.fill("potentialTemperatureC", "1400");
+        assertEquals("done", browser.submit());
+        new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(20))
+                .until(d -> d.findElements(By.cssSelector("#plots figure[data-plot='Melt fraction'] path.curve")).size() == 3);
+
+        // the table: the differing input, and key outputs side by side
+        List<WebElement> heads = browser.driver.findElements(By.cssSelector("#compare-table tr.run-head th[data-run]"));
+        assertEquals(3, heads.size());
+        List<String> tps = new ArrayList<>();
+        for (WebElement td : browser.driver.findElements(By.cssSelector("#compare-table tr.input-row[data-field='potentialTemperatureC'] td"))) {
+            tps.add(td.getText());
+        }
+        assertEquals(List.of("1300", "1350", "1400"), tps);
+        assertEquals(1, browser.driver.findElements(By.cssSelector("#compare-table tr.input-row")).size(), "only Tp differs");
+        List<Double> crust = new ArrayList<>();
+        for (WebElement td : browser.driver.findElements(By.cssSelector("#compare-table tr.output-row[data-path='crustalThicknessKm'] td"))) {
+            crust.add(Double.parseDouble(td.getText()));
+        }
+        // common practice (McKenzie & Bickle 1988, fig. of melt thickness against Tp): hotter mantle makes thicker crust
+        assertTrue(crust.get(0) < crust.get(1) && crust.get(1) < crust.get(2), crust.toString());
+
+        // the plot: three curves on one pair of axes, three colours, a legend naming what differs
+        WebElement svg = figureSvg("Melt fraction");
+        List<WebElement> curves = svg.findElements(By.cssSelector("g.area path.curve"));
+        Set<String> colours = new HashSet<>();
+        List<Double> deepest = new ArrayList<>();
+        for (WebElement c : curves) {
+            colours.add(c.getCssValue("stroke"));
+            deepest.add(vertices(c.getAttribute("d")).stream().mapToDouble(v -> v[1]).max().orElseThrow());
+        }
+        assertEquals(3, colours.size(), "each run its own colour: " + colours);
+        // REFERENCES §2.5: a hotter adiabat meets the solidus deeper (lower on the page)
+        assertTrue(deepest.get(0) < deepest.get(1) && deepest.get(1) < deepest.get(2), deepest.toString());
+        String legend = svg.getText();
+        assertTrue(legend.contains("Runs: Tp 1300 / 1350 / 1400 °C"), legend);
+        assertTrue(legend.contains("Tp 1300 °C") && legend.contains("Tp 1400 °C"), legend);
+        browser.screenshot("compare-ridge");
+
+        browser.driver.findElement(By.id("compare-clear")).click();
+        assertFalse(present("#compare-table"));
+    }
+
+    @Test
+    void aComparisonHoldsAtMostSixRuns() {
+        browser.open(page("pressure"));
+        for (int i = 1; i <= 7; i++) {
+            browser.fill("crustThicknessKm", String.valueOf(10 * i));
+            assertEquals("done", browser.submit());
+            browser.driver.findElement(By.id("pin")).click();
+        }
+        assertEquals(6, browser.driver.findElements(By.cssSelector("#compare-table tr.run-head th[data-run]")).size());
+        assertEquals(6, browser.driver.findElements(By.cssSelector("#plots svg g.area path.curve")).size());
+    }
+
+    @Test
+    void aPlotExportsAsAStandaloneSvgWithLabelsLegendAndProvenanceAndAsAPngAtTheChosenDensity() throws Exception {
+        String version = TestServer.given().get("/v1/health").then().statusCode(200).extract().path("version");
+        browser.open(page("ridge"));
+        assertEquals("done", browser.submit());
+        WebElement figure = browser.driver.findElement(By.cssSelector("#plots figure[data-plot='Temperature along the upwelling column']"));
+        int curvesOnPage = figure.findElements(By.cssSelector("g.area path.curve")).size();
+        browser.forgetDownload("tectomelt-ridge-temperature-along-the-upwelling-column.svg");
+        figure.findElement(By.cssSelector("button[data-act='svg']")).click();
+        Path file = browser.downloaded("tectomelt-ridge-temperature-along-the-upwelling-column.svg");
+
+        javax.xml.parsers.DocumentBuilderFactory dbf = javax.xml.parsers.DocumentBuilderFactory.newInstance();
+        dbf.setNamespaceAware(true);
+        dbf.setFeature("http://apache.org/xml/features/disallow-doctype-decl", true);
+        org.w3c.dom.Document doc = dbf.newDocumentBuilder().parse(file.toFile());
+        org.w3c.dom.Element root = doc.getDocumentElement();
+        assertEquals("svg", root.getLocalName());
+        assertEquals("http://www.w3.org/2000/svg", root.getNamespaceURI());
+        double w = Double.parseDouble(root.getAttribute("width")), hgt = Double.parseDouble(root.getAttribute("height"));
+        assertEquals("0 0 " + root.getAttribute("width") + " " + root.getAttribute("height"), root.getAttribute("viewBox"));
+        assertTrue(doc.getElementsByTagNameNS("http://www.w3.org/2000/svg", "style").item(0).getTextContent().contains(".role-solidus"),
+                "the styles travel with the file");
+        List<String> texts = new ArrayList<>();
+        org.w3c.dom.NodeList nodes = doc.getElementsByTagNameNS("http://www.w3.org/2000/svg", "text");
+        String provenance = null;
+        for (int i = 0; i < nodes.getLength(); i++) {
+            org.w3c.dom.Element t = (org.w3c.dom.Element) nodes.item(i);
+            texts.add(t.getTextContent());
+            if (t.getAttribute("class").contains("provenance")) {
+                provenance = t.getTextContent();
+            }
+        }
+        for (String want : List.of("Temperature (°C)", "Depth (km) ↓", "Pressure (GPa)", "liquidus", "melt-free adiabat, Tp 1340 °C",
+                "melting path (isentropic upwelling)", "onset of melting")) {
+            assertTrue(texts.contains(want), "'" + want + "' in " + texts);
+        }
+        assertTrue(provenance != null && provenance.contains("tectomelt " + version), "provenance: " + provenance);
+        assertTrue(provenance.contains("Katz et al. 2003") && provenance.contains("/v1/settings/mid-ocean-ridge"), provenance);
+        int curves = 0;
+        org.w3c.dom.NodeList paths = doc.getElementsByTagNameNS("http://www.w3.org/2000/svg", "path");
+        for (int i = 0; i < paths.getLength(); i++) {
+            org.w3c.dom.Element p = (org.w3c.dom.Element) paths.item(i);
+            if (p.getAttribute("class").startsWith("curve") && p.hasAttribute("data-series")) {
+                curves++;
+                assertTrue(p.getAttribute("d").matches("M[-0-9.,]+([ML][-0-9.,]+)+"), p.getAttribute("d"));
+            }
+        }
+        assertEquals(curvesOnPage, curves, "the file draws what the page draws");
+
+        new org.openqa.selenium.support.ui.Select(browser.driver.findElement(By.id("png-density"))).selectByValue("3");
+        browser.forgetDownload("tectomelt-ridge-temperature-along-the-upwelling-column.png");
+        figure.findElement(By.cssSelector("button[data-act='png']")).click();
+        Path png = browser.downloaded("tectomelt-ridge-temperature-along-the-upwelling-column.png");
+        java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(png.toFile());
+        assertEquals(Math.round(w * 3), img.getWidth(), "3 pixels per CSS pixel");
+        assertEquals(Math.round(hgt * 3), img.getHeight());
+        Files.copy(file, HeadlessChromium.SCREENSHOTS.resolve("export-ridge.svg"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+        Files.copy(png, HeadlessChromium.SCREENSHOTS.resolve("export-ridge.png"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+    }
+
+    @Test
+    void plotsZoomPanAndReadOutDepthPressureTemperatureAndMeltFractionUnderTheCursor() {
+        browser.open(page("ridge"));
+        assertEquals("done", browser.submit());
+        String title = "Temperature along the upwelling column";
+        Map<String, Object> f0 = frameOf(figureSvg(title));
+        double[] x0 = domain(f0, "xd"), y0 = domain(f0, "yd");
+
+        WebElement figure = browser.driver.findElement(By.cssSelector("#plots figure[data-plot='" + title + "']"));
+        figure.findElement(By.cssSelector("button[data-act='zoom-in']")).click();
+        double[] x1 = domain(frameOf(figureSvg(title)), "xd"), y1 = domain(frameOf(figureSvg(title)), "yd");
+        assertEquals((x0[1] - x0[0]) / 1.5, x1[1] - x1[0], 1e-6, "zoom in by 1.5 about the centre");
+        assertEquals((x0[0] + x0[1]) / 2, (x1[0] + x1[1]) / 2, 1e-6);
+        assertEquals((y0[1] - y0[0]) / 1.5, y1[1] - y1[0], 1e-6);
+
+        // drag 90 px to the left: the view moves 90 px worth of temperature to the right
+        WebElement hit = figureSvg(title).findElement(By.cssSelector("rect.hit"));
+        Map<String, Object> f1 = frameOf(figureSvg(title));
+        double perPx = (x1[1] - x1[0]) / num(f1.get("w"));
+        new org.openqa.selenium.interactions.Actions(browser.driver).moveToElement(hit).clickAndHold()
+                .moveByOffset(-45, 0).moveByOffset(-45, 0).release().perform();
+        double[] x2 = domain(frameOf(figureSvg(title)), "xd");
+        assertEquals(x1[0] + 90 * perPx, x2[0], 2 * perPx, "panned");
+        assertEquals("true", figure.findElement(By.cssSelector(".plot-holder")).getAttribute("data-zoomed"));
+        figure.findElement(By.cssSelector("button[data-act='reset']")).click();
+        assertEquals(x0[0], domain(frameOf(figureSvg(title)), "xd")[0], 1e-9, "back to the full view");
+
+        // readout over a vertex of the melting path
+        WebElement svg = figureSvg(title);
+        Map<String, Object> f = frameOf(svg);
+        List<double[]> path = vertices(svg.findElement(By.cssSelector("path.curve.role-melting")).getAttribute("d"));
+        double[] v = path.get(path.size() / 2);
+        WebElement target = svg.findElement(By.cssSelector("rect.hit"));
+        double cx = num(f.get("x")) + num(f.get("w")) / 2, cy = num(f.get("y")) + num(f.get("h")) / 2;
+        new org.openqa.selenium.interactions.Actions(browser.driver)
+                .moveToElement(target, (int) Math.round(v[0] - cx), (int) Math.round(v[1] - cy)).perform();
+        WebElement readout = figure.findElement(By.cssSelector("output.readout"));
+        String r = readout.getText();
+        double depth = dataDepth(f, v[1]), temperature = dataX(f, v[0]);
+        assertEquals(depth, Double.parseDouble(readout.getAttribute("data-y")), 1.0, r);
+        assertEquals(temperature, Double.parseDouble(readout.getAttribute("data-x")), 3.0, r);
+        assertTrue(r.contains("Temperature ") && r.contains("Depth ") && r.contains("Pressure ") && r.contains("GPa"), r);
+        assertTrue(r.contains("nearest: melting path") && r.matches(".*F \\d+\\.\\d %.*"), "melt fraction of the nearest point: " + r);
+        // REFERENCES §1.1 [calc]: 3300 kg/m³ mantle and g = 9.81 give 30.9 km per GPa; the readout's pressure agrees
+        Matcher p = Pattern.compile("Pressure ([0-9.]+) GPa").matcher(r);
+        assertTrue(p.find(), r);
+        assertEquals(Double.parseDouble(readout.getAttribute("data-y")) / 30.9, Double.parseDouble(p.group(1)), 0.02, r);
+        browser.screenshot("ridge-readout");
+    }
+
+    @Test
+    void otherRocksSolidiAreDrawnOnAGeothermOnRequest() {
+        browser.open(page("geotherm"));
+        assertEquals("done", browser.submit());
+        WebElement figure = browser.driver.findElement(By.cssSelector("#plots figure[data-plot='Geotherm']"));
+        figure.findElement(By.cssSelector("details.overlays summary")).click();
+        for (String id : List.of("granite-water-saturated", "metapelite", "amphibolite")) {
+            browser.driver.findElement(By.cssSelector("#plots figure[data-plot='Geotherm'] input[data-overlay='solidus'][value='" + id + "']")).click();
+            browser.waitFor(By.cssSelector("#plots figure[data-plot='Geotherm'] input[data-overlay='solidus'][value='" + id + "']:checked"));
+        }
+        new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(20))
+                .until(d -> d.findElements(By.cssSelector("#plots figure[data-plot='Geotherm'] svg.plot path.curve.role-extra")).size() == 3);
+        WebElement svg = figureSvg("Geotherm");
+        Map<String, Object> f = frameOf(svg);
+        String legend = svg.getText();
+        assertTrue(legend.contains("solidus, Granite, water-saturated") && legend.contains("solidus, Metapelite")
+                && legend.contains("solidus, Amphibolite"), legend);
+        WebElement granite = svg.findElement(By.cssSelector("path.curve.role-extra[data-series^='solidus, Granite']"));
+        List<double[]> g = vertices(granite.getAttribute("d"));
+        double shallow = dataDepth(f, g.get(0)[1]), deep = dataDepth(f, g.get(g.size() - 1)[1]);
+        // the granite model covers 0.2–1.0 GPa; with 38 km of crust at 2800 kg/m³ that is about 7–36 km (REFERENCES §1.1)
+        assertEquals(7.3, Math.min(shallow, deep), 1.0);
+        assertEquals(36.4, Math.max(shallow, deep), 1.5);
+        // Huang & Wyllie (1973), as catalogued: water-saturated granite solidus 680 °C at 0.2 GPa, 620 °C at 1 GPa
+        double tShallow = dataX(f, g.get(shallow < deep ? 0 : g.size() - 1)[0]);
+        double tDeep = dataX(f, g.get(shallow < deep ? g.size() - 1 : 0)[0]);
+        assertEquals(680, tShallow, 5);
+        assertEquals(620, tDeep, 5);
+        browser.screenshot("geotherm-overlays");
+    }
+
+    /** The isopleth or curve's temperature at pressure {@code p} in a P–T plot {@code f}, interpolated along its vertices. */
+    private static double temperatureAt(Map<String, Object> f, String d, double p) {
+        List<double[]> v = vertices(d);
+        for (int i = 1; i < v.size(); i++) {
+            double pa = dataDepth(f, v.get(i - 1)[1]), pb = dataDepth(f, v.get(i)[1]);
+            if ((pa - p) * (pb - p) <= 0 && pa != pb) {
+                double xa = v.get(i - 1)[0], xb = v.get(i)[0];
+                return dataX(f, xa + (xb - xa) * (p - pa) / (pb - pa));
+            }
+        }
+        return Double.NaN;
+    }
+
+    @Test
+    void thePressureTemperatureDiagramDrawsMeltFractionIsoplethsAndTheClinopyroxeneOutCurve() {
+        browser.open(page("melt-fraction"));
+        assertEquals("done", browser.submit());
+        double f = summary("meltFraction") / 100;
+        WebElement svg = figureSvg("Pressure–temperature diagram");
+        Map<String, Object> frame = frameOf(svg);
+        Map<Double, Double> at2GPa = new java.util.TreeMap<>();
+        List<WebElement> isopleths = svg.findElements(By.cssSelector("path.curve.role-isopleth"));
+        assertTrue(isopleths.size() >= 3, "isopleths " + isopleths.size());
+        for (WebElement iso : isopleths) {
+            at2GPa.put(Double.parseDouble(iso.getAttribute("data-series").replaceAll("^melt fraction .*", "F 10 %").replaceAll("[^0-9.]", "")) / 100,
+                    temperatureAt(frame, iso.getAttribute("d"), 2.0));
+        }
+        // the requested 1400 °C at 2 GPa gives F between two isopleths of the same model
+        double below = at2GPa.entrySet().stream().filter(e -> e.getKey() <= f).mapToDouble(Map.Entry::getValue).max().orElse(Double.NaN);
+        double above = at2GPa.entrySet().stream().filter(e -> e.getKey() > f).mapToDouble(Map.Entry::getValue).min().orElse(Double.NaN);
+        assertTrue(below < 1400 && above > 1400, "F " + f + " at 1400 °C lies between its isopleths: " + at2GPa);
+        for (int i = 1; i < at2GPa.size(); i++) {
+            assertTrue(new ArrayList<>(at2GPa.values()).get(i) > new ArrayList<>(at2GPa.values()).get(i - 1), "hotter for more melt: " + at2GPa);
+        }
+        // Katz et al. (2003) eq. 6-7 (from memory: Mcpx = 0.17, R = 0.5 + 0.08 P): clinopyroxene runs out at
+        // F = 0.17 / 0.66 = 0.26 at 2 GPa, so the cpx-out curve lies between the 20 % and 30 % isopleths there
+        double cpx = temperatureAt(frame, svg.findElement(By.cssSelector("path.curve.role-cpx-out")).getAttribute("d"), 2.0);
+        assertTrue(cpx > at2GPa.get(0.2) && cpx < at2GPa.get(0.3), "cpx-out at 2 GPa " + cpx + " °C; isopleths " + at2GPa);
+        browser.screenshot("melt-fraction-isopleths");
+
+        browser.driver.findElement(By.cssSelector("#plots input[data-overlay='isopleths']")).click();
+        new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(20))
+                .until(d -> d.findElements(By.cssSelector("#plots svg.plot path.curve.role-isopleth")).isEmpty());
+        assertEquals(1, figureSvg("Pressure–temperature diagram").findElements(By.cssSelector("path.curve.role-cpx-out")).size());
+    }
+
+    @Test
+    void axeFindsNothingSeriousOrCriticalOnTheResultsComparisonAndOverlays() {
+        List<String> found = new ArrayList<>();
+        browser.open(page("ridge"));
+        assertEquals("done", browser.submit());
+        browser.driver.findElement(By.id("pin")).click();
+        browser.fill("potentialTemperatureC", "1380");
+        found.addAll(serious("ridge, stale", browser.axeViolations()));
+        assertEquals("done", browser.submit());
+        browser.waitFor(By.id("compare-table"));
+        found.addAll(serious("ridge, compared", browser.axeViolations()));
+        browser.open(page("geotherm"));
+        assertEquals("done", browser.submit());
+        browser.driver.findElement(By.cssSelector("details.overlays summary")).click();
+        found.addAll(serious("geotherm, overlays open", browser.axeViolations()));
+        browser.open(page("melt-fraction"));
+        assertEquals("done", browser.submit());
+        found.addAll(serious("melt fraction", browser.axeViolations()));
+        browser.open(page("hotspot"));
+        browser.fill("potentialTemperatureC", "1600");
+        browser.fill("bulkWaterWtPct", "0.5");
+        assertEquals("failed", browser.submit());
+        found.addAll(serious("hotspot, refused", browser.axeViolations()));
+        assertTrue(found.isEmpty(), String.join("\n", found));
+    }
+
+    private static List<String> serious(String where, List<Map<String, Object>> violations) {
+        List<String> out = new ArrayList<>();
+        for (Map<String, Object> v : violations) {
+            if ("serious".equals(v.get("impact")) || "critical".equals(v.get("impact"))) {
+                out.add(where + ": " + v.get("impact") + " " + v.get("id") + " (" + v.get("help") + ") at " + v.get("nodes"));
+            }
+        }
+        return out;
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void plotModuleScalesBreaksJumpsCitesShortlyAndExportsWhatItDraws() {
+        browser.open(page("pressure"));
+        Map<String, Object> r = inPage(""
+                + "const s = plot.niceScale(1213.5, 1862, 6);"
+                + "const jumpy = plot.breakJumps([[5, 80], [5.5, 75], [6, 70], [6.4, 65], [1.2, 60], [1.3, 55], [1.4, 50]], 0);"
+                + "const smooth = plot.breakJumps([[0, 0], [1, 1], [2, 2], [3, 3], [4, 4]], 0);"
+                + "const spec = {title: 'T', x: {label: 'Temperature', unit: '°C'}, y: {label: 'Depth', unit: 'km'}, invertY: true,"
+                + "  series: [{label: 'a', role: 'path', color: plot.PALETTE[1], points: [[0, 0], [1000, 100]]}], levels: [{y: 50, label: 'Moho'}]};"
+                + "const svg = plot.drawPlot(spec, {width: 333});"
+                + "const mk = plot.svgMarkup(spec, {width: 333}, 'tectomelt 9.9 · models: X 2000');"
+                + "const doc = new DOMParser().parseFromString(mk.text, 'image/svg+xml');"
+                + "return {lo: s.lo, hi: s.hi, step: s.step, first: s.ticks[0], last: s.ticks[s.ticks.length - 1],"
+                + "  jumpy: jumpy.filter((p) => isNaN(p[0])).length, smooth: smooth.filter((p) => isNaN(p[0])).length,"
+                + "  cites: [plot.shortCitation('Katz, R.F., Spiegelman, M. & Langmuir, C.H. (2003) A new parameterization'),"
+                + "          plot.shortCitation('McKenzie, D. & Bickle, M.J. (1988) The volume and composition'),"
+                + "          plot.shortCitation('Huang, W.L. & Wyllie, P.J. (1973) melting experiments')],"
+                + "  width: svg.getAttribute('width'), vb: svg.getAttribute('viewBox'), stroke: svg.querySelector('path.curve').getAttribute('style'),"
+                + "  parsed: doc.documentElement.nodeName, errors: doc.getElementsByTagName('parsererror').length,"
+                + "  prov: doc.querySelector('.provenance').textContent, style: doc.querySelector('style').textContent.length,"
+                + "  mkWidth: mk.width};");
+        assertEquals(null, r.get("error"));
+        // the axis ends are ticks: 1200 to 1900 every 100 for 1213.5–1862 (1.19–1.86 GPa solidus/liquidus span)
+        assertEquals(1200.0, num(r.get("lo")));
+        assertEquals(1900.0, num(r.get("hi")));
+        assertEquals(num(r.get("lo")), num(r.get("first")));
+        assertEquals(num(r.get("hi")), num(r.get("last")));
+        assertEquals(1L, ((Number) r.get("jumpy")).longValue(), "one gap at the jump from 6.4 to 1.2");
+        assertEquals(0L, ((Number) r.get("smooth")).longValue(), "a steady curve is not broken");
+        assertEquals(List.of("Katz et al. 2003", "McKenzie & Bickle 1988", "Huang & Wyllie 1973"), r.get("cites"));
+        assertEquals("333", r.get("width"));
+        assertTrue(((String) r.get("vb")).startsWith("0 0 333 "), (String) r.get("vb"));
+        assertTrue(((String) r.get("stroke")).contains("#c0571b"), "a run colour overrides the role's stroke");
+        assertEquals("svg", r.get("parsed"));
+        assertEquals(0L, ((Number) r.get("errors")).longValue(), "the export is well-formed XML");
+        assertEquals("tectomelt 9.9 · models: X 2000", r.get("prov"));
+        assertTrue(((Number) r.get("style")).intValue() > 500, "the styles are inside the file");
+        assertEquals(333L, ((Number) r.get("mkWidth")).longValue());
     }
 }
