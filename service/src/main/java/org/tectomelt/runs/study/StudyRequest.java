@@ -135,23 +135,30 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         return m;
     }
 
-    /** Reads the study parts of a run body; an absent part is null. */
+    /**
+     * Reads the study parts of a run body; an absent part is null. With {@code op} null (the run
+     * names no known operation) only the JSON shapes are checked, so that every wrong field is
+     * still named, and the violations are thrown.
+     */
     public static StudyRequest parse(ObjectNode body, Operation<?, ?> op, Invoker invoker) {
         List<Violation> v = new ArrayList<>();
         Map<String, Input> sampleable = new LinkedHashMap<>();
-        op.inputs().stream().filter(Input::sampleable).forEach(i -> sampleable.put(i.name(), i));
         Map<String, FieldRange> ranges = new TreeMap<>();
-        sampleable.keySet().forEach(f -> ranges.put(f, range(invoker.spec(), op, f)));
+        if (op != null) {
+            op.inputs().stream().filter(Input::sampleable).forEach(i -> sampleable.put(i.name(), i));
+            sampleable.keySet().forEach(f -> ranges.put(f, range(invoker.spec(), op, f)));
+        }
+        boolean known = op != null;
 
         Uncertainty uncertainty = null;
         JsonNode u = body.get("uncertainty");
         if (u != null && !u.isNull()) {
-            uncertainty = uncertainty(u, sampleable, ranges, v, body.has("solve"));
+            uncertainty = uncertainty(u, known ? sampleable : null, ranges, v, body.has("solve"));
         }
         Solve solve = null;
         JsonNode s = body.get("solve");
         if (s != null && !s.isNull()) {
-            solve = solve(s, sampleable, ranges, v);
+            solve = solve(s, known ? sampleable : null, ranges, v);
         }
         Map<String, Observation> observed = new LinkedHashMap<>();
         JsonNode o = body.get("observed");
@@ -181,6 +188,9 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         }
         if (!v.isEmpty()) {
             throw new OperationException(v);
+        }
+        if (!known) {
+            throw new OperationException("operation", "is required to read a study: the name of an operation");
         }
         ObjectNode definition = body.objectNode();
         for (String f : FIELDS) {
@@ -232,13 +242,17 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         }
         if (!(inputs instanceof ObjectNode in) || (inputs.isEmpty() && !withSolve)) {
             v.add(new Violation("uncertainty.inputs", "must name at least one input with its distribution, e.g. "
-                    + "{\"potentialTemperatureC\": {\"normal\": {\"mean\": 1350, \"sd\": 25}}}; inputs that can take "
-                    + "one: " + sampleable.keySet()));
+                    + "{\"potentialTemperatureC\": {\"normal\": {\"mean\": 1350, \"sd\": 25}}}"
+                    + (sampleable == null ? "" : "; inputs that can take one: " + sampleable.keySet())));
             return null;
         }
         for (Iterator<Map.Entry<String, JsonNode>> it = in.fields(); it.hasNext(); ) {
             Map.Entry<String, JsonNode> e = it.next();
             String path = "uncertainty.inputs." + e.getKey();
+            if (sampleable == null) {
+                distribution(e.getValue(), path, v); // the operation is unknown: shapes only
+                continue;
+            }
             if (!sampleable.containsKey(e.getKey())) {
                 v.add(new Violation(path, "is not an input that can take a distribution; these can: "
                         + sampleable.keySet()));
@@ -248,6 +262,9 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
             if (d != null) {
                 dists.put(e.getKey(), d);
             }
+        }
+        if (sampleable == null) {
+            return null;
         }
         try {
             return new Uncertainty(samples, seed, UncertainInputs.of(dists, ranges, "uncertainty.inputs."));
@@ -309,8 +326,9 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         unknown(o, "solve", Set.of("field", "min", "max", "method", "gridPoints", "scanPoints"), v);
         JsonNode f = o.get("field");
         String field = null;
-        if (f == null || !f.isTextual() || !sampleable.containsKey(f.asText())) {
-            v.add(new Violation("solve.field", "must name an input to solve for, one of " + sampleable.keySet()));
+        if (f == null || !f.isTextual() || sampleable != null && !sampleable.containsKey(f.asText())) {
+            v.add(new Violation("solve.field", "must name an input to solve for"
+                    + (sampleable == null ? "" : ", one of " + sampleable.keySet())));
         } else {
             field = f.asText();
         }
@@ -329,7 +347,7 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
                 PosteriorInversion.MIN_GRID_POINTS, MAX_GRID_POINTS, v);
         int scan = integer(o.get("scanPoints"), "solve.scanPoints", SamplingInversion.DEFAULT_SCAN_POINTS,
                 SamplingInversion.MIN_SCAN_POINTS, MAX_SCAN_POINTS, v);
-        if (field == null || min == null || max == null) {
+        if (field == null || min == null || max == null || sampleable == null) {
             return null;
         }
         FieldRange range = ranges.get(field);
@@ -349,15 +367,16 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
     }
 
     private static void observed(JsonNode o, Operation<?, ?> op, Map<String, Observation> out, List<Violation> v) {
-        List<String> names = op.outputs().stream().map(Output::name).toList();
+        List<String> names = op == null ? null : op.outputs().stream().map(Output::name).toList();
         if (!(o instanceof ObjectNode obj) || o.isEmpty()) {
-            v.add(new Violation("observed", "must name at least one output with its {value, sd}; outputs: " + names));
+            v.add(new Violation("observed", "must name at least one output with its {value, sd}"
+                    + (names == null ? "" : "; outputs: " + names)));
             return;
         }
         for (Iterator<Map.Entry<String, JsonNode>> it = obj.fields(); it.hasNext(); ) {
             Map.Entry<String, JsonNode> e = it.next();
             String path = "observed." + e.getKey();
-            if (!names.contains(e.getKey())) {
+            if (names != null && !names.contains(e.getKey())) {
                 v.add(new Violation(path, "is not an output of " + op.name() + "; outputs: " + names));
                 continue;
             }

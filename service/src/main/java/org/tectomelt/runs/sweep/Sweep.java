@@ -191,11 +191,12 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         }
         boolean withStudy = StudyRequest.FIELDS.stream().anyMatch(f -> b.get(f) != null && !b.get(f).isNull());
         StudyRequest study = null;
-        if (withStudy && op != null) {
+        if (withStudy) {
             try {
-                study = StudyRequest.parse(b, op, invoker);
+                study = StudyRequest.parse(b, op, invoker); // without a known operation: the shapes only
             } catch (OperationException e) {
-                v.addAll(e.violations());
+                boolean opKnown = op != null;
+                e.violations().stream().filter(x -> opKnown || !x.field().equals("operation")).forEach(v::add);
             }
         }
         JsonNode sweepNode = b.get("sweep");
