@@ -12,6 +12,7 @@ import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
 import org.tectomelt.operations.Operations;
 import org.tectomelt.operations.Output;
+import org.tectomelt.operations.Rules;
 import org.tectomelt.operations.Violation;
 
 /**
@@ -95,9 +96,30 @@ public final class Invoker {
         }
         List<Violation> violations = spec.check(op.path(), obj, op.caps());
         if (!violations.isEmpty()) {
-            throw new OperationException(violations);
+            throw new OperationException(withOperationRules(op, obj, violations));
         }
         return new Prepared<>(op, Json.bind(obj, op.requestType()));
+    }
+
+    /** The spec's violations plus those of the operation's own rules, where the body still binds. */
+    private static <Q extends Record, R extends Record> List<Violation> withOperationRules(
+            Operation<Q, R> op, ObjectNode body, List<Violation> violations) {
+        Rules rules = new Rules();
+        try {
+            op.check(Json.bind(body, op.requestType()), rules);
+        } catch (RuntimeException e) {
+            return violations;   // the body does not bind, or a rule needs a value the spec refused
+        }
+        if (rules.ok()) {
+            return violations;
+        }
+        List<Violation> all = new java.util.ArrayList<>(violations);
+        for (Violation v : rules.violations()) {
+            if (!all.contains(v)) {
+                all.add(v);
+            }
+        }
+        return all;
     }
 
     /**

@@ -105,7 +105,8 @@ public final class SpecContract {
 
     /**
      * Checks {@code body} against the request schema of {@code POST path}, with the given caps,
-     * and fills in the spec's defaults (in place). A null object member is removed first (absent).
+     * and fills in the spec's defaults (in place, also into a body that breaks a rule, so an
+     * operation can check its own rules on it). A null object member is removed first (absent).
      *
      * @return every violation, in the order found (empty when the body conforms)
      */
@@ -115,25 +116,28 @@ public final class SpecContract {
         if (!out.isEmpty()) {
             return out;
         }
+        applyDefaults(requestSchemaNode(path), body);   // a default is valid, so it is filled in first
         List<Error> errors = schema(path).validate(body);
         for (Error e : errors) {
             String field = field(e);
-            if ("maxItems".equals(e.getKeyword()) && capped(field, caps)) {
-                continue;
+            if (("maxItems".equals(e.getKeyword()) || "maximum".equals(e.getKeyword())) && capped(field, caps)) {
+                continue;   // the server's cap holds instead of the documented default
             }
             out.add(new Violation(field, message(e, field)));
         }
         for (Cap cap : caps) {
-            JsonNode list = at(body, cap.field());
-            if (list != null && list.isArray() && list.size() > cap.limit()) {
-                Range r = range(path, cap.field()).orElse(null);
+            JsonNode value = at(body, cap.field());
+            Range r = value == null ? null : range(path, cap.field()).orElse(null);
+            if (value != null && value.isArray() && value.size() > cap.limit()) {
                 long min = r == null || r.minItems() == null ? 0 : r.minItems();
-                out.add(new Violation(cap.field(), "must have between " + min + " and " + cap.limit()
-                        + " entries (server cap " + cap.variable() + "), got " + list.size()));
+                out.add(new Violation(cap.field(), "must have between " + min + " and " + Rules.format(cap.limit())
+                        + " entries (server cap " + cap.variable() + "), got " + value.size()));
+            } else if (value != null && value.isNumber() && value.doubleValue() > cap.limit()) {
+                String min = r == null || r.minimum() == null ? "" : "between " + Rules.format(r.minimum()) + " and ";
+                out.add(new Violation(cap.field(), "must be " + (min.isEmpty() ? "at most " : min)
+                        + Rules.format(cap.limit()) + " (server cap " + cap.variable() + "), got "
+                        + Rules.format(value.doubleValue())));
             }
-        }
-        if (out.isEmpty()) {
-            applyDefaults(requestSchemaNode(path), body);
         }
         return out;
     }
@@ -361,6 +365,19 @@ public final class SpecContract {
                 }
                 return "must be one of " + allowed + ", got " + (got == null ? "?" : got.isTextual()
                         ? "'" + abbreviate(got.asText()) + "'" : abbreviate(got.toString()));
+            }
+            case "minProperties", "maxProperties" -> {
+                List<String> names = new ArrayList<>();
+                if (owner != null) {
+                    owner.path("properties").fieldNames().forEachRemaining(n -> names.add(field.isEmpty() ? n
+                            : field + "." + n));
+                }
+                String choices = names.size() < 2 ? String.join("", names)
+                        : String.join(", ", names.subList(0, names.size() - 1)) + " or " + names.get(names.size() - 1);
+                long min = owner == null ? 0 : owner.path("minProperties").asLong(0);
+                long max = owner == null ? Long.MAX_VALUE : owner.path("maxProperties").asLong(Long.MAX_VALUE);
+                return min == 1 && max == 1 ? "give exactly one of " + choices
+                        : "must have between " + min + " and " + max + " of " + choices;
             }
             case "minItems", "maxItems" -> {
                 long min = owner != null && owner.has("minItems") ? owner.get("minItems").asLong() : 0;

@@ -216,20 +216,8 @@ public final class App {
         all.addAll(OperationHandler.routes(invoker));
         // runs: parameter sweeps of those operations, persisted and computed in the background
         all.addAll(RunsRoutes.routes(invoker));
-        // thermal: geotherm routes
-        all.addAll(GeothermRoutes.routes(config));
-
-        // melting: lithologies, melt fraction, solidus crossings
-        all.addAll(MeltingRoutes.routes(config));
-
-        // settings: decompression column, ridge, hotspot, rift
-        all.addAll(DecompressionRoutes.routes());
-
-        // settings: subduction
-        all.addAll(SubductionRoutes.routes());
-
-        // crust: crustal heating budget and sill model
-        all.addAll(CrustalHeatingRoutes.routes(config));
+        // melting: the lithology catalogue
+        all.addAll(MeltingRoutes.routes());
 
         // operations: metrics and the like
         all.addAll(OperationsRoutes.routes());

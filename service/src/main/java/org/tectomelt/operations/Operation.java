@@ -39,6 +39,16 @@ public interface Operation<Q extends Record, R extends Record> {
         return costClass();
     }
 
+    /**
+     * The operation's own rules that can be checked without computing (a lithology's pressure
+     * limit, a rule across fields), recorded in {@code rules}. {@link #run} applies them too; the
+     * invoker also calls this when the spec has already refused the body, so that every error comes
+     * back in one answer: then components may be null and list elements missing, and a failure
+     * here is ignored. Default: none.
+     */
+    default void check(Q request, Rules rules) {
+    }
+
     /** Runs the computation; long loops poll {@code deadline}. */
     R run(Q request, Deadline deadline);
 

@@ -32,8 +32,16 @@ public final class Operations {
     public static Operations of(Config config) {
         return new Operations(List.of(
                 new PressureOperation(config),
+                new GeothermOperation(config),
                 new MeltFractionOperation(config),
-                new MidOceanRidgeOperation()));
+                new SolidusCrossingsOperation(config),
+                new DecompressionOperation(),
+                new MidOceanRidgeOperation(),
+                new HotspotOperation(),
+                new ContinentalRiftOperation(),
+                new SubductionOperation(),
+                new HeatBudgetOperation(),
+                new SillModelOperation(config)));
     }
 
     /** Every operation with the embedded default caps. */

@@ -77,6 +77,11 @@ public final class Rules {
                 + " (" + capVariable + ")");
     }
 
+    /** What was recorded, in order. */
+    public List<Violation> violations() {
+        return List.copyOf(violations);
+    }
+
     /** True when nothing was recorded (on this collector or any view of it). */
     public boolean ok() {
         return violations.isEmpty();

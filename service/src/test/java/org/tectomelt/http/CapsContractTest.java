@@ -52,16 +52,17 @@ class CapsContractTest {
 
     @Test
     void aSizeCapNamesTheFieldTheSizeAndTheVariable() {
-        Validation v = new Validation();
+        org.tectomelt.operations.Rules v = new org.tectomelt.operations.Rules();
         assertTrue(v.cap("grid.cells", 1_000 * 20_000, Config.DEFAULT_MAX_SILL_CELL_STEPS, "cells × steps",
                 "TECTOMELT_MAX_SILL_CELL_STEPS"));
         assertFalse(v.cap("grid.cells", 10_000 * 20_000, Config.DEFAULT_MAX_SILL_CELL_STEPS, "cells × steps",
                 "TECTOMELT_MAX_SILL_CELL_STEPS"));
         assertFalse(v.cap("durationMyr", Double.NaN, 20, "duration", "TECTOMELT_MAX_SILL_DURATION_MYR"));
-        ApiProblem p = assertThrows(ApiProblem.class, v::throwIfInvalid);
-        assertEquals(400, p.status());
-        assertEquals(List.of("grid.cells", "durationMyr"), p.errors().stream().map(FieldError::field).toList());
+        org.tectomelt.operations.OperationException p = assertThrows(org.tectomelt.operations.OperationException.class,
+                v::throwIfBroken);
+        assertEquals(List.of("grid.cells", "durationMyr"),
+                p.violations().stream().map(org.tectomelt.operations.Violation::field).toList());
         assertEquals("cells × steps 200000000 exceeds the server cap of 100000000 (TECTOMELT_MAX_SILL_CELL_STEPS)",
-                p.errors().get(0).message());
+                p.violations().get(0).message());
     }
 }

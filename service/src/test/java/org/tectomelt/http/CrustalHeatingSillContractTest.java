@@ -237,7 +237,7 @@ class CrustalHeatingSillContractTest {
                 new SillModel.Intrusions(500, 30e3, c0 + 1230, 20, 100 * kyr, SillModel.Stacking.UNDER), 60e3, 10,
                 2000 * kyr, 10 * kyr, List.of(), 10, SillModel.Numerics.DEFAULT);
         assertEquals(7000, s.finalCells());
-        assertTrue(s.finalCells() <= CrustalHeatingRoutes.MAX_CELLS);
+        assertTrue(s.finalCells() <= org.tectomelt.operations.SillModelOperation.MAX_CELLS);
         assertTrue(s.minimumCellSteps() < Config.DEFAULT_MAX_SILL_CELL_STEPS / 3.0, "bound " + s.minimumCellSteps());
         assertTrue(2000 / 10 + 1 <= Config.DEFAULT_MAX_PROFILE_POINTS);
         assertTrue(2.0 <= Config.DEFAULT_MAX_SILL_DURATION_MYR);

@@ -47,6 +47,15 @@ public record LithostaticColumn(double crustThicknessM, double crustDensity, dou
         return new LithostaticColumn(0.0, CRUST_DENSITY, MANTLE_DENSITY, G);
     }
 
+    /**
+     * A column of crust of density {@code crustDensity} (kg/m³) down to {@link #MAX_DEPTH_M}
+     * (g = 9.81 m/s²): the pressure within a crustal layer, as the crustal heating models read their
+     * melt curves at it.
+     */
+    public static LithostaticColumn crustOnly(double crustDensity) {
+        return new LithostaticColumn(MAX_DEPTH_M, crustDensity, MANTLE_DENSITY, G);
+    }
+
     /** Pressure (Pa) at depth {@code z} (m). */
     public double pressureAt(double z) {
         if (z <= crustThicknessM) {

@@ -51,8 +51,14 @@ public final class SweepEvaluator implements Evaluator {
             StudyRun study = new StudyRun(invoker, op, StudyRequest.parse(sweep.study(), op, invoker), sweep.outputs());
             return index -> evaluateStudy(sweep, study, index);
         }
-        return index -> evaluate(sweep, op, index);
+        // the spec's defaults, filled once into the base request: every point was checked against
+        // the spec when the run was accepted, so a point is then only bound, not checked again
+        ObjectNode filled = sweep.pointRequest(0);
+        boolean checked = Sweep.fieldsIndependent(invoker.spec(), op.path())
+                && invoker.spec().check(op.path(), filled, op.caps()).isEmpty();
+        return index -> evaluate(sweep, op, checked ? filled : null, index);
     }
+
 
     /** One block of the study of a sweep point: point {@code index} is block {@code index % blocks} of it. */
     private PointResult evaluateStudy(Sweep sweep, StudyRun study, int index) {
@@ -69,10 +75,11 @@ public final class SweepEvaluator implements Evaluator {
         }
     }
 
-    private PointResult evaluate(Sweep sweep, Operation<?, ?> op, int index) {
+    private PointResult evaluate(Sweep sweep, Operation<?, ?> op, ObjectNode filled, int index) {
         String inputs = json(sweep.inputs(index));
         try {
-            Record result = invoker.prepare(op, sweep.pointRequest(index)).run(Deadline.after(pointBudget));
+            Record result = (filled == null ? invoker.prepare(op, sweep.pointRequest(index))
+                    : bound(op, sweep.pointRequest(filled, index))).run(Deadline.after(pointBudget));
             Map<String, Double> out = invoker.outputs(op.name(), result, sweep.outputs());
             return new PointResult(index, inputs, json(out), null, null);
         } catch (EngineException e) {
@@ -84,6 +91,11 @@ public final class SweepEvaluator implements Evaluator {
             return problem(index, inputs, 503, "over-budget", "Computation budget exceeded",
                     e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS per point)", null);
         }
+    }
+
+    private static <Q extends Record, R extends Record> Invoker.Prepared<Q, R> bound(Operation<Q, R> op,
+                                                                                    ObjectNode tree) {
+        return new Invoker.Prepared<>(op, Json.bind(tree, op.requestType()));
     }
 
     private static PointResult problem(int index, String inputs, int status, String type, String title, String detail,
