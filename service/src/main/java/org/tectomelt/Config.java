@@ -18,7 +18,8 @@ import java.util.regex.Pattern;
  * hands this record to every {@code *Routes} class, so a handler checks, for example,
  * {@code v.list("points", req.points(), 1, config.maxBatchPoints())}.
  *
- * @param host                interface to bind ({@code HOST}, default 0.0.0.0)
+ * @param host                interface to bind ({@code HOST}, default 127.0.0.1: a bare {@code java -jar}
+ *                            serves this machine only; the container image sets 0.0.0.0)
  * @param port                TCP port ({@code PORT}, default 7070; 0 picks a free port)
  * @param maxBodyBytes        largest accepted request body in bytes
  *                            ({@code TECTOMELT_MAX_BODY_BYTES}, default 1 MiB)
@@ -46,11 +47,21 @@ import java.util.regex.Pattern;
  *                            ({@code TECTOMELT_CORS_ORIGINS}, comma-separated, default none)
  * @param shutdownGraceMillis how long a stopping server lets in-flight requests finish
  *                            ({@code TECTOMELT_SHUTDOWN_GRACE_MS}, default 12,000)
+ * @param bodyTimeoutMillis   longest time a request body may take to arrive; a slower one is answered
+ *                            408 ({@code TECTOMELT_BODY_TIMEOUT_MS}, default 10,000: at least 100 kB/s
+ *                            for a body at the default 1 MiB cap)
+ * @param threadsPerClient    most server threads one client address may hold at once; its further
+ *                            requests wait, holding no thread ({@code TECTOMELT_THREADS_PER_CLIENT},
+ *                            default 16)
+ * @param heavyBatchPoints    a melt-fraction batch with more points than this is served as a heavy
+ *                            request (limiter and budget) ({@code TECTOMELT_HEAVY_BATCH_POINTS},
+ *                            default 1,000)
  */
 public record Config(String host, int port, long maxBodyBytes,
                      int maxBatchPoints, int maxProfilePoints, long maxSillCellSteps, double maxSillDurationMyr,
                      int heavyConcurrency, long heavyQueueMillis, long heavyBudgetMillis, int cacheMegabytes,
-                     String token, List<String> corsOrigins, long shutdownGraceMillis) {
+                     String token, List<String> corsOrigins, long shutdownGraceMillis,
+                     long bodyTimeoutMillis, int threadsPerClient, int heavyBatchPoints) {
 
     /** Default {@link #maxBatchPoints()}. */
     public static final int DEFAULT_MAX_BATCH_POINTS = 10_000;
@@ -60,6 +71,14 @@ public record Config(String host, int port, long maxBodyBytes,
     public static final long DEFAULT_MAX_SILL_CELL_STEPS = 100_000_000L;
     /** Default {@link #maxSillDurationMyr()}. */
     public static final double DEFAULT_MAX_SILL_DURATION_MYR = 20.0;
+    /** Default {@link #host()}: this machine only. */
+    public static final String DEFAULT_HOST = "127.0.0.1";
+    /** Default {@link #bodyTimeoutMillis()}. */
+    public static final long DEFAULT_BODY_TIMEOUT_MILLIS = 10_000;
+    /** Default {@link #threadsPerClient()}. */
+    public static final int DEFAULT_THREADS_PER_CLIENT = 16;
+    /** Default {@link #heavyBatchPoints()}. */
+    public static final int DEFAULT_HEAVY_BATCH_POINTS = 1_000;
     /** Shortest token accepted, so that a shared server is not guarded by a guessable word. */
     public static final int MIN_TOKEN_LENGTH = 16;
 
@@ -78,12 +97,13 @@ public record Config(String host, int port, long maxBodyBytes,
     public Config(String host, int port, long maxBodyBytes) {
         this(host, port, maxBodyBytes, DEFAULT_MAX_BATCH_POINTS, DEFAULT_MAX_PROFILE_POINTS,
                 DEFAULT_MAX_SILL_CELL_STEPS, DEFAULT_MAX_SILL_DURATION_MYR, defaultConcurrency(), 200, 10_000, 32,
-                "", List.of(), 12_000);
+                "", List.of(), 12_000, DEFAULT_BODY_TIMEOUT_MILLIS, DEFAULT_THREADS_PER_CLIENT,
+                DEFAULT_HEAVY_BATCH_POINTS);
     }
 
     /** Embedded defaults, as used by {@code java -jar} with no environment set. */
     public static Config defaults() {
-        return new Config("0.0.0.0", 7070, 1_048_576L);
+        return new Config(DEFAULT_HOST, 7070, 1_048_576L);
     }
 
     /**
@@ -107,21 +127,24 @@ public record Config(String host, int port, long maxBodyBytes,
                 (int) longVar(env, "TECTOMELT_CACHE_MB", d.cacheMegabytes(), 0, 65_536),
                 token(env),
                 origins(env.get("TECTOMELT_CORS_ORIGINS")),
-                longVar(env, "TECTOMELT_SHUTDOWN_GRACE_MS", d.shutdownGraceMillis(), 0, 600_000));
+                longVar(env, "TECTOMELT_SHUTDOWN_GRACE_MS", d.shutdownGraceMillis(), 0, 600_000),
+                longVar(env, "TECTOMELT_BODY_TIMEOUT_MS", d.bodyTimeoutMillis(), 100, 600_000),
+                (int) longVar(env, "TECTOMELT_THREADS_PER_CLIENT", d.threadsPerClient(), 1, 10_000),
+                (int) longVar(env, "TECTOMELT_HEAVY_BATCH_POINTS", d.heavyBatchPoints(), 1, 10_000_000));
     }
 
     /** A copy listening on another port (tests use 0). */
     public Config withPort(int newPort) {
         return new Config(host, newPort, maxBodyBytes, maxBatchPoints, maxProfilePoints, maxSillCellSteps,
                 maxSillDurationMyr, heavyConcurrency, heavyQueueMillis, heavyBudgetMillis, cacheMegabytes, token,
-                corsOrigins, shutdownGraceMillis);
+                corsOrigins, shutdownGraceMillis, bodyTimeoutMillis, threadsPerClient, heavyBatchPoints);
     }
 
     /** A copy with another body-size cap. */
     public Config withMaxBodyBytes(long newMax) {
         return new Config(host, port, newMax, maxBatchPoints, maxProfilePoints, maxSillCellSteps,
                 maxSillDurationMyr, heavyConcurrency, heavyQueueMillis, heavyBudgetMillis, cacheMegabytes, token,
-                corsOrigins, shutdownGraceMillis);
+                corsOrigins, shutdownGraceMillis, bodyTimeoutMillis, threadsPerClient, heavyBatchPoints);
     }
 
     /** True when a bearer token is required. */
@@ -147,7 +170,8 @@ public record Config(String host, int port, long maxBodyBytes,
                 + ", heavyConcurrency=" + heavyConcurrency + ", heavyQueueMillis=" + heavyQueueMillis
                 + ", heavyBudgetMillis=" + heavyBudgetMillis + ", cacheMegabytes=" + cacheMegabytes
                 + ", token=" + (token.isEmpty() ? "none" : "(set)") + ", corsOrigins=" + corsOrigins
-                + ", shutdownGraceMillis=" + shutdownGraceMillis + "]";
+                + ", shutdownGraceMillis=" + shutdownGraceMillis + ", bodyTimeoutMillis=" + bodyTimeoutMillis
+                + ", threadsPerClient=" + threadsPerClient + ", heavyBatchPoints=" + heavyBatchPoints + "]";
     }
 
     private static int defaultConcurrency() {

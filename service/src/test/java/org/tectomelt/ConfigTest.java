@@ -19,7 +19,7 @@ class ConfigTest {
     void embeddedDefaultsApplyWithAnEmptyEnvironment() {
         assertEquals(Config.defaults(), Config.fromEnvironment(Map.of()));
         assertEquals(7070, Config.defaults().port());
-        assertEquals("0.0.0.0", Config.defaults().host());
+        assertEquals("127.0.0.1", Config.defaults().host(), "a bare java -jar serves this machine only");
     }
 
     @Test
@@ -54,7 +54,10 @@ class ConfigTest {
         assertEquals(12_000, d.shutdownGraceMillis());
         assertFalse(d.accessControlled());
         assertEquals(List.of(), d.corsOrigins());
-        assertEquals(d, new Config("0.0.0.0", 7070, 1_048_576L), "the first release's constructor keeps working");
+        assertEquals(10_000, d.bodyTimeoutMillis());
+        assertEquals(16, d.threadsPerClient());
+        assertEquals(1_000, d.heavyBatchPoints());
+        assertEquals(d, new Config("127.0.0.1", 7070, 1_048_576L), "the first release's constructor keeps working");
     }
 
     @Test

@@ -321,7 +321,8 @@ public final class Json {
                 throw JsonMappingException.from(gen, "non-finite number in response at "
                         + gen.getOutputContext().pathAsPointer());
             }
-            gen.writeNumber(value);
+            // -0.0 (from a negated or rounded zero, or echoed from the request) is written as 0.0
+            gen.writeNumber(value == 0.0 ? 0.0 : value);
         }
     }
 }

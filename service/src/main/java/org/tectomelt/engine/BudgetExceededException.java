@@ -20,6 +20,15 @@ public final class BudgetExceededException extends RuntimeException {
         this.budget = budget;
     }
 
+    /**
+     * @param budget  the budget the computation had
+     * @param message why it was abandoned before the budget was spent (the server is stopping)
+     */
+    public BudgetExceededException(Duration budget, String message) {
+        super(message);
+        this.budget = budget;
+    }
+
     /** The budget that was spent. */
     public Duration budget() {
         return budget;

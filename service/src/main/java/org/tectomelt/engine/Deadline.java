@@ -23,8 +23,9 @@ import java.util.function.LongSupplier;
  * }</pre>
  *
  * Engine methods take a {@code Deadline} parameter and offer an overload without it that passes
- * {@link #none()}, so unit tests and benchmarks need not care. Instances are immutable and
- * thread-safe.
+ * {@link #none()}, so unit tests and benchmarks need not care. Instances are thread-safe; the
+ * budget is fixed, and the only change a deadline can undergo is {@link #cancel()} (a stopping
+ * server gives up the work it can no longer answer), after which it counts as expired.
  */
 public final class Deadline {
 
@@ -34,6 +35,7 @@ public final class Deadline {
     private final long endNanos;
     private final LongSupplier clock;
     private final boolean unlimited;
+    private volatile boolean cancelled;
 
     private Deadline(long budgetNanos, long endNanos, LongSupplier clock, boolean unlimited) {
         this.budgetNanos = budgetNanos;
@@ -67,10 +69,25 @@ public final class Deadline {
         return new Deadline(nanos, nanoClock.getAsLong() + nanos, nanoClock, false);
     }
 
-    /** True once the budget is spent. */
+    /** True once the budget is spent or the deadline was cancelled. */
     public boolean expired() {
         // difference, not comparison, so that a wrapping nanoTime stays correct
-        return !unlimited && clock.getAsLong() - endNanos >= 0;
+        return cancelled || (!unlimited && clock.getAsLong() - endNanos >= 0);
+    }
+
+    /**
+     * Ends the budget now: the next {@link #check()} throws. A stopping server cancels the heavy
+     * work whose answers it can no longer send. {@link #none()} cannot be cancelled.
+     */
+    public void cancel() {
+        if (!unlimited) {
+            cancelled = true;
+        }
+    }
+
+    /** True after {@link #cancel()}. */
+    public boolean cancelled() {
+        return cancelled;
     }
 
     /**
@@ -79,6 +96,10 @@ public final class Deadline {
      * @throws BudgetExceededException when the budget is spent
      */
     public void check() {
+        if (cancelled) {
+            throw new BudgetExceededException(Duration.ofNanos(budgetNanos),
+                    "The computation was cancelled: the server is stopping");
+        }
         if (expired()) {
             throw new BudgetExceededException(Duration.ofNanos(budgetNanos));
         }

@@ -8,4 +8,9 @@ package org.tectomelt.engine;
  * @param doi      DOI without the resolver prefix, or an empty string for books without one
  */
 public record ModelInfo(String id, String citation, String doi) {
+
+    /** This model's BibTeX entry (key: the id), read from the citation; see {@link BibtexEntry}. */
+    public BibtexEntry bibtex() {
+        return BibtexEntry.of(this);
+    }
 }

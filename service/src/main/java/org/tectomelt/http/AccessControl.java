@@ -59,7 +59,7 @@ final class AccessControl {
         return name == null ? Tokens.ANONYMOUS : name;
     }
 
-    /** Whether {@code path} needs the token (when one is configured). */
+    /** Whether the route template {@code path} needs the token (when one is configured). */
     static boolean protects(String path) {
         return (path.startsWith("/v1/") && !path.equals("/v1/health")) || path.equals("/metrics");
     }
@@ -70,7 +70,10 @@ final class AccessControl {
      * @throws ApiProblem 401 {@code unauthorized} with a {@code WWW-Authenticate} challenge
      */
     void check(Context ctx) {
-        if (hashes.isEmpty() || ctx.method() == HandlerType.OPTIONS || !protects(ctx.path())) {
+        // decided on the route that will serve the request, not on the raw path: /metrics/ is /metrics
+        String route = RequestPlumbing.endpointPath(ctx);
+        if (hashes.isEmpty() || ctx.method() == HandlerType.OPTIONS
+                || !protects(route == null ? ctx.path() : route)) {
             return;
         }
         String header = ctx.header("Authorization");

@@ -5,13 +5,8 @@ import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import io.javalin.http.HandlerType;
 import io.javalin.http.staticfiles.Location;
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Properties;
-import org.eclipse.jetty.server.handler.GracefulHandler;
 import java.time.Duration;
 import java.util.Map;
 import org.tectomelt.Config;
@@ -33,7 +28,7 @@ import org.tectomelt.operations.Operations;
 public final class App {
 
     /** The service version, from the build. */
-    public static final String VERSION = loadVersion();
+    public static final String VERSION = BuildInfo.CURRENT.version();
 
     private App() {
     }
@@ -82,7 +77,8 @@ public final class App {
         ResultCache cache = new ResultCache(config.cacheMegabytes());
         Metrics metrics = new Metrics(heavy, cache);
         metrics.bindRuns(runs);
-        RequestKey keys = new RequestKey(VERSION + ";" + config.resultFingerprint());
+        RequestKey keys = new RequestKey(VERSION + ";" + BuildInfo.CURRENT.commitLabel() + ";"
+                + config.resultFingerprint());
         AccessControl access = new AccessControl(tokens);
         InteractiveLoad load = runs.interactiveLoad();
         Javalin app = Javalin.create(c -> {
@@ -98,12 +94,15 @@ public final class App {
                 sf.directory = "/public";
                 sf.location = Location.CLASSPATH;
             });
-            Cors.configure(c, config.corsOrigins());
-            // graceful stop: connectors stop accepting, in-flight requests get up to the grace period
-            c.jetty.modifyServer(server -> {
-                server.setStopTimeout(config.shutdownGraceMillis());
-                server.setHandler(new GracefulHandler());
+            // the API reference's renderer, from the packaged webjar (GET /docs loads it from here)
+            c.staticFiles.add(sf -> {
+                sf.hostedPath = MetaRoutes.DOCS_UI_PATH;
+                sf.directory = MetaRoutes.docsUiDirectory();
+                sf.location = Location.CLASSPATH;
             });
+            Cors.configure(c, config.corsOrigins());
+            // graceful stop, bodies read without a thread, threads per client, problem+json from Jetty itself
+            c.jetty.modifyServer(server -> JettySetup.configure(server, config));
             c.routes.before(RequestPlumbing::assignRequestId);
             // background run points give way while an interactive request is being served
             c.routes.before(ctx -> interactiveBegin(ctx, load));
@@ -130,8 +129,13 @@ public final class App {
                 metrics.finished(ctx, ms);
                 RequestPlumbing.finished(ctx, ms, observer);
             });
+            // heavy work still running when the grace period ends has no one left to answer: cancel it
+            c.events.serverStopping(() -> heavy.cancelAllAfter(config.shutdownGraceMillis()));
             c.events.serverStarted(runs::start);
-            c.events.serverStopped(metrics::close);
+            c.events.serverStopped(() -> {
+                heavy.cancelAll();
+                metrics.close();
+            });
             c.events.serverStopped(runs::close);
         });
         return app;
@@ -146,6 +150,8 @@ public final class App {
             return r.handler();
         }
         return ctx -> {
+            // the build that answers, on every computed answer (a cached one included)
+            Provenance.headers(ctx);
             String etag = keys.etag(ctx);
             if (etag != null && RequestKey.matches(ctx.header("If-None-Match"), etag)) {
                 ctx.header("ETag", etag).status(304);
@@ -223,18 +229,5 @@ public final class App {
         all.addAll(OperationsRoutes.routes());
 
         return List.copyOf(all);
-    }
-
-    private static String loadVersion() {
-        try (InputStream in = App.class.getResourceAsStream("/tectomelt-version.properties")) {
-            if (in == null) {
-                return "dev";
-            }
-            Properties p = new Properties();
-            p.load(in);
-            return p.getProperty("version", "dev");
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
     }
 }

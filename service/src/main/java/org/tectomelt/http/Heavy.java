@@ -32,6 +32,8 @@ public final class Heavy {
     private final int concurrency;
     private final long queueMillis;
     private final Duration budget;
+    /** Deadlines of the heavy requests being computed now, so a stopping server can cancel them. */
+    private final java.util.Set<Deadline> live = java.util.concurrent.ConcurrentHashMap.newKeySet();
 
     Heavy(Config config) {
         this(config.heavyConcurrency(), config.heavyQueueMillis(), Duration.ofMillis(config.heavyBudgetMillis()));
@@ -84,12 +86,45 @@ public final class Heavy {
         if (!acquired) {
             throw busy();
         }
+        Deadline deadline = Deadline.after(budget);
+        live.add(deadline);
         try {
-            ctx.attribute(DEADLINE_ATTR, Deadline.after(budget));
+            ctx.attribute(DEADLINE_ATTR, deadline);
             work.handle(ctx);
         } finally {
+            live.remove(deadline);
             slots.release();
         }
+    }
+
+    /**
+     * Cancels every heavy computation still running (their next deadline poll ends them). The app
+     * calls it once the server has stopped: after the grace period nobody is left to read the
+     * answers, and the work would otherwise run on until the process exits.
+     *
+     * @return how many were cancelled
+     */
+    int cancelAll() {
+        int n = 0;
+        for (Deadline d : live) {
+            d.cancel();
+            n++;
+        }
+        return n;
+    }
+
+    /** Calls {@link #cancelAll()} once {@code millis} have passed, on a daemon thread. */
+    void cancelAllAfter(long millis) {
+        Thread t = new Thread(() -> {
+            try {
+                Thread.sleep(millis);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+            cancelAll();
+        }, "tectomelt-cancel-heavy");
+        t.setDaemon(true);
+        t.start();
     }
 
     /** Takes every slot (tests use it to saturate the limiter); returns how many were taken. */

@@ -65,11 +65,17 @@ final class OperationHandler {
         String rows = prepared.operation().rows(result);
         List<String> fields = fields(ctx);
         boolean csv = wantsCsv(ctx);
-        if (rows == null || (!csv && fields == null)) {
-            Responses.json(ctx, result);
+        ObjectNode tree = Json.mapper().valueToTree(result);
+        if (MetaRoutes.wantsBibtex(ctx)) {
+            Responses.bytes(ctx, new Responses.Written(MetaRoutes.BIBTEX + "; charset=utf-8",
+                    Provenance.bibtex(tree).getBytes(StandardCharsets.UTF_8)));
             return;
         }
-        JsonNode tree = Json.mapper().valueToTree(result);
+        Provenance.attach(tree);
+        if (rows == null || (!csv && fields == null)) {
+            Responses.json(ctx, tree);
+            return;
+        }
         JsonNode list = tree;
         for (String part : rows.split("\\.")) {
             list = list.path(part);

@@ -46,9 +46,14 @@ public final class Problems {
                 "Outside what the model can compute", e.getMessage(), List.of(), Map.of())));
         routes.exception(BudgetExceededException.class, (e, ctx) -> write(ctx, new ApiProblem(503, "over-budget",
                 "Computation budget exceeded", e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS); ask for fewer points,"
-                        + " a coarser grid or a shorter duration", List.of(), Map.of())));
+                        + " a coarser grid or a shorter duration", List.of(),
+                Map.of("Retry-After", String.valueOf(Heavy.RETRY_AFTER_SECONDS)))));
         routes.exception(HttpResponseException.class, (e, ctx) -> write(ctx, fromStatus(e.getStatus(), ctx)));
         routes.exception(Exception.class, (e, ctx) -> {
+            if (clientIo(e)) {
+                write(ctx, RequestPlumbing.incompleteBody(ctx));
+                return;
+            }
             LOG.error("unexpected failure, requestId={} {} {}", RequestPlumbing.requestId(ctx), ctx.method(),
                     ctx.path(), e);
             write(ctx, new ApiProblem(500, "internal", "Internal error",
@@ -62,6 +67,26 @@ public final class Problems {
                 }
             });
         }
+    }
+
+    /**
+     * True when {@code e} comes from the client's connection while the body was read (it closed,
+     * or sent less than it declared): a client error, not the service's.
+     */
+    static boolean clientIo(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            // a JSON (de)serialisation failure is an IOException too, but never the client's connection
+            if (t instanceof com.fasterxml.jackson.core.JacksonException) {
+                return false;
+            }
+            if (t instanceof java.io.IOException || t instanceof org.eclipse.jetty.http.BadMessageException) {
+                return true;
+            }
+            if (t.getCause() == t) {
+                break;
+            }
+        }
+        return false;
     }
 
     /** A problem for a bare status code raised by the framework or the plumbing. */

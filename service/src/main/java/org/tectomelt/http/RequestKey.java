@@ -85,7 +85,8 @@ final class RequestKey {
         }
         sb.append('\n');
         // the representation asked for is part of the answer (JSON or a CSV table)
-        sb.append(OperationHandler.wantsCsv(ctx) ? "csv" : "json").append('\n');
+        sb.append(MetaRoutes.wantsBibtexQuietly(ctx) ? "bibtex" : OperationHandler.wantsCsv(ctx) ? "csv" : "json")
+                .append('\n');
         if (ctx.method() == HandlerType.POST) {
             byte[] body = ctx.bodyAsBytes();
             JsonNode tree;

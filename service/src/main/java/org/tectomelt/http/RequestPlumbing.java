@@ -19,6 +19,7 @@ final class RequestPlumbing {
     /** Refused bodies up to this many times the cap are read and dropped before the 413. */
     static final long DRAIN_FACTOR = 16;
     private static final Logger ACCESS = LoggerFactory.getLogger("tectomelt.access");
+    private static final Logger LOG = LoggerFactory.getLogger(RequestPlumbing.class);
 
     private RequestPlumbing() {
     }
@@ -37,10 +38,23 @@ final class RequestPlumbing {
         return id == null ? "-" : id;
     }
 
-    /** For a matched POST: the body must be JSON and within the size cap (checked before it is read). */
+    /**
+     * For a matched POST: the body arrived whole ({@link RequestIntake}), is within the size cap
+     * (checked before it is read), is exactly {@code application/json} in UTF-8, and is not encoded.
+     */
     static void checkBody(Context ctx, long maxBodyBytes) {
         if (ctx.method() != HandlerType.POST) {
             return;
+        }
+        RequestIntake.BodyFailure failure = RequestIntake.failure(ctx);
+        if (failure == RequestIntake.BodyFailure.TIMEOUT) {
+            LOG.warn("request body timed out: {} {} requestId={}", ctx.method(), ctx.path(), requestId(ctx));
+            throw new ApiProblem(408, "body-timeout", "Request body too slow",
+                    "The request body did not arrive in time (TECTOMELT_BODY_TIMEOUT_MS); send it at once",
+                    List.of(), Map.of("Connection", "close"));
+        }
+        if (failure == RequestIntake.BodyFailure.INCOMPLETE) {
+            throw incompleteBody(ctx);
         }
         long declared = ctx.req().getContentLengthLong();
         if (declared > maxBodyBytes) {
@@ -49,12 +63,71 @@ final class RequestPlumbing {
                     "The body has " + declared + " bytes; the limit is " + maxBodyBytes
                             + " (TECTOMELT_MAX_BODY_BYTES)", List.of(), Map.of());
         }
-        String ct = ctx.contentType();
-        if (ct == null || !ct.toLowerCase(java.util.Locale.ROOT).startsWith("application/json")) {
-            throw new ApiProblem(415, "unsupported-media-type", "Unsupported media type",
-                    "Send the body as application/json (got " + (ct == null ? "no Content-Type" : ct) + ")",
-                    List.of(), Map.of());
+        String encoding = ctx.header("Content-Encoding");
+        if (encoding != null && !encoding.isBlank() && !encoding.trim().equalsIgnoreCase("identity")) {
+            throw unsupported("Send the body uncompressed: Content-Encoding " + clip(encoding)
+                    + " is not accepted (only identity)");
         }
+        String ct = ctx.header("Content-Type");
+        MediaType media = MediaType.parse(ct);
+        if (media == null || !media.type().equals(JSON)) {
+            throw unsupported("Send the body as application/json (got "
+                    + (ct == null ? "no Content-Type" : clip(ct)) + ")");
+        }
+        String charset = media.charset();
+        if (charset != null && !charset.equalsIgnoreCase("utf-8")) {
+            throw unsupported("The body must be UTF-8: send Content-Type: application/json; charset=utf-8 "
+                    + "or no charset (got charset " + clip(charset) + ")");
+        }
+    }
+
+    /** The only request media type the service reads. */
+    static final String JSON = "application/json";
+
+    /** A parsed Content-Type: the lower-case type/subtype and the charset parameter (or null). */
+    record MediaType(String type, String charset) {
+        /** Null when the header is absent or not a media type. */
+        static MediaType parse(String header) {
+            if (header == null) {
+                return null;
+            }
+            String[] parts = header.split(";");
+            String type = parts[0].trim().toLowerCase(java.util.Locale.ROOT);
+            if (!type.matches("[a-z0-9!#$&^_.+-]+/[a-z0-9!#$&^_.+-]+")) {
+                return null;
+            }
+            String charset = null;
+            for (int i = 1; i < parts.length; i++) {
+                String p = parts[i].trim();
+                int eq = p.indexOf('=');
+                if (eq > 0 && p.substring(0, eq).trim().equalsIgnoreCase("charset")) {
+                    charset = p.substring(eq + 1).trim().replace("\"", "");
+                }
+            }
+            return new MediaType(type, charset);
+        }
+    }
+
+    /**
+     * 400 for a body that ended before its declared length or whose connection failed while it was
+     * read: one WARN line (no stack trace), counted as a client error.
+     */
+    static ApiProblem incompleteBody(Context ctx) {
+        LOG.warn("request body incomplete (client closed or sent less than its Content-Length): {} {} "
+                + "requestId={}", ctx.method(), ctx.path(), requestId(ctx));
+        return new ApiProblem(400, "incomplete-body", "Incomplete request body",
+                "The request body ended before its declared length or the connection failed while it was read",
+                List.of(), Map.of("Connection", "close"));
+    }
+
+    private static ApiProblem unsupported(String detail) {
+        return new ApiProblem(415, "unsupported-media-type", "Unsupported media type", detail, List.of(), Map.of());
+    }
+
+    /** A header value quoted in a problem: printable, at most 60 characters. */
+    private static String clip(String s) {
+        String p = s.replaceAll("[^\\x20-\\x7e]", "?");
+        return p.length() <= 60 ? p : p.substring(0, 60) + "…";
     }
 
     /**

@@ -11,13 +11,17 @@ import org.tectomelt.engine.units.Units;
 
 /**
  * {@code melt-fraction}: the melt state at one pressure and temperature, or at a batch of points.
- * Cheap; a batch of more than {@value #HEAVY_BATCH_POINTS} points is served as heavy.
+ * Cheap; a batch of more than {@code TECTOMELT_HEAVY_BATCH_POINTS} (default
+ * {@value #HEAVY_BATCH_POINTS}) points is served as heavy: limiter and budget.
  */
 public final class MeltFractionOperation
         implements Operation<MeltFractionOperation.Request, MeltFractionOperation.Result> {
 
-    /** Batches longer than this go through the heavy-request limiter (hydrous points cost ~10 µs each). */
-    public static final int HEAVY_BATCH_POINTS = 1000;
+    /**
+     * Default of {@code TECTOMELT_HEAVY_BATCH_POINTS}: batches longer than this go through the
+     * heavy-request limiter (a 10,000-point hydrous batch took 0.4–0.9 s, so 1000 points ~50–90 ms).
+     */
+    public static final int HEAVY_BATCH_POINTS = Config.DEFAULT_HEAVY_BATCH_POINTS;
 
     /** A pressure–temperature point of a batch. */
     public record PressureTemperature(Double pressureGPa, Double temperatureC) {
@@ -44,9 +48,11 @@ public final class MeltFractionOperation
     }
 
     private final int maxPoints;
+    private final int heavyPoints;
 
     MeltFractionOperation(Config config) {
         this.maxPoints = config.maxBatchPoints();
+        this.heavyPoints = config.heavyBatchPoints();
     }
 
     @Override
@@ -71,7 +77,7 @@ public final class MeltFractionOperation
 
     @Override
     public Cost cost(Request q) {
-        return q.points() != null && q.points().size() > HEAVY_BATCH_POINTS ? Cost.HEAVY : Cost.CHEAP;
+        return q.points() != null && q.points().size() > heavyPoints ? Cost.HEAVY : Cost.CHEAP;
     }
 
     @Override

@@ -41,7 +41,8 @@ public final class Operations {
                 new ContinentalRiftOperation(),
                 new SubductionOperation(),
                 new HeatBudgetOperation(),
-                new SillModelOperation(config)));
+                new SillModelOperation(config),
+                new MeltCompositionOperation()));
     }
 
     /** Every operation with the embedded default caps. */

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.tectomelt.engine.composition.CompositionTables;
 import org.tectomelt.engine.melting.Lithologies;
 import org.tectomelt.engine.column.DecompressionColumn;
 import org.tectomelt.engine.thermal.ContinentalGeotherm;
@@ -45,7 +46,11 @@ class SpecDefaultsMatchEngineTest {
             new Pair("/v1/crustal-heating/sill", "geotherm.heatProductionScaleKm",
                     Units.mToKm(ContinentalGeotherm.HEAT_PRODUCTION_SCALE)),
             new Pair("/v1/crustal-heating/sill", "geotherm.surfaceTemperatureC",
-                    Units.kelvinToCelsius(ContinentalGeotherm.SURFACE_TEMPERATURE)));
+                    Units.kelvinToCelsius(ContinentalGeotherm.SURFACE_TEMPERATURE)),
+            new Pair("/v1/melt-composition", "source", CompositionTables.defaultSource().id()),
+            new Pair("/v1/melt-composition", "partitionCoefficients",
+                    CompositionTables.defaultPartitionCoefficients().id()),
+            new Pair("/v1/melt-composition", "normalisation", CompositionTables.defaultNormalisation().id()));
 
     @Test
     void theSillRepeatCountClampIsTheSpecsMaximum() {

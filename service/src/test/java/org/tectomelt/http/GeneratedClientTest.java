@@ -31,6 +31,14 @@ class GeneratedClientTest {
         Health h = new MetaApi(client()).getHealth();
         assertEquals(Health.StatusEnum.UP, h.getStatus());
         assertEquals(App.VERSION, h.getVersion());
+        assertEquals(BuildInfo.CURRENT.commitLabel(), h.getCommit());
+    }
+
+    @Test
+    void citationsThroughTheGeneratedClient() throws ApiException {
+        org.tectomelt.client.model.Citations c = new MetaApi(client()).getCitations(null);
+        assertEquals("tectomelt", c.getSoftware().getId());
+        assertEquals(org.tectomelt.engine.ModelCatalogue.all().size(), c.getModels().size());
     }
 
     @Test

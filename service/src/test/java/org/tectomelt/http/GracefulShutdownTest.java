@@ -68,4 +68,37 @@ class GracefulShutdownTest {
         assertThrows(IOException.class, () -> HttpClient.newHttpClient().send(health,
                 HttpResponse.BodyHandlers.ofString()));
     }
+
+    @Test
+    void heavyWorkStillRunningAfterTheGracePeriodIsCancelled() throws Exception {
+        Config config = TestApps.config(Map.of("TECTOMELT_SHUTDOWN_GRACE_MS", "200",
+                "TECTOMELT_HEAVY_BUDGET_MS", "600000"));
+        CountDownLatch entered = new CountDownLatch(1);
+        CountDownLatch left = new CountDownLatch(1);
+        Route endless = Route.heavyPost("/v1/test-only/endless", ctx -> {
+            org.tectomelt.engine.Deadline d = Heavy.deadline(ctx);
+            entered.countDown();
+            try {
+                while (true) {
+                    d.check();
+                    Thread.sleep(5);
+                }
+            } finally {
+                left.countDown();
+            }
+        });
+        Javalin app = TestApps.start(config, TestApps.routesPlus(config, endless), new Heavy(config));
+        HttpClient.newHttpClient().sendAsync(HttpRequest.newBuilder(
+                        URI.create("http://127.0.0.1:" + app.port() + "/v1/test-only/endless"))
+                .header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString("{}")).build(),
+                HttpResponse.BodyHandlers.discarding());
+        assertTrue(entered.await(20, TimeUnit.SECONDS), "the endless computation runs");
+        try {
+            app.stop();
+        } catch (RuntimeException e) {
+            // the grace period ended with the request still in flight: that is the case under test
+        }
+        // its budget is ten minutes; the stop must end it long before
+        assertTrue(left.await(10, TimeUnit.SECONDS), "the abandoned computation was cancelled through its deadline");
+    }
 }

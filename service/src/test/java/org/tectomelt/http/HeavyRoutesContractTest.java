@@ -149,6 +149,7 @@ class HeavyRoutesContractTest {
         try {
             assertProblem(TestApps.given(app).contentType(ContentType.JSON).body("{}").post("/v1/test-only/endless"),
                     503, "over-budget")
+                    .header("Retry-After", equalTo(String.valueOf(Heavy.RETRY_AFTER_SECONDS)))
                     .body("detail", containsString("100 ms"))
                     .body("detail", containsString("TECTOMELT_HEAVY_BUDGET_MS"));
             assertEquals(1, abandoned.get(), "the loop was left, not kept running");

@@ -20,7 +20,18 @@ class MetaContractTest {
                 .contentType(startsWith("application/json"))
                 .body("status", equalTo("up"))
                 .body("version", equalTo(App.VERSION))
-                .body("version", matchesPattern("\\d+\\.\\d+\\.\\d+.*"));
+                .body("version", matchesPattern("\\d+\\.\\d+\\.\\d+.*"))
+                .body("version", equalTo(BuildInfo.CURRENT.version()))
+                // the git commit of the build (a fresh clone), or "unknown" where the build had no .git
+                .body("commit", matchesPattern("[0-9a-f]{40}(-dirty)?|unknown"))
+                .body("commit", equalTo(BuildInfo.CURRENT.commitLabel()));
+    }
+
+    @Test
+    void anUnfilledBuildPlaceholderReadsAsUnknown() {
+        org.junit.jupiter.api.Assertions.assertEquals("unknown", BuildInfo.known("${git.commit.id}", "unknown"));
+        org.junit.jupiter.api.Assertions.assertEquals("unknown", BuildInfo.known("", "unknown"));
+        org.junit.jupiter.api.Assertions.assertEquals("abc123", BuildInfo.known(" abc123 ", "unknown"));
     }
 
     @Test
@@ -49,5 +60,20 @@ class MetaContractTest {
                 .header("X-Request-Id", equalTo("nb-42.sweep_7"));
         TestServer.given().header("X-Request-Id", "bad id <script>").get("/v1/health").then()
                 .header("X-Request-Id", matchesPattern("[0-9a-f-]{36}"));
+    }
+
+    @Test
+    void docsRendersTheSpecFromFilesInTheJar() {
+        String html = TestServer.given().get("/docs").then().statusCode(200)
+                .contentType(startsWith("text/html")).extract().asString();
+        org.junit.jupiter.api.Assertions.assertTrue(html.contains("src=\"/docs/ui/swagger-ui-bundle.js\""), html);
+        org.junit.jupiter.api.Assertions.assertFalse(html.contains("http://") || html.contains("https://"),
+                "no external resource: " + html);
+        TestServer.given().get("/docs/ui/swagger-ui-bundle.js").then().statusCode(200);
+        TestServer.given().get("/docs/ui/swagger-ui.css").then().statusCode(200);
+        String init = TestServer.given().get("/docs-reference.js").then().statusCode(200).extract().asString();
+        org.junit.jupiter.api.Assertions.assertTrue(init.contains("url: \"/openapi.yaml\"") && init.contains("validatorUrl: null"),
+                init);
+        TestServer.given().get("/").then().body(containsString("href=\"docs\""));
     }
 }

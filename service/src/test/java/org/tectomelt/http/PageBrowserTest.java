@@ -1196,4 +1196,22 @@ class PageBrowserTest {
         assertTrue(((Number) r.get("style")).intValue() > 500, "the styles are inside the file");
         assertEquals(333L, ((Number) r.get("mkWidth")).longValue());
     }
+
+    @Test
+    void theApiReferenceRendersWithoutAnyExternalRequest() {
+        browser.driver.get(TestServer.baseUri() + "/docs");
+        WebElement title = browser.waitFor(By.cssSelector(".swagger-ui .info .title"));
+        assertTrue(title.getText().contains("tectomelt"), title.getText());
+        browser.waitFor(By.cssSelector(".swagger-ui .opblock-tag"));
+        assertFalse(browser.driver.findElements(By.cssSelector(".swagger-ui .opblock")).isEmpty(), "operations listed");
+        @SuppressWarnings("unchecked")
+        List<String> loaded = (List<String>) ((org.openqa.selenium.JavascriptExecutor) browser.driver).executeScript(
+                "return performance.getEntriesByType('resource').map(e => e.name)"
+                        + ".concat(performance.getEntriesByType('navigation').map(e => e.name));");
+        assertFalse(loaded.isEmpty());
+        for (String url : loaded) {
+            assertTrue(url.startsWith(TestServer.baseUri() + "/"), "only this service was asked: " + url);
+        }
+        browser.screenshot("docs");
+    }
 }

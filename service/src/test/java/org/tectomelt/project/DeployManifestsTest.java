@@ -104,7 +104,7 @@ class DeployManifestsTest {
 
         // every variable is one the service (or the JVM) reads
         Set<String> known = variablesTheServiceReads();
-        known.add("JAVA_TOOL_OPTIONS");
+        known.add("JAVA_OPTS");
         for (String name : env.keySet()) {
             assertTrue(known.contains(name), name + " is not read by Config, RunsConfig or Tokens: " + known);
         }
@@ -149,7 +149,7 @@ class DeployManifestsTest {
         }
 
         // the heap fits the memory request; the grace period covers the service's own
-        Matcher xmx = Pattern.compile("-Xmx(\\d+)m").matcher(env.get("JAVA_TOOL_OPTIONS"));
+        Matcher xmx = Pattern.compile("-Xmx(\\d+)m").matcher(env.get("JAVA_OPTS"));
         assertTrue(xmx.find());
         long heap = Long.parseLong(xmx.group(1));
         long request = mebibytes(container.path("resources").path("requests").path("memory").asText());

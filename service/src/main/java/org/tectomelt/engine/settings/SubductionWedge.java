@@ -70,8 +70,15 @@ public final class SubductionWedge {
     public static final String SLOPE_METHOD = "slope of melt with water: one-sided three-point difference of "
             + "the model's melt fraction in bulk water, step 1e-4 times the bulk water, taken forward (as water is added) "
             + "unless a regime change (onset, saturation, cpx exhaustion, complete melting) lies within two "
-            + "steps ahead, then backward; 0 once the melt is water-saturated; null at zero water when the rock "
+            + "steps ahead, then backward; 0 once the melt is water-saturated; null at zero water (below 1e-10 wt%) when the rock "
             + "already melts dry, where the Katz et al. (2003) lowering K*X^0.75 makes it unbounded";
+
+    /**
+     * Bulk water (mass fraction, 10⁻¹⁰ wt%) below which the slope of melt with water is taken as at
+     * zero water: the difference step 10⁻⁴ × X would otherwise underflow toward subnormal numbers
+     * and the quotient would lose every digit (or overflow).
+     */
+    public static final double MIN_RESOLVED_WATER = 1e-12;
 
     /** Bulk water below which a bracket is considered closed (mass fraction). */
     private static final double WATER_ACCURACY = 1e-15;
@@ -189,7 +196,7 @@ public final class SubductionWedge {
      */
     public OptionalDouble meltPerWater(double p, double t, double bulkWater) {
         MeltState here = lithology.melt(p, t, bulkWater);
-        if (bulkWater <= 0) {
+        if (bulkWater < MIN_RESOLVED_WATER) {
             return here.meltFraction() > 0 ? OptionalDouble.empty() : OptionalDouble.of(0.0);
         }
         if (here.waterSaturated()) {
@@ -287,9 +294,16 @@ public final class SubductionWedge {
                     + "at a small positive water content");
         }
 
+        boolean meltsDry = onset.isPresent() && onset.getAsDouble() == 0.0;
         Optional<ArcMagmaBudget> budget = Optional.empty();
         if (waterFlux.isPresent()) {
-            if (state.meltFraction() > 0 && state.waterInMelt() > 0) {
+            if (meltsDry) {
+                // the melt is not made by the slab's water, so the flux does not set its amount:
+                // dividing the flux by a vanishing melt water content would give any number at all
+                warnings.add("no magma budget: the wedge is at or above its dry solidus and melts without added "
+                        + "water (by decompression or heating, not flux melting), so the slab's water flux does "
+                        + "not set how much melt forms");
+            } else if (state.meltFraction() > 0 && state.waterInMelt() > 0) {
                 budget = Optional.of(new ArcMagmaBudget(waterFlux.getAsDouble(), state.waterInMelt(), meltDensity()));
             } else {
                 warnings.add(state.meltFraction() > 0
@@ -298,8 +312,33 @@ public final class SubductionWedge {
                         : "no magma budget: no melt forms at this state to carry the slab's water away");
             }
         }
-        return new WedgeMelting(p, t, bulkWater, state, state.drySolidus() - state.solidus(), tsat, onset,
-                saturation, freeFluid, slope, curve, budget, warnings);
+        WedgeMelting result = new WedgeMelting(p, t, bulkWater, state, state.drySolidus() - state.solidus(), tsat,
+                onset, saturation, freeFluid, slope, curve, budget, warnings);
+        requireFinite(result);
+        return result;
+    }
+
+    /**
+     * Refuses a result holding a non-finite number, naming the inputs, so that a corner of the
+     * model never reaches a caller as NaN or Infinity.
+     */
+    private static void requireFinite(WedgeMelting m) {
+        double[] values = {m.state().meltFraction(), m.state().waterInMelt(), m.state().solidus(),
+                m.state().drySolidus(), m.solidusDepression(), m.saturatedSolidus(), m.freeFluid(),
+                m.waterForOnset().orElse(0), m.waterForSaturation().orElse(0), m.meltPerWater().orElse(0),
+                m.budget().map(ArcMagmaBudget::meltVolumeRate).orElse(0.0)};
+        boolean finite = true;
+        for (double v : values) {
+            finite &= Double.isFinite(v);
+        }
+        for (WedgeMelting.CurvePoint c : m.waterCurve()) {
+            finite &= Double.isFinite(c.meltFraction());
+        }
+        if (!finite) {
+            throw new EngineException(String.format(Locale.ROOT, "the wedge model gives no finite result at "
+                    + "%.6g GPa, %.6g °C and %.6g wt%% bulk water; move these inputs away from the edge of their "
+                    + "ranges", gpa(m.pressure()), c(m.temperature()), Units.fractionToWtPct(m.bulkWater())));
+        }
     }
 
     /** A code for the piecewise regime of the melt-fraction law, so differences never straddle a kink. */

@@ -195,4 +195,27 @@ class SubductionWedgeTest {
         assertThrows(EngineException.class,
                 () -> wedge.evaluate(3 * GPA, 1500 + C, 0.06, grid(0.05), OptionalDouble.empty()));
     }
+
+    @Test
+    void aWedgeAboveItsDrySolidusMeltsWithoutAddedWaterAndGetsNoFluxBudget() {
+        // 1 GPa, 1300 °C is above the dry solidus of Katz et al. (2003), Table 2 (about 1213 °C at 1 GPa)
+        double p = 1 * GPA;
+        assertTrue(1300 + C > katz.drySolidus(p));
+        WedgeMelting m = wedge.evaluate(p, 1300 + C, 1e-6, grid(0.01), OptionalDouble.of(1e4 / 3.15576e7));
+        assertEquals(0.0, m.waterForOnset().orElseThrow(), 0.0);
+        assertTrue(m.budget().isEmpty(), "the slab's water does not make this melt: no budget from the flux");
+        assertTrue(m.warnings().stream().anyMatch(w -> w.contains("melts without added water")), m.warnings()::toString);
+    }
+
+    @Test
+    void vanishingWaterAboveTheDrySolidusGivesFiniteNumbersOnly() {
+        // the attack that once gave a 500: almost no pressure, 1300 °C, 1e-310 wt% water (a subnormal)
+        double p = 3.2e-2;   // 1e-9 km of mantle: about 0.03 Pa
+        for (double water : new double[] {1e-312, Double.MIN_VALUE, 1e-20, 1e-13}) {
+            WedgeMelting m = wedge.evaluate(p, 1300 + C, water, grid(0.01), OptionalDouble.of(1e6 / 3.15576e7));
+            assertTrue(Double.isFinite(m.state().meltFraction()) && m.state().meltFraction() > 0);
+            assertTrue(m.meltPerWater().isEmpty() || Double.isFinite(m.meltPerWater().getAsDouble()), "water " + water);
+            assertTrue(m.budget().isEmpty(), "no budget divides the flux by a vanishing melt water content");
+        }
+    }
 }

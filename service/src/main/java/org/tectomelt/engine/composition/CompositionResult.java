@@ -1,0 +1,219 @@
+package org.tectomelt.engine.composition;
+
+import java.util.List;
+import org.tectomelt.engine.EngineException;
+
+/**
+ * Trace elements along a melting column: at each output point (from the onset upwards) the melt
+ * fraction made so far, the garnet share of the aluminous phase, and for each element (in the order of
+ * {@link ColumnComposition#elements()}) the concentration (ppm) in the instantaneous melt, in all the
+ * melt made so far (accumulated: extracted and retained) and in the solid residue. Immutable.
+ */
+public final class CompositionResult {
+
+    private final ColumnComposition model;
+    private final double[] depth;
+    private final double[] pressure;
+    private final double[] meltFraction;
+    private final double[] garnetFraction;
+    private final double[] cpx;
+    private final int ne;
+    private final double[] instantaneous;
+    private final double[] accumulated;
+    private final double[] residue;
+
+    CompositionResult(ColumnComposition model, int ne, double[] depth, double[] pressure, double[] meltFraction,
+                      double[] garnetFraction, double[] cpx, double[] instantaneous, double[] accumulated,
+                      double[] residue) {
+        this.model = model;
+        this.ne = ne;
+        this.depth = depth;
+        this.pressure = pressure;
+        this.meltFraction = meltFraction;
+        this.garnetFraction = garnetFraction;
+        this.cpx = cpx;
+        this.instantaneous = instantaneous;
+        this.accumulated = accumulated;
+        this.residue = residue;
+    }
+
+    /** The model that produced this. */
+    public ColumnComposition model() {
+        return model;
+    }
+
+    /** The elements, in the order of the per-element indices. */
+    public List<Element> elements() {
+        return model.elements();
+    }
+
+    /** Number of points (0 when the column does not melt). */
+    public int size() {
+        return depth.length;
+    }
+
+    /** Depth of point {@code i} (m). */
+    public double depth(int i) {
+        return depth[i];
+    }
+
+    /** Pressure of point {@code i} (Pa). */
+    public double pressure(int i) {
+        return pressure[i];
+    }
+
+    /** Melt fraction made by point {@code i} (the running maximum of the column's F). */
+    public double meltFraction(int i) {
+        return meltFraction[i];
+    }
+
+    /** Garnet share of the aluminous phase at point {@code i}, 0 (spinel field) to 1 (garnet field). */
+    public double garnetFraction(int i) {
+        return garnetFraction[i];
+    }
+
+    /** Mass fraction of clinopyroxene in the solid residue at point {@code i} (0 once exhausted). */
+    public double cpxInResidue(int i) {
+        double solid = 1 - meltFraction[i];
+        return cpx[i] / solid;
+    }
+
+    /** Instantaneous melt leaving (or in equilibrium with) the residue at point {@code i} (ppm). */
+    public double instantaneousMelt(int i, int element) {
+        return instantaneous[i * ne + element];
+    }
+
+    /** All melt made up to point {@code i}, extracted and retained (ppm); the first drop at F = 0. */
+    public double accumulatedMelt(int i, int element) {
+        return accumulated[i * ne + element];
+    }
+
+    /** Solid residue at point {@code i} (ppm). */
+    public double residue(int i, int element) {
+        return residue[i * ne + element];
+    }
+
+    /** Index of {@code e} among the elements. */
+    public int indexOf(Element e) {
+        int i = model.elements().indexOf(e);
+        if (i < 0) {
+            throw new EngineException(e.symbol() + " was not computed");
+        }
+        return i;
+    }
+
+    /**
+     * The pooled melt and residue of the chosen regime.
+     *
+     * @param mantleFlowPassive true for a passive, triangular regime (a ridge, a rift), false for an
+     *                          active column (a plume)
+     */
+    public Pooled pooled(boolean mantleFlowPassive) {
+        return mantleFlowPassive ? pooledPassive(Double.POSITIVE_INFINITY) : pooledActive();
+    }
+
+    /**
+     * Pooled melt of an active column: every parcel rises through the whole column, so the pooled melt
+     * is the accumulated melt at the top and the residue that of the top.
+     */
+    public Pooled pooledActive() {
+        requireMelt();
+        int top = size() - 1;
+        double[] melt = new double[ne];
+        double[] res = new double[ne];
+        System.arraycopy(accumulated, top * ne, melt, 0, ne);
+        System.arraycopy(residue, top * ne, res, 0, ne);
+        return new Pooled(meltFraction[top], melt, res);
+    }
+
+    /**
+     * Pooled melt of a passive, triangular melting regime beneath a spreading centre (Plank &amp; Langmuir
+     * 1992): streamlines turn away at every level between the top and the onset with equal mantle flux,
+     * each having melted to the F of its turning level, so that
+     * <pre>  C̄_pool = ∫ F·C̄_L dz / ∫ F dz,   C̄_res = ∫ (1 − F)·C_s dz / ∫ (1 − F) dz,   F̄ = ∫ F dz / H</pre>
+     * over the melting height H (equivalently each increment of melt weighted by the share of
+     * streamlines reaching its level). Trapezoidal in depth over the output points; mass balance
+     * F̄·C̄_pool + (1 − F̄)·C̄_res = C₀ holds exactly, whatever the spacing.
+     *
+     * @param maxDepth streamlines turning deeper than this (m) are left out (for a rift: the melt below
+     *                 the unstretched lithosphere was made before stretching); +∞ for all
+     */
+    public Pooled pooledPassive(double maxDepth) {
+        requireMelt();
+        double[] fc = new double[ne];
+        double[] rc = new double[ne];
+        double fInt = 0;
+        double height = 0;
+        for (int i = 0; i + 1 < size(); i++) {
+            double zDeep = depth[i];
+            double zUp = depth[i + 1];
+            if (zUp >= maxDepth) {
+                continue;
+            }
+            double t = 1.0;
+            if (zDeep > maxDepth) {
+                t = (maxDepth - zUp) / (zDeep - zUp);
+            }
+            double dz = (zDeep - zUp) * t;
+            double fDeep = meltFraction[i + 1] + t * (meltFraction[i] - meltFraction[i + 1]);
+            double fUp = meltFraction[i + 1];
+            fInt += 0.5 * dz * (fDeep + fUp);
+            height += dz;
+            for (int e = 0; e < ne; e++) {
+                // interpolate the products, so that F·C̄_L + (1 − F)·C_s = C₀ holds at the cut as well
+                int deep = i * ne + e;
+                int up = deep + ne;
+                double meltDeep = meltFraction[i] * accumulated[deep];
+                double meltUp = fUp * accumulated[up];
+                double resDeep = (1 - meltFraction[i]) * residue[deep];
+                double resUp = (1 - fUp) * residue[up];
+                fc[e] += 0.5 * dz * (meltUp + t * (meltDeep - meltUp) + meltUp);
+                rc[e] += 0.5 * dz * (resUp + t * (resDeep - resUp) + resUp);
+            }
+        }
+        if (!(fInt > 0)) {
+            throw new EngineException("no melt is made above the pooling depth");
+        }
+        for (int e = 0; e < ne; e++) {
+            fc[e] /= fInt;
+            rc[e] /= height - fInt;
+        }
+        return new Pooled(fInt / height, fc, rc);
+    }
+
+    private void requireMelt() {
+        if (size() < 2 || meltFraction[size() - 1] <= 0) {
+            throw new EngineException("the column makes no melt, so there is no pooled melt");
+        }
+    }
+
+    /**
+     * A pooled melt and its residue.
+     */
+    public static final class Pooled {
+        private final double meanMeltFraction;
+        private final double[] melt;
+        private final double[] residue;
+
+        Pooled(double meanMeltFraction, double[] melt, double[] residue) {
+            this.meanMeltFraction = meanMeltFraction;
+            this.melt = melt;
+            this.residue = residue;
+        }
+
+        /** Mean melt fraction of the regime (F̄, the mass of melt per mass of mantle melted). */
+        public double meanMeltFraction() {
+            return meanMeltFraction;
+        }
+
+        /** Pooled melt (ppm) of element index {@code e}. */
+        public double melt(int e) {
+            return melt[e];
+        }
+
+        /** Pooled residue (ppm) of element index {@code e}. */
+        public double residue(int e) {
+            return residue[e];
+        }
+    }
+}
