@@ -2,6 +2,7 @@
 // SVG plots, downloads and a "copy as curl" command. Everything is served by this service.
 
 import { mountPlot, wrapText, PALETTE, OVERLAY_COLOURS, breakJumps, dataDomain, niceScale, saveBlob, shortCitation, interpolate } from "./plot.js";
+import { attachSweep, initRuns, isRunsHash, routeRuns } from "./runs.js";
 
 const TOKEN_KEY = "tectomelt.token";
 const MELT_FRACTION = "/v1/melt-fraction";
@@ -156,7 +157,15 @@ async function init() {
   const first = config.tools.find((t) => t.id === wanted)
     || config.tools.find((t) => state.paths.has(t.endpoint))
     || config.tools[0];
+  if (state.paths.has("/v1/runs")) {
+    initRuns({ apiUrl, headers });
+  }
   selectTool(first.id);
+  // the Runs view (runs.js) owns #/runs and #/runs/{id}: a run's link opens its page
+  if (isRunsHash(wanted)) {
+    history.replaceState(null, "", "#" + wanted);
+    routeRuns();
+  }
   window.addEventListener("hashchange", () => {
     const id = location.hash.replace(/^#/, "");
     if (state.config.tools.some((t) => t.id === id) && (!state.tool || state.tool.id !== id)) {
@@ -351,6 +360,9 @@ function renderForm(tool) {
   form.addEventListener("input", () => markStale());
   box.replaceChildren(form);
   applyVisibility(tool, form);
+  if (available && state.paths.has("/v1/runs")) {
+    attachSweep(tool, form, () => collect(tool, form));
+  }
 }
 
 function controlOf(tool, form, i) {

@@ -1198,6 +1198,71 @@ class PageBrowserTest {
     }
 
     @Test
+    void aSweepStartedFromTheRidgeFormHasItsOwnPageWithTableCsvAndOnePlotPerOutput() throws Exception {
+        browser.open(page("ridge"));
+        browser.fill("potentialTemperatureC", "1340");
+        browser.fill("fullSpreadingRateMmPerYr", "48");
+        WebElement box = browser.driver.findElement(By.id("sweep-box"));
+        box.findElement(By.tagName("summary")).click();
+        new org.openqa.selenium.support.ui.Select(box.findElement(By.name("sweep1-field"))).selectByValue("potentialTemperatureC");
+        setValue(box.findElement(By.name("sweep1-from")), "1300");
+        setValue(box.findElement(By.name("sweep1-to")), "1400");
+        setValue(box.findElement(By.name("sweep1-steps")), "5");
+        new org.openqa.selenium.support.ui.Select(box.findElement(By.name("sweep2-field"))).selectByValue("bulkWaterWtPct");
+        setValue(box.findElement(By.name("sweep2-from")), "0");
+        setValue(box.findElement(By.name("sweep2-to")), "0.02");
+        setValue(box.findElement(By.name("sweep2-steps")), "2");
+        setValue(box.findElement(By.name("sweep-label")), "Varrow Rise, Tp and water");
+        box.findElement(By.id("sweep-start")).click();
+
+        org.openqa.selenium.support.ui.WebDriverWait wait = new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(60));
+        // the run's page redraws itself every second while the run is active
+        wait.ignoring(org.openqa.selenium.StaleElementReferenceException.class);
+        wait.until(d -> d.getCurrentUrl().contains("#/runs/"));
+        String id = browser.driver.getCurrentUrl().replaceAll(".*#/runs/", "");
+        wait.until(d -> "succeeded".equals(d.findElement(By.id("run-status")).getAttribute("data-status")));
+        List<WebElement> rows = browser.driver.findElements(By.cssSelector("#run-results tbody tr"));
+        assertEquals(10, rows.size(), "5 temperatures × 2 water contents");
+        // each row is what the ridge route answers for that point (the same engine path)
+        JsonNode direct = JSON.readTree(TestServer.json("{\"potentialTemperatureC\": 1325, \"bulkWaterWtPct\": 0.02,"
+                + " \"fullSpreadingRateMmPerYr\": 48}").post("/v1/settings/mid-ocean-ridge").asString());
+        WebElement third = browser.driver.findElement(By.cssSelector("#run-results tbody tr[data-index='3']"));
+        assertEquals("1325", third.findElement(By.cssSelector("td[data-col='potentialTemperatureC']")).getText());
+        assertEquals(direct.get("crustalThicknessKm").asDouble(),
+                Double.parseDouble(third.findElement(By.cssSelector("td[data-col='crustalThicknessKm']")).getText()),
+                0.0051, "shown to two decimals");
+        // one plot per output, one line per water content
+        List<WebElement> plots = browser.driver.findElements(By.cssSelector("#run-plots svg.plot"));
+        assertTrue(plots.size() >= 2, "crust and melt production at least: " + plots.size());
+        assertEquals(2, plots.get(0).findElements(By.cssSelector("path.curve")).size());
+        assertTrue(plots.get(0).getText().contains("bulkWaterWtPct = 0.020"), plots.get(0).getText());
+        browser.screenshot("run");
+
+        // the link a colleague opens shows the same run, and the list shows it with its progress
+        browser.open(TestServer.baseUri() + "/#/runs/" + id);
+        wait.until(d -> d.findElements(By.cssSelector("#run-results tbody tr")).size() == 10);
+        assertFalse(browser.driver.findElement(By.id("workbench")).isDisplayed(), "the run's page replaces the forms");
+        assertTrue(text("#runs-view h2").contains("Varrow Rise"), text("#runs-view h2"));
+        browser.driver.findElement(By.id("run-csv")).click();
+        java.nio.file.Path csv = browser.downloaded("run-" + id + ".csv");
+        List<String> lines = java.nio.file.Files.readAllLines(csv);
+        assertEquals(11, lines.size());
+        assertTrue(lines.get(0).startsWith("index,potentialTemperatureC,bulkWaterWtPct,crustalThicknessKm"), lines.get(0));
+        browser.open(TestServer.baseUri() + "/#/runs");
+        WebElement listed = wait.until(d -> d.findElement(By.cssSelector("#runs-table tr[data-run='" + id + "']")));
+        assertEquals("succeeded", listed.getAttribute("data-status"));
+        assertEquals("10", listed.findElement(By.tagName("progress")).getAttribute("value"));
+        // and a tool's link brings the forms back
+        browser.open(page("ridge"));
+        wait.until(d -> d.findElement(By.id("workbench")).isDisplayed() && !d.findElement(By.id("runs-view")).isDisplayed());
+    }
+
+    private static void setValue(WebElement input, String value) {
+        input.clear();
+        input.sendKeys(value);
+    }
+
+    @Test
     void theApiReferenceRendersWithoutAnyExternalRequest() {
         browser.driver.get(TestServer.baseUri() + "/docs");
         WebElement title = browser.waitFor(By.cssSelector(".swagger-ui .info .title"));
