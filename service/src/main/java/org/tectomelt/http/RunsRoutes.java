@@ -12,6 +12,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.TreeMap;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
 import org.tectomelt.operations.Operation;
@@ -21,6 +22,8 @@ import org.tectomelt.runs.RunRecord;
 import org.tectomelt.runs.RunService;
 import org.tectomelt.runs.RunStatus;
 import org.tectomelt.runs.RunStore;
+import org.tectomelt.runs.study.StudyRequest;
+import org.tectomelt.runs.study.StudyRun;
 import org.tectomelt.runs.sweep.Sweep;
 
 /**
@@ -47,7 +50,7 @@ final class RunsRoutes {
                 Route.livePost("/v1/runs", ctx -> submit(ctx, invoker)),
                 Route.liveGet("/v1/runs", RunsRoutes::list),
                 Route.liveGet("/v1/runs/{id}", ctx -> ctx.contentType(Responses.JSON).result(Json.write(view(found(ctx))))),
-                Route.liveGet("/v1/runs/{id}/results", RunsRoutes::results),
+                Route.liveGet("/v1/runs/{id}/results", ctx -> results(ctx, invoker)),
                 Route.delete("/v1/runs/{id}", RunsRoutes::delete));
     }
 
@@ -67,7 +70,7 @@ final class RunsRoutes {
                     Map.of("Retry-After", "30"));
         });
         RunRecord r = runs.submit(new NewRun(Sweep.KIND, sweep.operation(), owner, sweep.label(), sweep.definition(),
-                provenance(invoker, sweep), sweep.size()));
+                provenance(invoker, sweep), sweep.points()));
         ctx.status(202).header("Location", "/v1/runs/" + r.id()).contentType(Responses.JSON).result(Json.write(view(r)));
     }
 
@@ -109,6 +112,9 @@ final class RunsRoutes {
         o.set("request", d.path("request"));
         o.set("sweep", d.path("sweep"));
         o.set("outputs", d.path("outputs"));
+        if (d.has("study")) {
+            o.set("study", d.get("study")); // uncertainty (with its seed), solve, observed
+        }
         o.put("createdAt", r.createdAt().toString());
         if (r.startedAt() != null) {
             o.put("startedAt", r.startedAt().toString());
@@ -207,7 +213,7 @@ final class RunsRoutes {
         return Format.JSON;
     }
 
-    private static void results(Context ctx) throws IOException {
+    private static void results(Context ctx, Invoker invoker) throws IOException {
         RunRecord r = found(ctx);
         Format format = format(ctx);
         RunService runs = runs(ctx);
@@ -225,6 +231,10 @@ final class RunsRoutes {
         });
         if (format == Format.CSV) {
             ctx.header("Content-Disposition", "attachment; filename=\"run-" + r.id() + ".csv\"");
+        }
+        if (d.has("study")) {
+            studyResults(ctx, r, format, invoker);
+            return;
         }
         OutputStream out = ctx.outputStream();
         StringBuilder sb = new StringBuilder(64 * 1024);
@@ -261,6 +271,89 @@ final class RunsRoutes {
         if (format == Format.JSON) {
             out.write(']');
         }
+        out.flush();
+    }
+
+    /**
+     * The results of a run whose sweep points carry a study: one row per sweep point with its
+     * assembled study once all its blocks are computed, {@code pending} (blocks done of total) before,
+     * or the problem of a block that failed.
+     */
+    private static void studyResults(Context ctx, RunRecord r, Format format, Invoker invoker) throws IOException {
+        Sweep sweep = Sweep.fromDefinition(r.definition(), r.label());
+        Operation<?, ?> op = invoker.operation(sweep.operation());
+        StudyRun study = new StudyRun(invoker, op, StudyRequest.parse(sweep.study(), op, invoker), sweep.outputs());
+        int blocks = sweep.blocks();
+        Map<Integer, List<PointResult>> bySweepPoint = new TreeMap<>();
+        int last = -1;
+        while (true) {
+            int before = last;
+            last = runs(ctx).points(r.id(), last, PAGE,
+                    p -> bySweepPoint.computeIfAbsent(p.index() / blocks, k -> new ArrayList<>()).add(p));
+            if (last == before) {
+                break;
+            }
+        }
+        List<String> inputs = new ArrayList<>(sweep.axes().keySet());
+        StringBuilder sb = new StringBuilder(64 * 1024);
+        List<String> columns = study.csvColumns();
+        switch (format) {
+            case JSON -> sb.append('[');
+            case CSV -> {
+                List<String> header = new ArrayList<>(List.of("index"));
+                header.addAll(inputs);
+                header.addAll(columns);
+                header.addAll(List.of("pending", "problem"));
+                sb.append(String.join(",", header)).append("\r\n");
+            }
+            case NDJSON -> { }
+        }
+        boolean first = true;
+        for (Map.Entry<Integer, List<PointResult>> e : bySweepPoint.entrySet()) {
+            ObjectNode row = Json.mapper().createObjectNode();
+            row.put("index", e.getKey());
+            ObjectNode in = row.putObject("inputs");
+            sweep.inputs(e.getKey()).forEach(in::put);
+            List<PointResult> parts = e.getValue();
+            PointResult failed = parts.stream().filter(p -> !p.ok()).findFirst().orElse(null);
+            ObjectNode result = null;
+            if (failed != null) {
+                row.set("problem", tree(failed.problem()));
+            } else if (parts.size() < blocks) {
+                row.putObject("pending").put("done", parts.size()).put("total", blocks);
+            } else {
+                result = study.assemble(parts.stream().map(PointResult::outputs).toList());
+                row.set("study", result);
+            }
+            switch (format) {
+                case JSON -> sb.append(first ? "" : ",").append(row);
+                case NDJSON -> sb.append(row).append('\n');
+                case CSV -> {
+                    sb.append(e.getKey());
+                    for (String f : inputs) {
+                        sb.append(',');
+                        number(in.get(f), sb);
+                    }
+                    List<JsonNode> values = result == null ? null : study.csvValues(result);
+                    for (int i = 0; i < columns.size(); i++) {
+                        sb.append(',');
+                        number(values == null ? null : values.get(i), sb);
+                    }
+                    sb.append(',').append(row.has("pending") ? parts.size() + "/" + blocks : "").append(',');
+                    if (failed != null) {
+                        sb.append('"').append(row.path("problem").path("detail").asText("").replace("\"", "\"\""))
+                                .append('"');
+                    }
+                    sb.append("\r\n");
+                }
+            }
+            first = false;
+        }
+        if (format == Format.JSON) {
+            sb.append(']');
+        }
+        OutputStream out = ctx.outputStream();
+        out.write(sb.toString().getBytes(StandardCharsets.UTF_8));
         out.flush();
     }
 

@@ -53,6 +53,33 @@ public final class MonteCarlo {
     }
 
     /**
+     * The samples [from, from + n) of a study, as computed: per sample its outputs (null where
+     * absent, failed or not computed), its failure reason and the field whose draw left its range.
+     * A study may be computed in blocks anywhere (several threads, several instances) and
+     * summarised from them ({@link #summarise}) with the same result as {@link #run}.
+     *
+     * @param from       index of the first sample
+     * @param values     per output, per sample of the block: the value, or null
+     * @param failures   per sample: why it failed in the model, or null
+     * @param outOfRange per sample: the field whose draw left its range (not computed), or null
+     */
+    public record Block(int from, Map<String, List<Double>> values, List<String> failures, List<String> outOfRange) {
+        /** Copies (lists may hold nulls). */
+        public Block {
+            Map<String, List<Double>> v = new LinkedHashMap<>();
+            values.forEach((k, l) -> v.put(k, Collections.unmodifiableList(new ArrayList<>(l))));
+            values = Collections.unmodifiableMap(v);
+            failures = Collections.unmodifiableList(new ArrayList<>(failures));
+            outOfRange = Collections.unmodifiableList(new ArrayList<>(outOfRange));
+        }
+
+        /** Samples in the block. */
+        public int size() {
+            return failures.size();
+        }
+    }
+
+    /**
      * Runs a forward study.
      *
      * @param model    the computation
@@ -65,32 +92,90 @@ public final class MonteCarlo {
      */
     public static Result run(StudyModel model, UncertainInputs inputs, Map<String, String> outputs, int samples,
                              long seed, Workers workers, Deadline deadline) {
-        Objects.requireNonNull(model, "model");
         if (samples < 1) {
-            throw new StudyException("samples", "must be at least 1, got " + samples);
+            throw new StudyException("uncertainty.samples", "must be at least 1, got " + samples);
         }
+        Block all = evaluate(model, inputs, List.copyOf(outputs.keySet()), seed, 0, samples, workers, deadline);
+        return summarise(seed, outputs, List.of(all));
+    }
+
+    /**
+     * Computes the samples [from, to) of a study.
+     *
+     * @param model    the computation
+     * @param inputs   the uncertain inputs
+     * @param outputs  output names to keep
+     * @param seed     seed of the draws
+     * @param from     first sample index
+     * @param to       one past the last sample index
+     * @param workers  where to compute
+     * @param deadline budget, polled before each sample
+     */
+    public static Block evaluate(StudyModel model, UncertainInputs inputs, List<String> outputs, long seed, int from,
+                                 int to, Workers workers, Deadline deadline) {
+        Objects.requireNonNull(model, "model");
         if (outputs.isEmpty()) {
             throw new StudyException("outputs", "name at least one output");
+        }
+        int n = to - from;
+        Double[][] values = new Double[outputs.size()][n];
+        String[] outside = new String[n];
+        String[] failure = new String[n];
+        workers.forEach(n, i -> {
+            UncertainInputs.Draw draw = inputs.draw(seed, from + i);
+            if (draw.outOfRange() != null) {
+                outside[i] = draw.outOfRange();
+                return;
+            }
+            Evaluation e = Evaluation.of(model, draw.values(), outputs);
+            failure[i] = e.failure();
+            for (int k = 0; k < outputs.size(); k++) {
+                double v = e.values()[k];
+                values[k][i] = Double.isNaN(v) ? null : v;
+            }
+        }, deadline);
+        Map<String, List<Double>> byOutput = new LinkedHashMap<>();
+        for (int k = 0; k < outputs.size(); k++) {
+            byOutput.put(outputs.get(k), Arrays.asList(values[k]));
+        }
+        return new Block(from, byOutput, Arrays.asList(failure), Arrays.asList(outside));
+    }
+
+    /**
+     * Summarises a study from its blocks, which must cover the samples 0, 1, ..., n − 1 without gap
+     * (in any order).
+     *
+     * @param seed    the study's seed (reported)
+     * @param outputs unit by output name, in the order to report
+     * @param blocks  the computed blocks
+     */
+    public static Result summarise(long seed, Map<String, String> outputs, List<Block> blocks) {
+        List<Block> sorted = new ArrayList<>(blocks);
+        sorted.sort(java.util.Comparator.comparingInt(Block::from));
+        int samples = 0;
+        for (Block b : sorted) {
+            if (b.from() != samples) {
+                throw new IllegalArgumentException("blocks must cover the samples without gap: expected one from "
+                        + samples + ", got one from " + b.from());
+            }
+            samples += b.size();
         }
         List<String> names = new ArrayList<>(outputs.keySet());
         double[][] values = new double[names.size()][samples];
         String[] outside = new String[samples];
         String[] failure = new String[samples];
-        workers.forEach(samples, i -> {
-            UncertainInputs.Draw draw = inputs.draw(seed, i);
-            if (draw.outOfRange() != null) {
-                outside[i] = draw.outOfRange();
-                for (double[] v : values) {
-                    v[i] = Double.NaN;
+        for (Block b : sorted) {
+            for (int i = 0; i < b.size(); i++) {
+                int at = b.from() + i;
+                outside[at] = b.outOfRange().get(i);
+                failure[at] = b.failures().get(i);
+                for (int k = 0; k < names.size(); k++) {
+                    List<Double> col = b.values().get(names.get(k));
+                    Double v = col == null ? null : col.get(i);
+                    values[k][at] = v == null ? Double.NaN : v;
                 }
-                return;
             }
-            Evaluation e = Evaluation.of(model, draw.values(), names);
-            failure[i] = e.failure();
-            for (int k = 0; k < names.size(); k++) {
-                values[k][i] = e.values()[k];
-            }
-        }, deadline);
+        }
         return summarise(seed, samples, outputs, names, values, outside, failure);
     }
 

@@ -162,79 +162,129 @@ public final class PosteriorInversion {
     }
 
     /**
+     * One grid point of a posterior, as computed: the log of the nuisance-averaged likelihood, the
+     * mean of each observed output over the draws, and the failures. A posterior may be computed
+     * grid point by grid point anywhere and assembled from them ({@link #assemble}) with the same
+     * result as {@link #run}.
+     *
+     * @param index         grid index
+     * @param value         the solved field's value there
+     * @param logLikelihood log of (1/m) Σ_k Π_o exp(−z²/2) over the m draws computed, or null when
+     *                      none could explain the observation (likelihood 0)
+     * @param used          draws computed there (inside their ranges, not failed)
+     * @param relation      per observed output, its mean over the draws that gave it (null when none)
+     * @param failures      reasons of the failed draws there, in draw order
+     */
+    public record GridPoint(int index, double value, Double logLikelihood, int used, Map<String, Double> relation,
+                            List<String> failures) {
+        /** Copies (relation values may be null). */
+        public GridPoint {
+            relation = Collections.unmodifiableMap(new LinkedHashMap<>(relation));
+            failures = List.copyOf(failures);
+        }
+    }
+
+    /**
      * Computes the posterior.
      *
      * @throws StudyException when the setup has problems ({@link #problems})
      */
     public static Result run(StudyModel model, Setup s, Workers workers, Deadline deadline) {
         StudyException.throwIfAny(problems(s));
+        GridPoint[] points = new GridPoint[s.gridPoints()];
+        workers.forEach(points.length, j -> points[j] = evaluate(model, s, j, deadline), deadline);
+        return assemble(s, List.of(points));
+    }
+
+    /**
+     * Computes grid point {@code j} of a posterior: the model at that value for every nuisance draw.
+     *
+     * @param deadline polled before each draw
+     */
+    public static GridPoint evaluate(StudyModel model, Setup s, int j, Deadline deadline) {
+        int n = s.draws();
+        List<String> outputs = new ArrayList<>(s.observed().keySet());
+        double theta = grid(s.min(), s.max(), s.gridPoints())[j];
+        double[] ll = new double[n];
+        int m = 0;
+        double[] sums = new double[outputs.size()];
+        int[] counts = new int[outputs.size()];
+        List<String> failures = new ArrayList<>();
+        for (int k = 0; k < n; k++) {
+            deadline.check();
+            UncertainInputs.Draw draw = s.nuisance().draw(s.seed(), k);
+            if (draw.outOfRange() != null) {
+                continue;
+            }
+            Map<String, Double> in = new LinkedHashMap<>(draw.values());
+            in.put(s.field(), theta);
+            Evaluation e = Evaluation.of(model, in, outputs);
+            if (e.failed()) {
+                failures.add(e.failure());
+                continue;
+            }
+            double l = 0;
+            for (int o = 0; o < outputs.size(); o++) {
+                double v = e.values()[o];
+                if (Double.isNaN(v)) {
+                    l = Double.NEGATIVE_INFINITY; // the observed quantity does not exist for this draw
+                } else {
+                    Observation ob = s.observed().get(outputs.get(o));
+                    double z = (ob.value() - v) / ob.sd();
+                    l -= 0.5 * z * z;
+                    sums[o] += v;
+                    counts[o]++;
+                }
+            }
+            ll[m++] = l;
+        }
+        double logL = m == 0 ? Double.NEGATIVE_INFINITY : logSumExp(ll, m) - Math.log(m);
+        Map<String, Double> relation = new LinkedHashMap<>();
+        for (int o = 0; o < outputs.size(); o++) {
+            relation.put(outputs.get(o), counts[o] == 0 ? null : sums[o] / counts[o]);
+        }
+        return new GridPoint(j, theta, logL == Double.NEGATIVE_INFINITY ? null : logL, m, relation, failures);
+    }
+
+    /**
+     * The posterior from all its grid points (in any order).
+     *
+     * @throws IllegalArgumentException when a grid point is missing
+     */
+    public static Result assemble(Setup s, List<GridPoint> points) {
         int g = s.gridPoints();
         int n = s.draws();
         List<String> outputs = new ArrayList<>(s.observed().keySet());
         double[] grid = grid(s.min(), s.max(), g);
-
-        UncertainInputs.Draw[] draws = new UncertainInputs.Draw[n];
+        GridPoint[] byIndex = new GridPoint[g];
+        for (GridPoint p : points) {
+            byIndex[p.index()] = p;
+        }
         Map<String, Integer> outOfRange = new TreeMap<>();
         for (int k = 0; k < n; k++) {
-            draws[k] = s.nuisance().draw(s.seed(), k);
-            if (draws[k].outOfRange() != null) {
-                outOfRange.merge(draws[k].outOfRange(), 1, Integer::sum);
+            String outside = s.nuisance().draw(s.seed(), k).outOfRange();
+            if (outside != null) {
+                outOfRange.merge(outside, 1, Integer::sum);
             }
         }
-        double[][] f = new double[outputs.size()][g * n];
-        String[] failure = new String[g * n];
-        workers.forEach(g * n, idx -> {
-            int j = idx / n;
-            int k = idx % n;
-            if (draws[k].outOfRange() != null) {
-                return;
-            }
-            Map<String, Double> in = new LinkedHashMap<>(draws[k].values());
-            in.put(s.field(), grid[j]);
-            Evaluation e = Evaluation.of(model, in, outputs);
-            failure[idx] = e.failure();
-            for (int o = 0; o < outputs.size(); o++) {
-                f[o][idx] = e.values()[o];
-            }
-        }, deadline);
-
-        // log of the nuisance-averaged likelihood at each grid point
         double[] logL = new double[g];
         int[] used = new int[g];
         double[][] curve = new double[outputs.size()][g];
+        FailureTally tally = new FailureTally();
         for (int j = 0; j < g; j++) {
-            double[] ll = new double[n];
-            int m = 0;
-            double[] sums = new double[outputs.size()];
-            int[] counts = new int[outputs.size()];
-            for (int k = 0; k < n; k++) {
-                int idx = j * n + k;
-                if (draws[k].outOfRange() != null || failure[idx] != null) {
-                    continue;
-                }
-                double l = 0;
-                for (int o = 0; o < outputs.size(); o++) {
-                    double v = f[o][idx];
-                    if (Double.isNaN(v)) {
-                        l = Double.NEGATIVE_INFINITY; // the observed quantity does not exist for this sample
-                    } else {
-                        Observation ob = s.observed().get(outputs.get(o));
-                        double z = (ob.value() - v) / ob.sd();
-                        l -= 0.5 * z * z;
-                        sums[o] += v;
-                        counts[o]++;
-                    }
-                }
-                ll[m++] = l;
+            GridPoint p = byIndex[j];
+            if (p == null) {
+                throw new IllegalArgumentException("grid point " + j + " of the posterior is missing");
             }
-            used[j] = m;
-            logL[j] = m == 0 ? Double.NEGATIVE_INFINITY : logSumExp(ll, m) - Math.log(m);
+            logL[j] = p.logLikelihood() == null ? Double.NEGATIVE_INFINITY : p.logLikelihood();
+            used[j] = p.used();
             for (int o = 0; o < outputs.size(); o++) {
-                curve[o][j] = counts[o] == 0 ? Double.NaN : sums[o] / counts[o];
+                Double v = p.relation().get(outputs.get(o));
+                curve[o][j] = v == null ? Double.NaN : v;
             }
+            p.failures().forEach(tally::add);
         }
 
-        FailureTally tally = FailureTally.of(failure);
         List<String> warnings = new ArrayList<>();
         Map<String, List<Double>> relation = new LinkedHashMap<>();
         Map<String, List<Double>> roots = new LinkedHashMap<>();

@@ -39,7 +39,7 @@ public final class SamplingInversion {
     private static final int MAX_EVALUATIONS = 100;
 
     /** Why a draw has no solution. */
-    enum Outcome { SOLVED, OUT_OF_RANGE, FAILED, ABOVE, BELOW, SEVERAL }
+    public enum Outcome { SOLVED, OUT_OF_RANGE, FAILED, ABOVE, BELOW, SEVERAL }
 
     private SamplingInversion() {
     }
@@ -124,7 +124,40 @@ public final class SamplingInversion {
      */
     public static Result run(StudyModel model, Setup s, Workers workers, Deadline deadline) {
         StudyException.throwIfAny(problems(s));
-        int n = s.samples();
+        return assemble(s, List.of(evaluate(model, s, 0, s.samples(), workers, deadline)));
+    }
+
+    /**
+     * The draws [from, from + n) of a sampling inversion, as computed. An inversion may be computed
+     * in blocks anywhere and assembled from them ({@link #assemble}) with the same result as
+     * {@link #run}.
+     *
+     * @param from       index of the first draw
+     * @param roots      per draw: its root, or null
+     * @param outcomes   per draw: solved, or why not
+     * @param failures   per draw: the model's failure reason, or null
+     * @param outOfRange per draw: the nuisance field whose draw left its range, or null
+     * @param examples   per draw: the numbers behind a missing root, or null
+     */
+    public record Block(int from, List<Double> roots, List<Outcome> outcomes, List<String> failures,
+                        List<String> outOfRange, List<String> examples) {
+        /** Copies (lists may hold nulls). */
+        public Block {
+            roots = Collections.unmodifiableList(new ArrayList<>(roots));
+            outcomes = List.copyOf(outcomes);
+            failures = Collections.unmodifiableList(new ArrayList<>(failures));
+            outOfRange = Collections.unmodifiableList(new ArrayList<>(outOfRange));
+            examples = Collections.unmodifiableList(new ArrayList<>(examples));
+        }
+    }
+
+    /**
+     * Solves the draws [from, to).
+     *
+     * @param deadline polled before each draw
+     */
+    public static Block evaluate(StudyModel model, Setup s, int from, int to, Workers workers, Deadline deadline) {
+        int n = to - from;
         double[] scan = PosteriorInversion.grid(s.min(), s.max(), s.scanPoints());
         // without nuisance inputs the relation is the same for every draw: scan it once
         Scan shared = s.nuisance().isEmpty() ? Scan.of(model, s, Map.of(), scan) : null;
@@ -135,13 +168,13 @@ public final class SamplingInversion {
         String[] example = new String[n];
         Arrays.fill(roots, Double.NaN);
         workers.forEach(n, k -> {
-            UncertainInputs.Draw draw = s.nuisance().draw(s.seed(), k);
+            UncertainInputs.Draw draw = s.nuisance().draw(s.seed(), from + k);
             if (draw.outOfRange() != null) {
                 outcome[k] = Outcome.OUT_OF_RANGE;
                 outside[k] = draw.outOfRange();
                 return;
             }
-            UniformRandomProvider rng = SampleRandom.forSample(s.seed(), k, SampleRandom.OBSERVATION);
+            UniformRandomProvider rng = SampleRandom.forSample(s.seed(), from + k, SampleRandom.OBSERVATION);
             double target = s.observed().value() + s.observed().sd() * ZigguratSampler.NormalizedGaussian.of(rng)
                     .sample();
             Scan sc = shared != null ? shared : Scan.of(model, s, draw.values(), scan);
@@ -176,6 +209,47 @@ public final class SamplingInversion {
                         c.lowest(), s.field(), FieldRange.num(c.xLowest()));
             }
         }, deadline);
+        List<Double> r = new ArrayList<>(n);
+        for (double x : roots) {
+            r.add(Double.isNaN(x) ? null : x);
+        }
+        return new Block(from, r, Arrays.asList(outcome), Arrays.asList(failure), Arrays.asList(outside),
+                Arrays.asList(example));
+    }
+
+    /**
+     * The result from all its blocks, which must cover the draws 0 … samples − 1 without gap.
+     *
+     * @throws IllegalArgumentException when they do not
+     */
+    public static Result assemble(Setup s, List<Block> blocks) {
+        List<Block> sorted = new ArrayList<>(blocks);
+        sorted.sort(java.util.Comparator.comparingInt(Block::from));
+        int n = s.samples();
+        double[] roots = new double[n];
+        Outcome[] outcome = new Outcome[n];
+        String[] failure = new String[n];
+        String[] outside = new String[n];
+        String[] example = new String[n];
+        int next = 0;
+        for (Block b : sorted) {
+            if (b.from() != next || next + b.outcomes().size() > n) {
+                throw new IllegalArgumentException("blocks must cover draws 0 to " + (n - 1) + " without gap");
+            }
+            for (int i = 0; i < b.outcomes().size(); i++) {
+                int k = next + i;
+                Double root = b.roots().get(i);
+                roots[k] = root == null ? Double.NaN : root;
+                outcome[k] = b.outcomes().get(i);
+                failure[k] = b.failures().get(i);
+                outside[k] = b.outOfRange().get(i);
+                example[k] = b.examples().get(i);
+            }
+            next += b.outcomes().size();
+        }
+        if (next != n) {
+            throw new IllegalArgumentException("blocks cover " + next + " of " + n + " draws");
+        }
         return summarise(s, roots, outcome, failure, outside, example);
     }
 

@@ -63,4 +63,35 @@ class ThreadReproducibilityTest {
         assertEquals(150, r.summaries().get("crustalThicknessKm").n());
         assertEquals(42, r.seed());
     }
+
+    @Test
+    void blocksComputedApartAssembleToTheSameResultAsOneRun() {
+        StudyModel model = in -> Map.of("y", Math.exp(in.get("potentialTemperatureC") / 1000)
+                + in.get("bulkWaterWtPct"));
+        Map<String, String> outputs = Map.of("y", "1");
+        MonteCarlo.Result whole = MonteCarlo.run(model, INPUTS, outputs, 300, 5, Workers.serial(), Deadline.none());
+        MonteCarlo.Result parts = MonteCarlo.summarise(5, outputs, java.util.List.of(
+                MonteCarlo.evaluate(model, INPUTS, java.util.List.of("y"), 5, 200, 300, Workers.serial(), Deadline.none()),
+                MonteCarlo.evaluate(model, INPUTS, java.util.List.of("y"), 5, 0, 120, Workers.serial(), Deadline.none()),
+                MonteCarlo.evaluate(model, INPUTS, java.util.List.of("y"), 5, 120, 200, Workers.serial(),
+                        Deadline.none())));
+        assertEquals(whole, parts);
+
+        UncertainInputs water = INPUTS.without("potentialTemperatureC");
+        PosteriorInversion.Setup ps = new PosteriorInversion.Setup("potentialTemperatureC",
+                FieldRange.closed(1000, 1800), 1300, 1400, 9, Map.of("y", new Observation(3.8, 0.05)), water, 20, 5);
+        java.util.List<PosteriorInversion.GridPoint> points = new java.util.ArrayList<>();
+        for (int j = 8; j >= 0; j--) {
+            points.add(PosteriorInversion.evaluate(model, ps, j, Deadline.none()));
+        }
+        assertEquals(PosteriorInversion.run(model, ps, Workers.serial(), Deadline.none()),
+                PosteriorInversion.assemble(ps, points));
+
+        SamplingInversion.Setup ss = new SamplingInversion.Setup("potentialTemperatureC", "°C",
+                FieldRange.closed(1000, 1800), 1250, 1450, "y", new Observation(3.8, 0.05), water, 50, 5, 8);
+        assertEquals(SamplingInversion.run(model, ss, Workers.serial(), Deadline.none()),
+                SamplingInversion.assemble(ss, java.util.List.of(
+                        SamplingInversion.evaluate(model, ss, 30, 50, Workers.serial(), Deadline.none()),
+                        SamplingInversion.evaluate(model, ss, 0, 30, Workers.serial(), Deadline.none()))));
+    }
 }

@@ -20,6 +20,9 @@ import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
 import org.tectomelt.operations.Output;
 import org.tectomelt.operations.Violation;
+import org.tectomelt.runs.study.OperationModel;
+import org.tectomelt.runs.study.StudyRequest;
+import org.tectomelt.runs.study.StudyRun;
 
 /**
  * A parameter sweep: one operation, its base request, the axes (a swept request field and its
@@ -33,16 +36,21 @@ import org.tectomelt.operations.Violation;
  * @param axes      each swept field with its values, in order
  * @param outputs   output names, in order
  * @param label     free text, or null
+ * @param study     the study parts ({@code uncertainty}, {@code solve}, {@code observed}, the seed filled
+ *                  in) when every sweep point carries a Monte Carlo study or an inversion, else null
+ * @param blocks    stored points per sweep point: 1 without a study, else the study's blocks
+ *                  ({@link StudyRun#blocks()})
  */
 public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<String, List<Double>> axes,
-                    List<String> outputs, String label) {
+                    List<String> outputs, String label, ObjectNode study, int blocks) {
 
     /** Longest label. */
     public static final int MAX_LABEL = 200;
     /** Kind of run this describes. */
     public static final String KIND = "sweep";
 
-    private static final Set<String> TOP = Set.of("operation", "request", "sweep", "outputs", "label");
+    private static final Set<String> TOP = Set.of("operation", "request", "sweep", "outputs", "label", "uncertainty",
+            "solve", "observed");
     private static final MathContext TWELVE = new MathContext(12);
 
     /** Number of points. */
@@ -52,6 +60,11 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
             n *= v.size();
         }
         return (int) n;
+    }
+
+    /** Points the run stores: every sweep point times its study's blocks. */
+    public int points() {
+        return size() * blocks;
     }
 
     /** The swept values of point {@code index}, field → value, in axis order. */
@@ -79,15 +92,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
     /** Point {@code index} on another base (the base with the spec's defaults filled in). */
     public ObjectNode pointRequest(ObjectNode base, int index) {
         ObjectNode r = base.deepCopy();
-        for (Map.Entry<String, Double> e : inputs(index).entrySet()) {
-            String[] parts = e.getKey().split("\\.");
-            ObjectNode at = r;
-            for (int i = 0; i < parts.length - 1; i++) {
-                JsonNode child = at.get(parts[i]);
-                at = child instanceof ObjectNode o ? o : at.putObject(parts[i]);
-            }
-            at.put(parts[parts.length - 1], e.getValue());
-        }
+        inputs(index).forEach((field, value) -> OperationModel.set(r, field, value));
         return r;
     }
 
@@ -104,6 +109,10 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         });
         ArrayNode o = d.putArray("outputs");
         outputs.forEach(o::add);
+        if (study != null) {
+            d.set("study", study);
+            d.put("blocks", blocks);
+        }
         return d.toString();
     }
 
@@ -125,7 +134,8 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         List<String> outputs = new ArrayList<>();
         d.path("outputs").forEach(x -> outputs.add(x.asText()));
         return new Sweep(d.path("operation").asText(), (ObjectNode) d.get("request"), (ObjectNode) d.get("sweep"),
-                axes, List.copyOf(outputs), label);
+                axes, List.copyOf(outputs), label, d.get("study") instanceof ObjectNode st ? st : null,
+                d.path("blocks").asInt(1));
     }
 
     /**
@@ -184,9 +194,21 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
                 label = labelNode.asText();
             }
         }
+        boolean withStudy = StudyRequest.FIELDS.stream().anyMatch(f -> b.get(f) != null && !b.get(f).isNull());
+        StudyRequest study = null;
+        if (withStudy) {
+            try {
+                study = StudyRequest.parse(b, op, invoker); // without a known operation: the shapes only
+            } catch (OperationException e) {
+                boolean opKnown = op != null;
+                e.violations().stream().filter(x -> opKnown || !x.field().equals("operation")).forEach(v::add);
+            }
+        }
         JsonNode sweepNode = b.get("sweep");
         Map<String, List<Double>> axes = new LinkedHashMap<>();
-        if (!(sweepNode instanceof ObjectNode sweep) || sweepNode.isEmpty()) {
+        if (withStudy && (sweepNode == null || sweepNode.isNull())) {
+            sweepNode = Json.mapper().createObjectNode(); // one study at the request itself
+        } else if (!(sweepNode instanceof ObjectNode sweep) || sweepNode.isEmpty()) {
             v.add(new Violation("sweep", "is required: an object of at least one swept field, each "
                     + "{\"values\": [...]} or {\"from\": a, \"to\": b, \"steps\": n}"));
             sweepNode = Json.mapper().createObjectNode();
@@ -208,12 +230,22 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
                 }
             }
         }
+        if (withStudy) {
+            String solved = b.path("solve").path("field").asText("");
+            for (String f : axes.keySet()) {
+                if (f.equals(solved) || b.path("uncertainty").path("inputs").has(f)) {
+                    v.add(new Violation("sweep." + f, "is " + (f.equals(solved) ? "the solved field" : "an uncertain "
+                            + "input") + " of the study: it cannot be swept too"));
+                }
+            }
+        }
         List<String> outputs = new ArrayList<>();
         outputs(op, b.get("outputs"), outputs, v);
         if (!v.isEmpty()) {
             throw new OperationException(v);
         }
-        long total = 1;
+        int blocks = study == null ? 1 : new StudyRun(invoker, op, study, outputs).blocks();
+        long total = blocks;
         for (List<Double> values : axes.values()) {
             total *= values.size();
             if (total > maxPoints) {
@@ -223,11 +255,16 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         if (total > maxPoints) {
             StringBuilder sizes = new StringBuilder();
             axes.forEach((f, vals) -> sizes.append(sizes.length() == 0 ? "" : " × ").append(vals.size()));
-            throw new OperationException("sweep", "has " + sizes + " points, more than the " + maxPoints
-                    + " a run may have (server cap TECTOMELT_MAX_RUN_POINTS)");
+            if (blocks > 1) {
+                sizes.append(sizes.length() == 0 ? "" : " × ").append(blocks).append(" study blocks");
+            }
+            throw new OperationException(axes.isEmpty() ? "uncertainty.samples" : "sweep", "has " + sizes
+                    + " points, more than the " + maxPoints + " a run may have (server cap TECTOMELT_MAX_RUN_POINTS; a "
+                    + "study stores one point per " + StudyRun.BLOCK_SAMPLES + " samples or per grid point)");
         }
-        Sweep s = new Sweep(op.name(), request, (ObjectNode) sweepNode, axes, List.copyOf(outputs), label);
-        s.checkEveryPoint(invoker, op);
+        Sweep s = new Sweep(op.name(), request, (ObjectNode) sweepNode, axes, List.copyOf(outputs), label,
+                study == null ? null : study.definition(), blocks);
+        s.checkEveryPoint(invoker, op, study == null ? Map.of() : study.representative());
         return s;
     }
 
@@ -240,7 +277,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
      * so each axis value is checked once, with the other axes at their first value (the sum of the
      * axis lengths instead of their product); otherwise every point is checked.
      */
-    private void checkEveryPoint(Invoker invoker, Operation<?, ?> op) {
+    private void checkEveryPoint(Invoker invoker, Operation<?, ?> op, Map<String, Double> studied) {
         Map<String, String> firstMessage = new LinkedHashMap<>();
         Map<String, TreeSet<Double>> offending = new LinkedHashMap<>();
         List<Integer> probes = new ArrayList<>();
@@ -259,8 +296,12 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
                 probes.add(i);
             }
         }
+        if (probes.isEmpty()) {
+            probes.add(0); // no axes (a study at the request itself): the request is the one point
+        }
         for (int i : probes) {
             ObjectNode point = pointRequest(i);
+            studied.forEach((f, x) -> OperationModel.set(point, f, x)); // a study sets these per sample
             List<Violation> vs = invoker.spec().check(op.path(), point, op.caps());
             if (vs.isEmpty()) {
                 continue;

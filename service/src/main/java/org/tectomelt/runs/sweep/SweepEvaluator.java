@@ -15,6 +15,8 @@ import org.tectomelt.operations.Violation;
 import org.tectomelt.runs.Evaluator;
 import org.tectomelt.runs.PointResult;
 import org.tectomelt.runs.RunRecord;
+import org.tectomelt.runs.study.StudyRequest;
+import org.tectomelt.runs.study.StudyRun;
 
 /**
  * Computes the points of a sweep on the operations' engine path: the point's request through
@@ -45,12 +47,32 @@ public final class SweepEvaluator implements Evaluator {
         Sweep sweep = Sweep.fromDefinition(run.definition(), run.label());
         Operation<?, ?> op = invoker.operations().named(sweep.operation()).orElseThrow(() ->
                 new IllegalArgumentException("this version has no operation '" + sweep.operation() + "'"));
+        if (sweep.study() != null) {
+            StudyRun study = new StudyRun(invoker, op, StudyRequest.parse(sweep.study(), op, invoker), sweep.outputs());
+            return index -> evaluateStudy(sweep, study, index);
+        }
         // the spec's defaults, filled once into the base request: every point was checked against
         // the spec when the run was accepted, so a point is then only bound, not checked again
         ObjectNode filled = sweep.pointRequest(0);
         boolean checked = Sweep.fieldsIndependent(invoker.spec(), op.path())
                 && invoker.spec().check(op.path(), filled, op.caps()).isEmpty();
         return index -> evaluate(sweep, op, checked ? filled : null, index);
+    }
+
+
+    /** One block of the study of a sweep point: point {@code index} is block {@code index % blocks} of it. */
+    private PointResult evaluateStudy(Sweep sweep, StudyRun study, int index) {
+        int point = index / sweep.blocks();
+        String inputs = json(sweep.inputs(point));
+        try {
+            String block = study.evaluate(sweep.pointRequest(point), index % sweep.blocks(),
+                    Deadline.after(pointBudget));
+            return new PointResult(index, inputs, block, null, null);
+        } catch (BudgetExceededException e) {
+            return problem(index, inputs, 503, "over-budget", "Computation budget exceeded",
+                    e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS per stored point: " + StudyRun.BLOCK_SAMPLES
+                            + " samples or one grid point of a study)", null);
+        }
     }
 
     private PointResult evaluate(Sweep sweep, Operation<?, ?> op, ObjectNode filled, int index) {
