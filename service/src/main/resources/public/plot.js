@@ -177,6 +177,9 @@ function fmtTick(v, step) {
 
 /** A number for a readout, to about 4 significant digits. */
 export function fmtValue(v) {
+  if (v === null || v === undefined) {
+    return ""; // an absent quantity (an output that does not exist for this point)
+  }
   if (!isFinite(v)) {
     return String(v);
   }

@@ -63,7 +63,8 @@ public final class ModelCatalogue {
                 MantleMineralogy.WALTER_1998_REACTION, MantleMineralogy.ROBINSON_WOOD_1998,
                 MantleMineralogy.KLEMME_ONEILL_2000,
                 // crust
-                HeatBudget.INFO, Miao2014Conductivity.INFO, SillModel.ANNEN_SPARKS_2002, SillModel.ENTHALPY_METHOD)) {
+                HeatBudget.INFO, Miao2014Conductivity.INFO, SillModel.ANNEN_SPARKS_2002, SillModel.ENTHALPY_METHOD,
+                SillModel.HUPPERT_SPARKS_1988)) {
             byId.putIfAbsent(m.id(), m);
         }
         return List.copyOf(new ArrayList<>(byId.values()));

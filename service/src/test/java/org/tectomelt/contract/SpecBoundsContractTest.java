@@ -27,7 +27,8 @@ import org.tectomelt.operations.OperationException;
 /**
  * Generated from the spec itself: for every numeric request field it bounds ({@code minimum},
  * {@code maximum}) in every operation, the bound is accepted and the nearest double beyond it
- * (an integer field: one beyond) is a 400 naming that field. Each field is set in the operation's
+ * (an integer field: one beyond) is a 400 naming that field; for an exclusive bound the nearest
+ * value inside is accepted and the bound itself refused. Each field is set in the operation's
  * documented example body (objects and lists it lives in are added when the example has none).
  * "Accepted" is judged by the contract itself (no violation naming the field), so no computation
  * runs at the extremes; "refused" over HTTP.
@@ -175,13 +176,23 @@ class SpecBoundsContractTest {
             collect(op, s.get("items"), next, field + "[0]", out, depth + 1);
         } else if (type.equals("number") || type.equals("integer")) {
             boolean integer = type.equals("integer");
+            // an exclusive bound (OpenAPI 3.0's boolean form): the nearest value inside is accepted
+            // and the bound itself is refused
             if (s.has("minimum")) {
                 double m = s.get("minimum").asDouble();
-                out.add(new Bound(op, path, field, m, integer ? m - 1 : Math.nextDown(m)));
+                if (s.path("exclusiveMinimum").asBoolean(false)) {
+                    out.add(new Bound(op, path, field, integer ? m + 1 : Math.nextUp(m), m));
+                } else {
+                    out.add(new Bound(op, path, field, m, integer ? m - 1 : Math.nextDown(m)));
+                }
             }
             if (s.has("maximum")) {
                 double m = s.get("maximum").asDouble();
-                out.add(new Bound(op, path, field, m, integer ? m + 1 : Math.nextUp(m)));
+                if (s.path("exclusiveMaximum").asBoolean(false)) {
+                    out.add(new Bound(op, path, field, integer ? m - 1 : Math.nextDown(m), m));
+                } else {
+                    out.add(new Bound(op, path, field, m, integer ? m + 1 : Math.nextUp(m)));
+                }
             }
         }
         assertFalse(field.contains("null"), field);

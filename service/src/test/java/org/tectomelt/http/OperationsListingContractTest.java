@@ -94,6 +94,7 @@ class OperationsListingContractTest {
                 .accept("text/csv").post("/v1/settings/mid-ocean-ridge");
         csv.then().statusCode(200).contentType(startsWith("text/csv"));
         String header = csv.asString().split("\r\n")[0];
-        assertEquals("depthKm,pressureGPa,temperatureC,meltFraction,productivityPercentPerGPa,waterInMeltWtPct", header);
+        assertEquals("depthKm,pressureGPa,temperatureC,meltFraction,productivityPercentPerGPa,waterInMeltWtPct,"
+                + "residueWaterWtPct,pyroxeniteMeltFraction", header, "the profile point's components, in order");
     }
 }
