@@ -110,8 +110,11 @@ public record RunsConfig(Path dataDir, String databaseUrl, String databaseUser, 
         if (!databaseUrl.isEmpty()) {
             return databaseUrl;
         }
-        // closed by the service on shutdown (after its job queue stopped), not by H2's own hook
-        return "jdbc:h2:file:" + dataDir.toAbsolutePath().normalize().resolve("tectomelt") + ";DB_CLOSE_ON_EXIT=FALSE";
+        // closed by the service on shutdown (after its job queue stopped), not by H2's own hook;
+        // WRITE_DELAY=0: every commit reaches the file at once (H2's default delays writes by
+        // 500 ms, so a process killed just after a chunk committed lost that chunk's points)
+        return "jdbc:h2:file:" + dataDir.toAbsolutePath().normalize().resolve("tectomelt")
+                + ";DB_CLOSE_ON_EXIT=FALSE;WRITE_DELAY=0";
     }
 
     /** Never prints the password. */
