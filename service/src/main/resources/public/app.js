@@ -3,6 +3,7 @@
 
 import { mountPlot, wrapText, PALETTE, OVERLAY_COLOURS, breakJumps, dataDomain, niceScale, saveBlob, shortCitation, interpolate } from "./plot.js";
 import { attachSweep, initRuns, isRunsHash, routeRuns } from "./runs.js";
+import { analysisBox, compositionPlot } from "./composition.js";
 
 const TOKEN_KEY = "tectomelt.token";
 const MELT_FRACTION = "/v1/melt-fraction";
@@ -1014,6 +1015,12 @@ async function figureSpec(spec, last, runs) {
   const depthPlot = spec.type === "depth";
   const compared = runs.length > 1;
   const differing = compared ? differingFields(last.tool, runs) : [];
+  if (spec.type === "composition") {
+    // a normalised trace-element diagram (composition.js) with the user's pasted analysis over it
+    const c = compositionPlot(last.response, runs.map((run, i) => ({ response: run.response, label: runLabel(run, differing, i) })));
+    c.plot.legendTitle = compared ? compareTitle(runs, differing) : undefined;
+    return { plot: c.plot, notes: c.notes, drawn: c.plot.series, marks: [], hasGrid: false, pressurePairs: null, analysis: true };
+  }
   const series = [];
   runs.forEach((run, i) => {
     const own = dataSeries(spec, run);
@@ -1186,6 +1193,10 @@ async function redrawFigure(spec) {
   entry.handle = mountPlot(entry.holder, fig.plot, { width, readout: entry.readout, titleLines: titleRoom(last.tool, width) });
   entry.notes.replaceChildren(...fig.notes.map((n) => h("figcaption", { class: "plot-note" }, n)));
   entry.figure.dataset.overlays = String(fig.plot.series.filter((x) => x.role === "extra").length);
+  if (entry.analysis) {
+    entry.analysis.refresh();
+    entry.figure.dataset.analysis = String(fig.plot.series.filter((x) => x.analysis).length);
+  }
 }
 
 /** Title lines to leave room for, so that the frames of panels side by side stay level. */
@@ -1221,7 +1232,8 @@ function mountFigure(figure, spec, fig, last) {
   figure.append(tools, holder, readout);
   const width = Math.floor(figure.clientWidth || 480);
   const handle = mountPlot(holder, fig.plot, { width, readout, titleLines: titleRoom(last.tool, width) });
-  const entry = { figure, handle, spec, holder, readout, notes, sharedY: fig.plot.zoomed ? null : fig.plot.y.domain };
+  const entry = { figure, handle, spec, holder, readout, notes,
+    sharedY: spec.type === "depth" && !fig.plot.zoomed ? fig.plot.y.domain : null };
   state.plots.push(entry);
   const file = `tectomelt-${last.tool.id}-${slug(spec.title)}`;
   const density = () => Number((document.getElementById("png-density") || {}).value || 2);
@@ -1245,6 +1257,11 @@ function mountFigure(figure, spec, fig, last) {
     figure.append(chooser);
   }
   figure.append(notes);
+  if (fig.analysis) {
+    entry.analysis = analysisBox(() => redrawFigure(spec), h);
+    figure.append(entry.analysis);
+    figure.dataset.analysis = String(fig.plot.series.filter((x) => x.analysis).length);
+  }
   notes.append(...fig.notes.map((n) => h("figcaption", { class: "plot-note" }, n)));
 }
 
@@ -1573,9 +1590,27 @@ export function toCsv(tool, response) {
   return lines.join("\n") + "\n";
 }
 
-function download(last, kind) {
+async function download(last, kind) {
+  const name = `tectomelt-${last.tool.id}.${kind}`;
+  if (kind === "csv" && last.tool.csv === "service") {
+    // the service's own CSV of the same request (Accept: text/csv), e.g. one column per element
+    const status = document.getElementById("copy-status");
+    try {
+      const res = await fetch(apiUrl(last.tool.endpoint), { method: "POST", body: JSON.stringify(last.body),
+        headers: Object.assign(headers(true), { Accept: "text/csv" }) });
+      const text = await res.text();
+      if (!res.ok || !/text\/csv/.test(res.headers.get("Content-Type") || "")) {
+        throw new Error(`HTTP ${res.status}`);
+      }
+      saveBlob(new Blob([text], { type: "text/csv" }), name);
+      status.textContent = "";
+    } catch (e) {
+      status.textContent = "The CSV could not be fetched from the service: " + String(e.message || e);
+    }
+    return;
+  }
   const text = kind === "csv" ? toCsv(last.tool, last.response) : JSON.stringify(last.response, null, 2) + "\n";
-  saveBlob(new Blob([text], { type: kind === "csv" ? "text/csv" : "application/json" }), `tectomelt-${last.tool.id}.${kind}`);
+  saveBlob(new Blob([text], { type: kind === "csv" ? "text/csv" : "application/json" }), name);
 }
 
 function shellQuote(s) {

