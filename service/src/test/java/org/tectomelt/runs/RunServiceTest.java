@@ -237,36 +237,6 @@ class RunServiceTest {
 
     @ParameterizedTest(name = "[{0}]")
     @MethodSource("backends")
-    void theModelsOfTheComputedPointsAreStoredOnceWithTheRunAndEveryInstanceSeesThem(String backend) {
-        RunsConfig a = Backends.fresh(backend, dir, "instance-a");
-        try (RunService sa = RunService.open(a, squaresWithModels(2));
-             RunService sb = RunService.open(Backends.sameDatabase(a, "instance-b"), squaresWithModels(2))) {
-            sa.start();
-            sb.start();
-            RunRecord r = sa.submit(run("ana", 400));
-            RunRecord only = sa.submit(run("ana", 6)); // points 0..5: no tenth point, point 3 fails
-            assertEquals(List.of(), sa.models(List.of(r.id())).get(r.id()), "nothing computed yet");
-            await(sb, r.id(), x -> !x.status().active(), Duration.ofSeconds(60));
-            await(sb, only.id(), x -> !x.status().active(), Duration.ofSeconds(60));
-            Map<String, Integer> by = sa.pointsByInstance(r.id());
-            assertTrue(by.getOrDefault("instance-a", 0) > 0 && by.getOrDefault("instance-b", 0) > 0,
-                    "both instances computed points (and recorded their models): " + by);
-            for (RunService s : List.of(sa, sb)) {
-                Map<String, List<ModelInfo>> models = s.models(List.of(r.id(), only.id(), "no-such-run"));
-                List<ModelInfo> all = models.get(r.id());
-                assertEquals(3, all.size(), "each model once: " + all);
-                assertEquals(Set.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO, HeatBudget.INFO), Set.copyOf(all));
-                assertEquals(Set.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO), Set.copyOf(models.get(only.id())));
-                assertEquals(List.of(), models.get("no-such-run"));
-            }
-            // deleting the run deletes its models
-            assertEquals(RunService.Deleted.REMOVED, sa.delete(only.id(), "ana"));
-            assertEquals(List.of(), sb.models(List.of(only.id())).get(only.id()));
-        }
-    }
-
-    @ParameterizedTest(name = "[{0}]")
-    @MethodSource("backends")
     void recordingTheSameModelsAtOnceFromEightWritersStoresEachOnceAndFailsNone(String backend) throws Exception {
         try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0));
              Database db = Database.open(Backends.sameDatabase(s.config(), "writers"), 10)) {
@@ -297,20 +267,34 @@ class RunServiceTest {
 
     @ParameterizedTest(name = "[{0}]")
     @MethodSource("backends")
-    void twoInstancesOnOneDatabaseShareTheChunksOfOneRun(String backend) {
+    void twoInstancesOnOneDatabaseShareTheChunksOfOneRunAndBothRecordItsModels(String backend) {
         // the embedded file cannot be shared by two processes, but two pools in one JVM can share it
         RunsConfig a = Backends.fresh(backend, dir, "instance-a");
-        try (RunService sa = RunService.open(a, squares(3));
-             RunService sb = RunService.open(Backends.sameDatabase(a, "instance-b"), squares(3))) {
+        try (RunService sa = RunService.open(a, squaresWithModels(3));
+             RunService sb = RunService.open(Backends.sameDatabase(a, "instance-b"), squaresWithModels(3))) {
             sa.start();
             sb.start();
             RunRecord r = sa.submit(run("ana", 800));
+            RunRecord only = sa.submit(run("ana", 6)); // points 0..5: no tenth point, point 3 fails
+            assertEquals(List.of(), sa.models(List.of(r.id())).get(r.id()), "nothing computed yet");
             RunRecord done = await(sb, r.id(), x -> !x.status().active(), Duration.ofSeconds(60));
+            await(sb, only.id(), x -> !x.status().active(), Duration.ofSeconds(60));
             assertEquals(RunStatus.SUCCEEDED, done.status());
             Map<String, Integer> by = sa.pointsByInstance(r.id());
             assertEquals(800, by.values().stream().mapToInt(Integer::intValue).sum(), by.toString());
             assertTrue(by.getOrDefault("instance-a", 0) > 0 && by.getOrDefault("instance-b", 0) > 0,
-                    "both instances computed points: " + by);
+                    "both instances computed points (and recorded their models): " + by);
+            for (RunService s : List.of(sa, sb)) {
+                Map<String, List<ModelInfo>> models = s.models(List.of(r.id(), only.id(), "no-such-run"));
+                List<ModelInfo> all = models.get(r.id());
+                assertEquals(3, all.size(), "each model once: " + all);
+                assertEquals(Set.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO, HeatBudget.INFO), Set.copyOf(all));
+                assertEquals(Set.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO), Set.copyOf(models.get(only.id())));
+                assertEquals(List.of(), models.get("no-such-run"));
+            }
+            // removing a finished run removes its models
+            assertEquals(RunService.Deleted.REMOVED, sa.delete(only.id(), "ana"));
+            assertEquals(List.of(), sb.models(List.of(only.id())).get(only.id()));
         }
     }
 
