@@ -54,6 +54,7 @@ public final class SpecContract {
     private final JsonNode spec;
     private final SchemaRegistry registry;
     private final Map<String, Schema> schemas = new ConcurrentHashMap<>();
+    private final Map<String, JsonNode> requestSchemas = new ConcurrentHashMap<>();
 
     private SpecContract(JsonNode spec) {
         this.spec = spec;
@@ -195,7 +196,8 @@ public final class SpecContract {
     }
 
     private JsonNode requestSchemaNode(String path) {
-        JsonNode n = spec.at(requestPointer(path));
+        // looked up once per path (every request asks): the spec tree is not changed after loading
+        JsonNode n = requestSchemas.computeIfAbsent(path, p -> spec.at(requestPointer(p)));
         return n.isMissingNode() ? null : n;
     }
 

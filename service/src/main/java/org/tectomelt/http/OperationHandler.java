@@ -102,17 +102,19 @@ final class OperationHandler {
         String rows = prepared.operation().rows(result);
         List<String> fields = fields(ctx);
         boolean csv = wantsCsv(ctx);
+        boolean bibtex = MetaRoutes.wantsBibtex(ctx);
+        if (!bibtex && (rows == null || (!csv && fields == null))) {
+            // the common answer: the result and its provenance, serialised in one pass
+            Responses.bytes(ctx, new Responses.Written(Responses.JSON, Provenance.json(result)));
+            return;
+        }
         ObjectNode tree = Json.mapper().valueToTree(result);
-        if (MetaRoutes.wantsBibtex(ctx)) {
+        if (bibtex) {
             Responses.bytes(ctx, new Responses.Written(MetaRoutes.BIBTEX + "; charset=utf-8",
                     Provenance.bibtex(tree).getBytes(StandardCharsets.UTF_8)));
             return;
         }
         Provenance.attach(tree);
-        if (rows == null || (!csv && fields == null)) {
-            Responses.json(ctx, tree);
-            return;
-        }
         JsonNode list = tree;
         for (String part : rows.split("\\.")) {
             list = list.path(part);

@@ -143,8 +143,8 @@ final class RequestIntake extends Handler.Wrapper {
         }
 
         void start() {
-            timer = request.getComponents().getScheduler().schedule(this::timedOut, bodyTimeoutMillis,
-                    TimeUnit.MILLISECONDS);
+            // a small body usually came with the headers: read it at once, and start the body's clock
+            // only when the rest has to be waited for (saves a timer per request)
             read(false);
         }
 
@@ -172,6 +172,10 @@ final class RequestIntake extends Handler.Wrapper {
                 while (true) {
                     Content.Chunk chunk = request.read();
                     if (chunk == null) {
+                        if (timer == null) {
+                            timer = request.getComponents().getScheduler().schedule(this::timedOut,
+                                    bodyTimeoutMillis, TimeUnit.MILLISECONDS);
+                        }
                         request.demand(this);
                         return;
                     }
@@ -201,7 +205,9 @@ final class RequestIntake extends Handler.Wrapper {
                 }
                 dispatched = true;
             }
-            timer.cancel();
+            if (timer != null) {
+                timer.cancel();
+            }
             BodyFailure f = failure;
             boolean rest = tail != null;
             if (fromDemand) {
