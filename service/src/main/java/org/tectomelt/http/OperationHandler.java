@@ -86,7 +86,7 @@ final class OperationHandler {
             throws Exception {
         JsonNode body = RequestKey.parsedBody(ctx);
         Invoker.Prepared<Q, R> prepared = body != null ? invoker.prepare(op, body)
-                : invoker.prepare(op, ctx.bodyAsBytes());
+                : invoker.prepare(op, RequestIntake.body(ctx));
         if (prepared.cost() == Cost.HEAVY && !Heavy.inSlot(ctx)) {
             // a heavy request of a cheap operation (a large batch): limiter and budget as for heavy routes
             Heavy heavy = ctx.appData(Heavy.KEY);

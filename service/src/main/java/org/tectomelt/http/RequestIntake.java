@@ -66,6 +66,18 @@ final class RequestIntake extends Handler.Wrapper {
         this.bodyTimeoutMillis = bodyTimeoutMillis;
     }
 
+    /** Request attribute holding the whole body (bytes) when it arrived complete and within the cap. */
+    static final String BODY_ATTR = "tectomelt.body";
+
+    /**
+     * The request body: the bytes read here when the body arrived whole within the cap, otherwise
+     * what the framework reads ({@code ctx.bodyAsBytes()}, which enforces the cap itself).
+     */
+    static byte[] body(io.javalin.http.Context ctx) {
+        Object b = ctx.attribute(BODY_ATTR);
+        return b instanceof byte[] bytes ? bytes : ctx.bodyAsBytes();
+    }
+
     /** The failure mark of this request's body, or null when it arrived whole (or there was none). */
     static BodyFailure failure(io.javalin.http.Context ctx) {
         Object f = ctx.attribute(FAILURE_ATTR);
@@ -234,7 +246,12 @@ final class RequestIntake extends Handler.Wrapper {
                 request.setAttribute(FAILURE_ATTR, failure);
                 delivered = new Buffered(request, null, false, failure);
             } else {
-                delivered = new Buffered(request, discard ? null : body.toByteArray(), streamRest, null);
+                byte[] bytes = discard ? null : body.toByteArray();
+                if (bytes != null && !streamRest) {
+                    // the whole body, within the cap: the app reads it from here without a second copy
+                    request.setAttribute(BODY_ATTR, bytes);
+                }
+                delivered = new Buffered(request, bytes, streamRest, null);
             }
             try {
                 if (!next.handle(delivered, response, callback)) {

@@ -90,7 +90,7 @@ final class RequestKey {
         sb.append(MetaRoutes.wantsBibtexQuietly(ctx) ? "bibtex" : OperationHandler.wantsCsv(ctx) ? "csv" : "json")
                 .append('\n');
         if (ctx.method() == HandlerType.POST) {
-            byte[] body = ctx.bodyAsBytes();
+            byte[] body = RequestIntake.body(ctx);
             JsonNode tree;
             try {
                 tree = Json.mapper().readTree(body);
