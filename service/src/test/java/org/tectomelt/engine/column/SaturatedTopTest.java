@@ -53,6 +53,26 @@ class SaturatedTopTest {
     }
 
     @Test
+    void nearTheTopTheMeltFractionFollowsThePowerLawOfTheSaturatedSolidus() {
+        // saturated: Xsat ≈ χ1·P^λ (λ = 0.6) and ΔT = K·X^γ (γ = 0.75) in the saturation and solidus-depression laws of Katz et al. (2003),
+        // so close to P = 0 the solidus, and F with it, moves as P^(λγ) = P^0.45 (calc): F at a
+        // lid a decade deeper differs from the top's by 10^0.45 = 2.82 times more
+        double w = 1e-4;
+        double fTop = DecompressionColumn.of(katz, 1320 + 273.15, w).solve().top().orElseThrow().meltFraction();
+        double previous = Double.NaN;
+        for (double lid : new double[] {1e-4, 1e-3, 1e-2}) {
+            double f = DecompressionColumn.of(katz, 1320 + 273.15, w).withLidDepth(lid).solve().top().orElseThrow()
+                    .meltFraction();
+            double step = f - fTop;
+            assertTrue(step > 0, "F rises below the top: lid " + lid);
+            if (!Double.isNaN(previous)) {
+                assertEquals(Math.pow(10, 0.45), step / previous, 0.15, "decade ratio at lid " + lid + " m");
+            }
+            previous = step;
+        }
+    }
+
+    @Test
     void aLidJustBelowTheSaturationPointChangesTheMeltByNoMoreThanTheLayerAboveIt() {
         // the melt made in the top metres is at most F × their thickness: the integration of that
         // layer (saturated, singular at P = 0) must not move the column's answer by more
