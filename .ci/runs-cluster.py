@@ -47,7 +47,8 @@ TOTAL = 1200
 
 def start(jar, env, log):
     full = dict(os.environ, PORT="0", HOST="127.0.0.1", TECTOMELT_RUN_THREADS="1",
-                TECTOMELT_RUN_HEARTBEAT_MS="1000", TECTOMELT_RUN_POLL_MS="200", **env)
+                TECTOMELT_RUN_HEARTBEAT_MS="1000", TECTOMELT_RUN_POLL_MS="200")
+    full.update(env)
     out = open(log, "w")
     proc = subprocess.Popen(["java", "-Xmx256m", "-jar", jar], env=full, stdout=out, stderr=subprocess.STDOUT)
     deadline = time.time() + 120
@@ -106,7 +107,7 @@ def ok(msg):
     print("ok:", msg, flush=True)
 
 
-def check_complete(base, rid, before=None):
+def check_complete(base, rid, before=None, event="the kill"):
     final = wait(lambda: (lambda r: r if r["status"] not in ("queued", "running") else None)(run(base, rid)),
                  "the run finished", 600)
     if final["status"] != "succeeded" or final["progress"]["done"] != TOTAL:
@@ -120,8 +121,8 @@ def check_complete(base, rid, before=None):
         by_index = {r["index"]: r for r in got}
         changed = [r["index"] for r in before if by_index.get(r["index"]) != r]
         if changed:
-            sys.exit(f"FAILED: points computed before the kill changed or vanished: {changed[:10]}")
-        ok(f"the {len(before)} points read before the kill are kept unchanged")
+            sys.exit(f"FAILED: points computed before {event} changed or vanished: {changed[:10]}")
+        ok(f"the {len(before)} points read before {event} are kept unchanged")
     return final
 
 
@@ -203,7 +204,7 @@ def expect_storage_problem(base, method, path, body=None):
 def db_outage(jar, url, user, password, pg_dir, pg_port):
     work = tempfile.mkdtemp(prefix="tectomelt-outage-")
     env = {"TECTOMELT_DATABASE_URL": url, "TECTOMELT_DATABASE_USER": user, "TECTOMELT_DATABASE_PASSWORD": password,
-           "TECTOMELT_INSTANCE_NAME": "outage"}
+           "TECTOMELT_INSTANCE_NAME": "outage", "TECTOMELT_RUN_THREADS": "2"}
     proc, base = start(jar, env, os.path.join(work, "outage.log"))
     pg_down = False
     try:
@@ -234,7 +235,7 @@ def db_outage(jar, url, user, password, pg_dir, pg_port):
         postgres("start", pg_dir, pg_port)
         pg_down = False
         ok(f"PostgreSQL started again after {time.time() - down_at:.1f} s")
-        final = check_complete(base, rid, before)
+        final = check_complete(base, rid, before, "the outage")
         reason = final.get("statusReason", "")
         if "interrupted" not in reason or "resumed" not in reason:
             sys.exit(f"FAILED: the finished run does not say it was interrupted and resumed: {reason!r}")
