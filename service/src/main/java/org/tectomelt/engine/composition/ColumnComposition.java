@@ -215,6 +215,11 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         /** Bulk sums of the current step, per element: Σ xⱼKⱼ (the solid's capacity S) and Σ pⱼKⱼ (P). */
         private final double[] bulkS;
         private final double[] bulkP;
+        /** The garnet share bulkS was built for, and whether the residues are unchanged since (then it is reused). */
+        private double bulkSW = Double.NaN;
+        private boolean bulkSFresh;
+        /** Residues still melted: both, or only the spinel-field one once garnet is gone for good. */
+        private int residues = 2;
         private final double phi = threshold();
         private final double r = phi < 1 ? phi / (1 - phi) : 0.0;
         private double f;
@@ -244,12 +249,21 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             double[] fOut = new double[n];
             double[] w = new double[n];
             double[] cpx = new double[n];
+            // past the last point (or step) with any garnet share, the garnet-field residue has weight 0 in every
+            // blend: it is no longer melted (the blends, and so the results, are the same)
+            int lastGarnet = -1;
+            for (int i = 0; i < n; i++) {
+                if (mineralogy.garnetFraction(p[i]) > 0 || (i > 0 && mineralogy.garnetFraction(0.5 * (p[i - 1] + p[i])) > 0)) {
+                    lastGarnet = i;
+                }
+            }
             for (int i = 0; i < n; i++) {
                 if (i > 0) {
                     double target = Math.max(f, clampFraction(fCol[i]));
                     if (target > f) {
                         double pm = 0.5 * (p[i - 1] + p[i]);
                         double exh = cpxExhaustion == null ? Double.NaN : cpxExhaustion.applyAsDouble(pm);
+                        residues = i > lastGarnet ? 1 : 2;
                         melt(target, mineralogy.garnetFraction(pm), exh);
                     }
                 }
@@ -276,7 +290,7 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                     throw new IllegalStateException("composition increment did not converge");
                 }
                 double h = target - f;
-                for (int t = 0; t < 2; t++) {
+                for (int t = 0; t < residues; t++) {
                     double[] rt = reaction[t];
                     double[] mt = m[t];
                     reactionOf(t, exhaustion, rt);
@@ -295,7 +309,8 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 if (f >= phi) {
                     extract(h, w);
                 }
-                for (int t = 0; t < 2; t++) {
+                bulkSFresh = false;
+                for (int t = 0; t < residues; t++) {
                     for (int j = 0; j < N; j++) {
                         double mj = m[t][j] - reaction[t][j] * h;
                         m[t][j] = mj < EXHAUSTED ? 0.0 : mj;
@@ -324,8 +339,11 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
 
         /** Advances Q and E of every element over an increment h after the threshold. */
         private void extract(double h, double w) {
-            blend(w, mix, pMix);
-            bulk(mix, bulkS);
+            solidCapacities(w);
+            double w0 = 1 - w;
+            for (int j = 0; j < N; j++) {
+                pMix[j] = w0 * reaction[0][j] + w * reaction[1][j];
+            }
             bulk(pMix, bulkP);
             double retained = r * (1 - f);
             double scale = 1.0 / (1 - phi);
@@ -339,15 +357,22 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
         }
 
-        /** Blended residue modes and reaction at garnet share w (reaction into {@code pOut} when not null). */
-        private void blend(double w, double[] mOut, double[] pOut) {
+        /**
+         * The solid's capacity S = Σ xⱼKⱼ of every element into {@code bulkS} for the residues blended at garnet
+         * share w. Kept when nothing has melted since it was built for the same w (an output point and the next
+         * step inside one mineral field): the same numbers either way.
+         */
+        private void solidCapacities(double w) {
+            if (bulkSFresh && w == bulkSW) {
+                return;
+            }
             double w0 = 1 - w;
             for (int j = 0; j < N; j++) {
-                mOut[j] = w0 * m[0][j] + w * m[1][j];
-                if (pOut != null) {
-                    pOut[j] = w0 * reaction[0][j] + w * reaction[1][j];
-                }
+                mix[j] = w0 * m[0][j] + w * m[1][j];
             }
+            bulk(mix, bulkS);
+            bulkSW = w;
+            bulkSFresh = true;
         }
 
         /** The reaction of residue {@code t} now: proportions entering the melt, summing to 1. */
@@ -398,8 +423,7 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
 
         /** Concentrations at the current state for garnet share {@code w}: instantaneous, accumulated, residue from {@code at}. */
         private void output(double w, double[] values, int at) {
-            blend(w, mix, null);
-            bulk(mix, bulkS);
+            solidCapacities(w);
             boolean open = f > phi;
             double retained = open ? r * (1 - f) : f;
             double perSolid = 1 / (1 - f);
