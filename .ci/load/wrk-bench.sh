@@ -22,6 +22,9 @@
 #       also starts .ci/load/TrivialServer.java (one constant GET on the same Javalin build, same
 #       JVM options) and measures it in turn with the others, each run; the summary gives every
 #       endpoint's median req/s and p99 as a fraction / multiple of the trivial route's
+#   bash .ci/load/wrk-bench.sh --baseline --jar /tmp/before.jar --compare service/target/tectomelt.jar GET:/v1/health
+#       before/after in one go: --compare starts a second server from another jar (same options) and
+#       measures every endpoint on both in turn, each run; rows of the second are marked "B"
 # Other options: --threads N, --warmup SECS, --heap SIZE, --delay-ms MS, --max-rss-mib N,
 # --env VAR=VALUE (for the server), --out FILE (the table as Markdown), --jar PATH.
 set -euo pipefail
@@ -40,6 +43,8 @@ DELAY_MS=0
 MAX_RSS_MIB=512
 OUT=""
 BASELINE=0
+COMPARE_JAR=""
+B_PID=""
 SERVER_ENV=("TECTOMELT_CACHE_MB=0")   # measure computation, not the result cache
 ENDPOINTS=()
 
@@ -61,6 +66,7 @@ while [ $# -gt 0 ]; do
     --env) SERVER_ENV+=("$2"); shift 2 ;;
     --out) OUT="$2"; shift 2 ;;
     --baseline) BASELINE=1; shift ;;
+    --compare) COMPARE_JAR="$2"; shift 2 ;;
     -h|--help) usage 0 ;;
     -*) echo "unknown option $1" >&2; usage 2 ;;
     *) ENDPOINTS+=("$1"); shift ;;
@@ -76,7 +82,7 @@ WORK=$(mktemp -d)
 SERVER_PID=""
 TRIVIAL_PID=""
 cleanup() {
-  for pid in "$SERVER_PID" "$TRIVIAL_PID"; do
+  for pid in "$SERVER_PID" "$TRIVIAL_PID" "$B_PID"; do
     if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null; then
       kill "$pid" 2>/dev/null || true
       wait "$pid" 2>/dev/null || true
@@ -144,7 +150,8 @@ cpu_ticks() { awk '{print $14 + $15}' "/proc/${1:-$SERVER_PID}/stat"; }
 CLK_TCK=$(getconf CLK_TCK)
 hwm_mib() { awk '/^VmHWM:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
 
-env HOST=127.0.0.1 PORT=0 "${SERVER_ENV[@]}" \
+# each server keeps its (empty) run database in the scratch folder, not in ./data
+env HOST=127.0.0.1 PORT=0 TECTOMELT_DATA_DIR="$WORK/data" "${SERVER_ENV[@]}" \
   java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -jar "$JAR" > "$WORK/server.log" 2>&1 &
 SERVER_PID=$!
 PORT=""
@@ -156,6 +163,25 @@ for _ in $(seq 1 150); do
 done
 [ -n "$PORT" ] || { echo "server did not start" >&2; cat "$WORK/server.log" >&2; exit 1; }
 BASE="http://127.0.0.1:$PORT"
+B_BASE=""
+if [ -n "$COMPARE_JAR" ]; then
+  [ -f "$COMPARE_JAR" ] || { echo "no $COMPARE_JAR" >&2; exit 2; }
+  env HOST=127.0.0.1 PORT=0 TECTOMELT_DATA_DIR="$WORK/data-b" "${SERVER_ENV[@]}" \
+    java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -jar "$COMPARE_JAR" > "$WORK/server-b.log" 2>&1 &
+  B_PID=$!
+  BPORT=""
+  for _ in $(seq 1 150); do
+    BPORT=$(sed -n 's#.*listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$WORK/server-b.log" | sed -n 1p)
+    [ -n "$BPORT" ] && break
+    kill -0 "$B_PID" 2>/dev/null || { cat "$WORK/server-b.log" >&2; exit 1; }
+    sleep 0.2
+  done
+  [ -n "$BPORT" ] || { echo "second server did not start" >&2; exit 1; }
+  B_BASE="http://127.0.0.1:$BPORT"
+  both=()
+  for e in "${ENDPOINTS[@]}"; do both+=("$e" "B:$e"); done
+  ENDPOINTS=("${both[@]}")
+fi
 TRIVIAL_BASE=""
 if [ "$BASELINE" = 1 ]; then
   java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -cp "$JAR" .ci/load/TrivialServer.java 0 \
@@ -174,6 +200,7 @@ fi
 
 echo "# machine: $(nproc) cores, $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2 | sed 's/^ *//'), load average $(cut -d' ' -f1-3 /proc/loadavg)"
 echo "# server: java -Xmx$HEAP -XX:+UseSerialGC $JVM_OPTS ($(java -version 2>&1 | sed -n 1p)), ${SERVER_ENV[*]}, pid $SERVER_PID, $BASE"
+[ -z "$COMPARE_JAR" ] || echo "# B: $COMPARE_JAR, pid $B_PID, $B_BASE (A: $JAR)"
 echo "# wrk $(wrk -v 2>&1 | sed -n 1p | cut -d' ' -f2) -t$THREADS -c$CONNECTIONS, RSS after start: $(rss_mib) MiB"
 
 run_wrk() {   # $1 = seconds, $2 = lua script, $3 = base URL (default the service); prints the RESULT line
@@ -202,11 +229,14 @@ if [ "$SOAK" -gt 0 ]; then
 fi
 
 # an endpoint "TRIVIAL:GET:/trivial" is served by the trivial server (--baseline)
-target_base() { if [[ "$1" == TRIVIAL:* ]]; then echo "$TRIVIAL_BASE"; else echo "$BASE"; fi; }
-target_pid() { if [[ "$1" == TRIVIAL:* ]]; then echo "$TRIVIAL_PID"; else echo "$SERVER_PID"; fi; }
+# and one "B:…" by the --compare server
+target_base() { if [[ "$1" == TRIVIAL:* ]]; then echo "$TRIVIAL_BASE"; elif [[ "$1" == B:* ]]; then echo "$B_BASE"; else echo "$BASE"; fi; }
+target_pid() { if [[ "$1" == TRIVIAL:* ]]; then echo "$TRIVIAL_PID"; elif [[ "$1" == B:* ]]; then echo "$B_PID"; else echo "$SERVER_PID"; fi; }
+strip_target() { local s=${1#TRIVIAL:}; echo "${s#B:}"; }
+mark() { if [[ "$1" == B:* ]]; then echo "B "; elif [ -n "$COMPARE_JAR" ] && [[ "$1" != TRIVIAL:* ]]; then echo "A "; fi; }
 i=0
 for spec in "${ENDPOINTS[@]}"; do
-  i=$((i + 1)); make_script "$WORK/e$i.lua" "${spec#TRIVIAL:}"
+  i=$((i + 1)); make_script "$WORK/e$i.lua" "$(strip_target "$spec")"
   run_wrk "$WARMUP" "$WORK/e$i.lua" "$(target_base "$spec")" > /dev/null   # JIT warm-up, not reported
 done
 {
@@ -223,7 +253,7 @@ for run in $(seq 1 "$RUNS"); do
     after=$(cpu_ticks "$pid")
     cpu=$(awk -v t=$((after - before)) -v n="$(field requests "$line")" -v hz="$CLK_TCK" \
       'BEGIN { if (n > 0) printf "%.0f", t / hz * 1e6 / n; else print "-" }')
-    label=${spec%%=*}; label=${label#TRIVIAL:}
+    label=$(strip_target "$spec"); label="$(mark "$spec")${label%%=*}"
     echo "| $run | ${label/:/ } | $(field rps "$line") | $(field p50_ms "$line") | $(field p99_ms "$line") | $(field status_errors "$line") | $(field socket_errors "$line") | $cpu | $(rss_mib "$pid") |" | tee -a "$WORK/table.md"
     echo "$i $(field rps "$line") $(field p99_ms "$line") ${label/:/ }" >> "$WORK/runs.txt"
     [ "$(field status_errors "$line")" = 0 ] && [ "$(field socket_errors "$line")" = 0 ] || FAILED=1

@@ -433,6 +433,8 @@ function collect(tool, form) {
         errors.push({ field: f.name, message: `not numbers: ${bad.join(", ")}` });
         return;
       }
+    } else if (f.valueType === "boolean") {
+      value = raw === "true";
     } else {
       value = raw;
     }
@@ -571,8 +573,51 @@ async function run(tool, form) {
     }
     return;
   }
-  state.last = { tool, body, values, url: apiUrl(tool.endpoint), response: res.body, at: new Date() };
+  const last = { tool, body, values, url: apiUrl(tool.endpoint), response: res.body, at: new Date() };
+  const cp = tool.counterpart;
+  if (cp && cp.when.in.includes(String(values[cp.when.field]))) {
+    // the same request with one case switched (e.g. conduction beside convection), shown beside it
+    results.dataset.state = "running";
+    button.disabled = true;
+    last.counterpart = await counterpartRun(tool, body);
+    button.disabled = false;
+  }
+  state.last = last;
   await renderResults(state.last);
+}
+
+/** Runs the tool's counterpart request (tools.json "counterpart": set and drop fields): {label, body, response} or {label, error}. */
+async function counterpartRun(tool, body) {
+  const cp = tool.counterpart;
+  const alt = JSON.parse(JSON.stringify(body));
+  for (const path of cp.drop || []) {
+    const parts = path.split(".");
+    const parent = parts.slice(0, -1).reduce((o, k) => (o && typeof o === "object" ? o[k] : undefined), alt);
+    if (parent && typeof parent === "object") {
+      delete parent[parts[parts.length - 1]];
+    }
+  }
+  for (const [path, v] of Object.entries(cp.set || {})) {
+    setPath(alt, path, v);
+  }
+  try {
+    const r = await post(tool.endpoint, alt);
+    if (r.ok) {
+      return { label: cp.label, body: alt, response: r.body };
+    }
+    const p = r.body || {};
+    return { label: cp.label, body: alt, error: p.detail || p.title || `HTTP ${r.status}` };
+  } catch (e) {
+    return { label: cp.label, body: alt, error: String(e.message || e) };
+  }
+}
+
+/** The response a summary row reads: the run's own, or its counterpart's for a "counterpart" row (null if none). */
+function rowResponse(row, run) {
+  if (!row.counterpart) {
+    return run.response;
+  }
+  return run.counterpart && run.counterpart.response ? run.counterpart.response : null;
 }
 
 function rowsOf(response, paths) {
@@ -678,13 +723,19 @@ async function renderResults(last) {
       h("ul", {}, assumptions.map((a) => h("li", {}, typeof a === "string" ? a : JSON.stringify(a))))));
   }
 
+  if (last.counterpart && last.counterpart.error) {
+    results.append(h("p", { class: "result-note", id: "counterpart-error" },
+      `The ${last.counterpart.label} run for comparison failed: ${last.counterpart.error}`));
+  }
   const summary = h("table", { id: "summary", class: "summary" });
   for (const row of tool.summary || []) {
-    const cell = summaryCell(row, response, last.values);
+    const source = rowResponse(row, last);
+    const cell = source ? summaryCell(row, source, last.values) : null;
     if (!cell) {
       continue;
     }
-    summary.append(h("tr", { "data-path": row.path.find((p) => getPath(response, p) !== undefined) },
+    const found = row.path.find((p) => getPath(source, p) !== undefined);
+    summary.append(h("tr", { "data-path": row.counterpart ? "counterpart:" + found : found },
       h("th", { scope: "row" }, row.label),
       h("td", { class: "value" }, cell.text),
       h("td", { class: "unit" }, cell.unit)));
@@ -803,7 +854,7 @@ function valueText(f, v) {
     return lithologyName(v);
   }
   if (f.type === "select") {
-    const o = (f.options || []).find((x) => x.value === v);
+    const o = (f.options || []).find((x) => String(x.value) === String(v));
     return o ? o.label : String(v);
   }
   if (Array.isArray(v)) {
@@ -884,7 +935,7 @@ function renderCompare(tool) {
       runs.map((r) => h("td", {}, valueText(f, r.values[f.name])))));
   }
   for (const row of tool.summary || []) {
-    const cells = runs.map((r) => summaryCell(row, r.response, r.values));
+    const cells = runs.map((r) => (rowResponse(row, r) ? summaryCell(row, rowResponse(row, r), r.values) : null));
     if (cells.every((c) => c === null)) {
       continue;
     }
@@ -946,6 +997,18 @@ function dataSeries(spec, run) {
     }
     const extras = s.breakAtJumps ? undefined : rows.map((r) => extrasOf(r, [depthPlot ? s.x : s.y, spec.y.key, spec.x.key, spec.y2 ? spec.y2.key : ""]));
     series.push({ label: s.label, role: s.role, dots: s.dots, points, extras });
+    if (s.counterpart && run.counterpart && run.counterpart.response) {
+      // the same quantity from the counterpart run (e.g. the conducting case beside the convecting one)
+      const other = rowsOf(run.counterpart.response, spec.data).map((r) => {
+        const xv = depthPlot ? r[s.x] : r[spec.x.key];
+        const yv = depthPlot ? r[spec.y.key] : r[s.y];
+        if (typeof xv !== "number" || typeof yv !== "number") {
+          return [NaN, NaN];
+        }
+        return depthPlot ? [xv * (s.scale || 1), yv] : [xv, yv * (s.scale || 1)];
+      });
+      series.push({ label: s.counterpart.label, role: s.counterpart.role, points: other, counterpart: true });
+    }
   }
   if (spec.seriesFrom) {
     // one curve per element of an array (e.g. a profile per requested time), in sequence colours

@@ -18,6 +18,7 @@ import com.fasterxml.jackson.databind.exc.InvalidFormatException;
 import com.fasterxml.jackson.databind.exc.MismatchedInputException;
 import com.fasterxml.jackson.databind.exc.UnrecognizedPropertyException;
 import com.fasterxml.jackson.databind.json.JsonMapper;
+import com.fasterxml.jackson.module.blackbird.BlackbirdModule;
 import com.fasterxml.jackson.databind.module.SimpleModule;
 import com.fasterxml.jackson.databind.ser.std.StdSerializer;
 import com.fasterxml.jackson.databind.type.LogicalType;
@@ -74,6 +75,7 @@ public final class Json {
                 .serializationInclusion(JsonInclude.Include.NON_NULL)
                 .annotationIntrospector(new ExplicitNullIntrospector())
                 .addModule(finiteOnly)
+                .addModule(new BlackbirdModule())
                 .build();
         mapper.getFactory().setStreamReadConstraints(StreamReadConstraints.builder()
                 .maxNestingDepth(MAX_NESTING_DEPTH)

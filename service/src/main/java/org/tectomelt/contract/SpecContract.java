@@ -54,6 +54,9 @@ public final class SpecContract {
     private final JsonNode spec;
     private final SchemaRegistry registry;
     private final Map<String, Schema> schemas = new ConcurrentHashMap<>();
+    private final Map<String, JsonNode> requestSchemas = new ConcurrentHashMap<>();
+    /** Local references, resolved once: the spec tree is not changed after loading. */
+    private final Map<String, JsonNode> refs = new ConcurrentHashMap<>();
 
     private SpecContract(JsonNode spec) {
         this.spec = spec;
@@ -195,15 +198,17 @@ public final class SpecContract {
     }
 
     private JsonNode requestSchemaNode(String path) {
-        JsonNode n = spec.at(requestPointer(path));
+        // looked up once per path (every request asks): the spec tree is not changed after loading
+        JsonNode n = requestSchemas.computeIfAbsent(path, p -> spec.at(requestPointer(p)));
         return n.isMissingNode() ? null : n;
     }
 
     /** Follows local {@code $ref}s and a lone {@code allOf}. */
     private JsonNode resolve(JsonNode s) {
         for (int i = 0; s != null && i < 32; i++) {
-            if (s.has("$ref") && s.get("$ref").asText().startsWith("#")) {
-                s = spec.at(s.get("$ref").asText().substring(1));
+            JsonNode ref = s.get("$ref");
+            if (ref != null && ref.asText().startsWith("#")) {
+                s = refs.computeIfAbsent(ref.asText(), r -> spec.at(r.substring(1)));
             } else if (s.has("allOf") && s.get("allOf").size() == 1) {
                 s = s.get("allOf").get(0);
             } else {

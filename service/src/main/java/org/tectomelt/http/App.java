@@ -81,6 +81,7 @@ public final class App {
                 + config.resultFingerprint());
         AccessControl access = new AccessControl(tokens);
         InteractiveLoad load = runs.interactiveLoad();
+        AccessLog accessLog = new AccessLog();
         Javalin app = Javalin.create(c -> {
             c.startup.showJavalinBanner = false;
             c.startup.showOldJavalinVersionWarning = false;
@@ -127,7 +128,7 @@ public final class App {
             c.requestLogger.http((ctx, ms) -> {
                 interactiveEnd(ctx, load);
                 metrics.finished(ctx, ms);
-                RequestPlumbing.finished(ctx, ms, observer);
+                RequestPlumbing.finished(ctx, ms, observer, accessLog);
             });
             // heavy work still running when the grace period ends has no one left to answer: cancel it
             c.events.serverStopping(() -> heavy.cancelAllAfter(config.shutdownGraceMillis()));
@@ -137,6 +138,7 @@ public final class App {
                 metrics.close();
             });
             c.events.serverStopped(runs::close);
+            c.events.serverStopped(accessLog::close);
         });
         return app;
     }

@@ -86,7 +86,7 @@ final class OperationHandler {
             throws Exception {
         JsonNode body = RequestKey.parsedBody(ctx);
         Invoker.Prepared<Q, R> prepared = body != null ? invoker.prepare(op, body)
-                : invoker.prepare(op, ctx.bodyAsBytes());
+                : invoker.prepare(op, RequestIntake.body(ctx));
         if (prepared.cost() == Cost.HEAVY && !Heavy.inSlot(ctx)) {
             // a heavy request of a cheap operation (a large batch): limiter and budget as for heavy routes
             Heavy heavy = ctx.appData(Heavy.KEY);
@@ -102,17 +102,19 @@ final class OperationHandler {
         String rows = prepared.operation().rows(result);
         List<String> fields = fields(ctx);
         boolean csv = wantsCsv(ctx);
+        boolean bibtex = MetaRoutes.wantsBibtex(ctx);
+        if (!bibtex && (rows == null || (!csv && fields == null))) {
+            // the common answer: the result and its provenance, serialised in one pass
+            Responses.bytes(ctx, new Responses.Written(Responses.JSON, Provenance.json(result)));
+            return;
+        }
         ObjectNode tree = Json.mapper().valueToTree(result);
-        if (MetaRoutes.wantsBibtex(ctx)) {
+        if (bibtex) {
             Responses.bytes(ctx, new Responses.Written(MetaRoutes.BIBTEX + "; charset=utf-8",
                     Provenance.bibtex(tree).getBytes(StandardCharsets.UTF_8)));
             return;
         }
         Provenance.attach(tree);
-        if (rows == null || (!csv && fields == null)) {
-            Responses.json(ctx, tree);
-            return;
-        }
         JsonNode list = tree;
         for (String part : rows.split("\\.")) {
             list = list.path(part);

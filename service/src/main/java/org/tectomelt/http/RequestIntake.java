@@ -66,6 +66,18 @@ final class RequestIntake extends Handler.Wrapper {
         this.bodyTimeoutMillis = bodyTimeoutMillis;
     }
 
+    /** Request attribute holding the whole body (bytes) when it arrived complete and within the cap. */
+    static final String BODY_ATTR = "tectomelt.body";
+
+    /**
+     * The request body: the bytes read here when the body arrived whole within the cap, otherwise
+     * what the framework reads ({@code ctx.bodyAsBytes()}, which enforces the cap itself).
+     */
+    static byte[] body(io.javalin.http.Context ctx) {
+        Object b = ctx.attribute(BODY_ATTR);
+        return b instanceof byte[] bytes ? bytes : ctx.bodyAsBytes();
+    }
+
     /** The failure mark of this request's body, or null when it arrived whole (or there was none). */
     static BodyFailure failure(io.javalin.http.Context ctx) {
         Object f = ctx.attribute(FAILURE_ATTR);
@@ -143,8 +155,8 @@ final class RequestIntake extends Handler.Wrapper {
         }
 
         void start() {
-            timer = request.getComponents().getScheduler().schedule(this::timedOut, bodyTimeoutMillis,
-                    TimeUnit.MILLISECONDS);
+            // a small body usually came with the headers: read it at once, and start the body's clock
+            // only when the rest has to be waited for (saves a timer per request)
             read(false);
         }
 
@@ -172,6 +184,10 @@ final class RequestIntake extends Handler.Wrapper {
                 while (true) {
                     Content.Chunk chunk = request.read();
                     if (chunk == null) {
+                        if (timer == null) {
+                            timer = request.getComponents().getScheduler().schedule(this::timedOut,
+                                    bodyTimeoutMillis, TimeUnit.MILLISECONDS);
+                        }
                         request.demand(this);
                         return;
                     }
@@ -201,7 +217,9 @@ final class RequestIntake extends Handler.Wrapper {
                 }
                 dispatched = true;
             }
-            timer.cancel();
+            if (timer != null) {
+                timer.cancel();
+            }
             BodyFailure f = failure;
             boolean rest = tail != null;
             if (fromDemand) {
@@ -228,7 +246,12 @@ final class RequestIntake extends Handler.Wrapper {
                 request.setAttribute(FAILURE_ATTR, failure);
                 delivered = new Buffered(request, null, false, failure);
             } else {
-                delivered = new Buffered(request, discard ? null : body.toByteArray(), streamRest, null);
+                byte[] bytes = discard ? null : body.toByteArray();
+                if (bytes != null && !streamRest) {
+                    // the whole body, within the cap: the app reads it from here without a second copy
+                    request.setAttribute(BODY_ATTR, bytes);
+                }
+                delivered = new Buffered(request, bytes, streamRest, null);
             }
             try {
                 if (!next.handle(delivered, response, callback)) {

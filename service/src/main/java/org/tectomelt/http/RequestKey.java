@@ -7,6 +7,7 @@ import java.nio.charset.StandardCharsets;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Base64;
 import java.util.Iterator;
 import java.util.List;
@@ -77,7 +78,8 @@ final class RequestKey {
     private String compute(Context ctx) {
         StringBuilder sb = new StringBuilder(256);
         sb.append(seed).append('\n').append(ctx.method().name()).append(' ').append(ctx.path()).append('\n');
-        Map<String, List<String>> query = new TreeMap<>(ctx.queryParamMap());
+        Map<String, List<String>> given = ctx.queryParamMap();
+        Map<String, List<String>> query = given.isEmpty() ? given : new TreeMap<>(given);
         for (Map.Entry<String, List<String>> q : query.entrySet()) {
             List<String> values = new ArrayList<>(q.getValue());
             values.sort(null);
@@ -88,7 +90,7 @@ final class RequestKey {
         sb.append(MetaRoutes.wantsBibtexQuietly(ctx) ? "bibtex" : OperationHandler.wantsCsv(ctx) ? "csv" : "json")
                 .append('\n');
         if (ctx.method() == HandlerType.POST) {
-            byte[] body = ctx.bodyAsBytes();
+            byte[] body = RequestIntake.body(ctx);
             JsonNode tree;
             try {
                 tree = Json.mapper().readTree(body);
@@ -108,21 +110,20 @@ final class RequestKey {
     static void canonical(JsonNode node, StringBuilder sb) {
         switch (node.getNodeType()) {
             case OBJECT -> {
-                TreeMap<String, JsonNode> sorted = new TreeMap<>();
-                for (Iterator<Map.Entry<String, JsonNode>> it = node.fields(); it.hasNext(); ) {
-                    Map.Entry<String, JsonNode> e = it.next();
-                    sorted.put(e.getKey(), e.getValue());
+                String[] keys = new String[node.size()];
+                int k = 0;
+                for (Iterator<String> it = node.fieldNames(); it.hasNext(); ) {
+                    keys[k++] = it.next();
                 }
+                Arrays.sort(keys);   // the parser refuses duplicate keys, so the names are distinct
                 sb.append('{');
-                boolean first = true;
-                for (Map.Entry<String, JsonNode> e : sorted.entrySet()) {
-                    if (!first) {
+                for (int i = 0; i < keys.length; i++) {
+                    if (i > 0) {
                         sb.append(',');
                     }
-                    first = false;
-                    quote(e.getKey(), sb);
+                    quote(keys[i], sb);
                     sb.append(':');
-                    canonical(e.getValue(), sb);
+                    canonical(node.get(keys[i]), sb);
                 }
                 sb.append('}');
             }
@@ -159,14 +160,19 @@ final class RequestKey {
         sb.append('"');
     }
 
-    private static String hash(String canonical) {
+    /** A SHA-256 digest per thread: looking one up by name for every request costs more than hashing. */
+    private static final ThreadLocal<MessageDigest> SHA256 = ThreadLocal.withInitial(() -> {
         try {
-            byte[] d = MessageDigest.getInstance("SHA-256").digest(canonical.getBytes(StandardCharsets.UTF_8));
-            byte[] head = new byte[18];
-            System.arraycopy(d, 0, head, 0, head.length);
-            return Base64.getUrlEncoder().withoutPadding().encodeToString(head);
+            return MessageDigest.getInstance("SHA-256");
         } catch (NoSuchAlgorithmException e) {
             throw new IllegalStateException("SHA-256 is required of every Java platform", e);
         }
+    });
+
+    private static String hash(String canonical) {
+        MessageDigest md = SHA256.get();
+        md.reset();
+        byte[] d = md.digest(canonical.getBytes(StandardCharsets.UTF_8));
+        return Base64.getUrlEncoder().withoutPadding().encodeToString(Arrays.copyOf(d, 18));
     }
 }

@@ -18,7 +18,6 @@ final class RequestPlumbing {
     private static final Pattern SAFE_ID = Pattern.compile("[A-Za-z0-9._:-]{1,64}");
     /** Refused bodies up to this many times the cap are read and dropped before the 413. */
     static final long DRAIN_FACTOR = 16;
-    private static final Logger ACCESS = LoggerFactory.getLogger("tectomelt.access");
     private static final Logger LOG = LoggerFactory.getLogger(RequestPlumbing.class);
 
     private RequestPlumbing() {
@@ -27,9 +26,21 @@ final class RequestPlumbing {
     /** Takes {@code X-Request-Id} from the request when it is safe to echo, else makes one; echoes it. */
     static void assignRequestId(Context ctx) {
         String given = ctx.header(REQUEST_ID_HEADER);
-        String id = given != null && SAFE_ID.matcher(given).matches() ? given : UUID.randomUUID().toString();
+        String id = given != null && SAFE_ID.matcher(given).matches() ? given : newRequestId();
         ctx.attribute(REQUEST_ID_ATTR, id);
         ctx.header(REQUEST_ID_HEADER, id);
+    }
+
+    /**
+     * A fresh random (version 4) UUID. A request id needs uniqueness, not secrecy, so it is drawn
+     * from the thread's own generator instead of {@code UUID.randomUUID()}'s shared secure one
+     * (which every request thread would otherwise queue on).
+     */
+    static String newRequestId() {
+        java.util.concurrent.ThreadLocalRandom r = java.util.concurrent.ThreadLocalRandom.current();
+        long hi = (r.nextLong() & ~0xF000L) | 0x4000L;                 // version 4
+        long lo = (r.nextLong() & 0x3FFFFFFFFFFFFFFFL) | 0x8000000000000000L;   // IETF variant
+        return new UUID(hi, lo).toString();
     }
 
     /** The id assigned to this request ("-" before assignment). */
@@ -86,6 +97,8 @@ final class RequestPlumbing {
 
     /** A parsed Content-Type: the lower-case type/subtype and the charset parameter (or null). */
     record MediaType(String type, String charset) {
+        private static final Pattern TYPE = Pattern.compile("[a-z0-9!#$&^_.+-]+/[a-z0-9!#$&^_.+-]+");
+
         /** Null when the header is absent or not a media type. */
         static MediaType parse(String header) {
             if (header == null) {
@@ -93,7 +106,7 @@ final class RequestPlumbing {
             }
             String[] parts = header.split(";");
             String type = parts[0].trim().toLowerCase(java.util.Locale.ROOT);
-            if (!type.matches("[a-z0-9!#$&^_.+-]+/[a-z0-9!#$&^_.+-]+")) {
+            if (!TYPE.matcher(type).matches()) {
                 return null;
             }
             String charset = null;
@@ -150,12 +163,20 @@ final class RequestPlumbing {
     }
 
     /** One access-log line per request, and the observer notification. */
-    static void finished(Context ctx, Float millis, RequestObserver observer) {
+    static void finished(Context ctx, Float millis, RequestObserver observer, AccessLog log) {
         int status = ctx.status().getCode();
         String route = matchedRoute(ctx);
-        ACCESS.info("{} {} {} {}ms requestId={}", ctx.method(), ctx.path(), status,
-                String.format(java.util.Locale.ROOT, "%.1f", millis), requestId(ctx));
+        log.line(ctx.method().name(), ctx.path(), status, millis, requestId(ctx));
         observer.finished(ctx.method().name(), route, status);
+    }
+
+    /** {@code millis} with one decimal ({@code 12.3}), as {@code %.1f} writes it, without a Formatter. */
+    static String tenths(float millis) {
+        if (!Float.isFinite(millis) || millis < 0 || millis >= 1e9f) {
+            return String.format(java.util.Locale.ROOT, "%.1f", millis);
+        }
+        long t = Math.round(millis * 10.0);
+        return (t / 10) + "." + (t % 10);
     }
 
     private static String matchedRoute(Context ctx) {

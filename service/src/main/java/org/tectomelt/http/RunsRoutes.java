@@ -62,7 +62,7 @@ final class RunsRoutes {
 
     private static void submit(Context ctx, Invoker invoker) {
         RunService runs = runs(ctx);
-        JsonNode body = Json.readTree(ctx.bodyAsBytes());
+        JsonNode body = Json.readTree(RequestIntake.body(ctx));
         Sweep sweep = Sweep.parse(body, invoker, runs.config().maxRunPoints());
         String owner = AccessControl.caller(ctx);
         runs.queueLimitProblem(owner).ifPresent(detail -> {

@@ -64,8 +64,10 @@ public final class Rules {
      * deepest depth): inclusive, with the same wording as the spec's ranges. Returns whether it holds.
      */
     public boolean within(String name, double value, double min, double max) {
-        return check(value >= min && value <= max, name, "must be between " + format(min) + " and " + format(max)
-                + ", got " + format(value));
+        if (value >= min && value <= max) {
+            return true;   // the message is built only for a broken rule (this runs on every request)
+        }
+        return check(false, name, "must be between " + format(min) + " and " + format(max) + ", got " + format(value));
     }
 
     /**
@@ -73,7 +75,10 @@ public final class Rules {
      * {@code capVariable}. Returns whether it is within the cap.
      */
     public boolean cap(String name, double size, double max, String what, String capVariable) {
-        return check(size <= max, name, what + " " + format(size) + " exceeds the server cap of " + format(max)
+        if (size <= max) {
+            return true;
+        }
+        return check(false, name, what + " " + format(size) + " exceeds the server cap of " + format(max)
                 + " (" + capVariable + ")");
     }
 

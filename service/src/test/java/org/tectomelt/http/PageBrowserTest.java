@@ -364,6 +364,70 @@ class PageBrowserTest {
         browser.screenshot("sill");
     }
 
+    /** A summary row's time as shown (value in yr, kyr or Myr), in kyr. */
+    private static double shownKyr(String path) {
+        String row = "#summary tr[data-path='" + path + "'] ";
+        return Double.parseDouble(text(row + "td.value")) * Map.of("yr", 1e-3, "kyr", 1.0, "Myr", 1e3).get(text(row + "td.unit"));
+    }
+
+    @Test
+    void sillFormUsesTheGradedGridDefaultsAndRunsConvectionBesideConduction() throws Exception {
+        browser.open(page("sill"));
+        // the finest spacing is optional: left empty, the service plans 1/400 of the sill thickness
+        WebElement spacing = browser.driver.findElement(By.cssSelector("[name='gridSpacingM']"));
+        assertEquals("", spacing.getAttribute("value"));
+        assertEquals("server default", spacing.getAttribute("placeholder"));
+        assertFalse(present(".field:not([hidden]) [name='intrusion.lockMeltFraction']"), "the lock-up field waits for convection");
+        browser.fill("intrusion.repeat.count", "3");
+        browser.fill("durationKyr", "60");
+        browser.fill("outputEveryKyr", "1");
+        browser.fill("profileTimesKyr", "0, 30, 60");
+        select("intrusion.convection", "true");
+        assertTrue(present(".field:not([hidden]) [name='intrusion.lockMeltFraction']"), "convection shows its threshold");
+        browser.fill("intrusion.lockMeltFraction", "0.5");
+        assertEquals("done", browser.submit(), text("#form-error"));
+        JsonNode json = downloadedJson("sill");
+
+        // the graded grid as the service reports it: finest cell 250 m / 400 (the spec's default), coarse far away
+        assertEquals(250.0 / 400, json.at("/numerics/gridSpacingM").asDouble(), 1e-12);
+        assertEquals(json.at("/numerics/smallestCellM").asDouble(), summary("numerics.smallestCellM"), 0.0006);
+        assertEquals(json.at("/numerics/largestCellM").asDouble(), summary("numerics.largestCellM"), 0.06);
+        assertTrue(json.at("/numerics/largestCellM").asDouble() / json.at("/numerics/smallestCellM").asDouble() > 100);
+        // and its convergence check, run by default
+        JsonNode check = json.at("/numerics/convergence");
+        assertEquals(2 * 250.0 / 400, check.get("coarseGridSpacingM").asDouble(), 1e-12);
+        assertEquals(100 * check.get("largestChange").asDouble(), summary("numerics.convergence.largestChange"), 0.006);
+        assertEquals(check.get("converged").asBoolean() ? "yes" : "no",
+                text("#summary tr[data-path='numerics.convergence.converged'] td.value"));
+
+        // convection: the lock-up time as reported, and the conducting run beside it
+        double lockUp = json.at("/summary/lockUpTimeKyr").asDouble();
+        assertTrue(lockUp > 0, json.at("/summary").toString());
+        assertEquals(lockUp, shownKyr("summary.lockUpTimeKyr"), 0.051 * Math.max(1, lockUp));
+        double convecting = json.at("/summary/timeToFirstCrustMeltKyr").asDouble();
+        double conducting = shownKyr("counterpart:summary.timeToFirstCrustMeltKyr");
+        // Huppert & Sparks (1988): a convecting sill gives its roof more heat sooner, so the crust melts sooner
+        assertTrue(convecting < conducting, "convecting " + convecting + " kyr, conducting " + conducting + " kyr");
+        WebElement meltPlot = figureSvg("Crustal melt against time");
+        WebElement both = meltPlot.findElement(By.cssSelector("path.curve.role-melt"));
+        WebElement cond = meltPlot.findElement(By.cssSelector("path.curve.role-isopleth"));
+        assertEquals(String.valueOf(json.get("series").size()), both.getAttribute("data-points"));
+        assertEquals(both.getAttribute("data-points"), cond.getAttribute("data-points"), "the same output times");
+        assertTrue(cond.getAttribute("data-series").contains("conducting"), cond.getAttribute("data-series"));
+        String conductingRow = text("#summary tr[data-path='counterpart:summary.timeToFirstCrustMeltKyr'] td.value")
+                + text("#summary tr[data-path='counterpart:summary.timeToFirstCrustMeltKyr'] td.unit");
+        browser.screenshot("sill-convection");
+
+        // the conducting row is the run without convection, as the form gives it
+        select("intrusion.convection", "false");
+        assertEquals("done", browser.submit(), text("#form-error"));
+        assertEquals(conductingRow, text("#summary tr[data-path='summary.timeToFirstCrustMeltKyr'] td.value")
+                + text("#summary tr[data-path='summary.timeToFirstCrustMeltKyr'] td.unit"));
+        assertFalse(present("#summary tr[data-path='summary.lockUpTimeKyr']"), "no lock-up without convection");
+        assertFalse(present("#summary tr[data-path^='counterpart:']"), "no second run without convection");
+        assertTrue(figureSvg("Crustal melt against time").findElements(By.cssSelector("path.curve.role-isopleth")).isEmpty());
+    }
+
     /** Runs {@code body} (which may await) in the page with the page's modules as {@code plot} and {@code app}. */
     @SuppressWarnings("unchecked")
     private static Map<String, Object> inPage(String body) {

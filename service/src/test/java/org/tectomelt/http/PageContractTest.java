@@ -178,6 +178,69 @@ class PageContractTest {
                 + String.join("\n  ", problems));
     }
 
+    /**
+     * A spec boolean is chosen from a select that sends a JSON boolean ({@code valueType: boolean}, options
+     * "true" and "false"); a tool's counterpart run (the same request with one case switched, e.g. conduction
+     * beside convection) names a field of its form and request fields of the spec.
+     */
+    @Test
+    void booleanFieldsSendBooleansAndCounterpartRunsNameSpecFields() throws IOException {
+        JsonNode spec = spec();
+        List<String> problems = new ArrayList<>();
+        int booleans = 0;
+        SchemaWalker w = new SchemaWalker(spec);
+        for (JsonNode t : tools().get("tools")) {
+            JsonNode request = w.resolve(spec.path("paths").path(t.get("endpoint").asText())
+                    .at("/post/requestBody/content/application~1json/schema"));
+            if (request == null) {
+                continue; // not on this server
+            }
+            String id = t.get("id").asText();
+            Set<String> names = new HashSet<>();
+            for (JsonNode f : t.get("fields")) {
+                String name = f.get("name").asText();
+                names.add(name);
+                JsonNode schema = f.path("send").asBoolean(true) ? w.at(request, name) : null;
+                boolean specBoolean = schema != null && "boolean".equals(schema.path("type").asText());
+                boolean sendsBoolean = "boolean".equals(f.path("valueType").asText());
+                if (specBoolean != sendsBoolean) {
+                    problems.add(id + "." + name + ": the spec's type is " + (schema == null ? "-" : schema.path("type").asText())
+                            + " but the field's valueType is " + f.path("valueType").asText("-"));
+                }
+                if (sendsBoolean) {
+                    booleans++;
+                    Set<String> values = new HashSet<>();
+                    f.path("options").forEach(o -> values.add(o.get("value").asText()));
+                    if (!"select".equals(f.get("type").asText()) || !values.equals(Set.of("true", "false"))) {
+                        problems.add(id + "." + name + ": a boolean is a select of \"true\" and \"false\"");
+                    }
+                }
+            }
+            JsonNode cp = t.path("counterpart");
+            if (cp.isMissingNode()) {
+                continue;
+            }
+            if (!names.contains(cp.at("/when/field").asText())) {
+                problems.add(id + ": counterpart condition on an unknown field " + cp.at("/when/field").asText());
+            }
+            cp.path("set").fieldNames().forEachRemaining(n -> {
+                if (w.at(request, n) == null) {
+                    problems.add(id + ": counterpart sets " + n + ", not in the spec");
+                }
+            });
+            cp.path("drop").forEach(n -> {
+                if (w.at(request, n.asText()) == null) {
+                    problems.add(id + ": counterpart drops " + n.asText() + ", not in the spec");
+                }
+            });
+            if (cp.path("label").asText().isBlank()) {
+                problems.add(id + ": counterpart without a label");
+            }
+        }
+        assertTrue(booleans >= 2, "the sill form's convection and grid-check choices at least: " + booleans);
+        assertTrue(problems.isEmpty(), String.join("\n  ", problems));
+    }
+
     @Test
     void theSchemaWalkerFollowsReferencesAndRejectsUnknownNames() throws IOException {
         SchemaWalker w = new SchemaWalker(spec());

@@ -1153,35 +1153,41 @@ public final class SillModel {
                     double da = dzc[i];
                     double db = dzc[b];
                     double d = da + db;
-                    h[w] = (h[i] * da + h[b] * db) / d;
-                    hOrigin[w] = (hOrigin[i] * da + hOrigin[b] * db) / d;
-                    heat[w] = (heat[i] * da + heat[b] * db) / d;
-                    temp[w] = (temp[i] * da + temp[b] * db) / d;
+                    double hm = (h[i] * da + h[b] * db) / d;
+                    double om = (hOrigin[i] * da + hOrigin[b] * db) / d;
+                    double qm = (heat[i] * da + heat[b] * db) / d;
+                    double tm = (temp[i] * da + temp[b] * db) / d;
+                    moveCell(i, w);
+                    h[w] = hm;
+                    hOrigin[w] = om;
+                    heat[w] = qm;
+                    temp[w] = tm;
                     dzc[w] = d;
                     invDz[w] = 1 / d;
-                    seg[w] = seg[i];
-                    rock[w] = rock[i];
-                    curve[w] = curve[i];
-                    sill[w] = sill[i];
                     merges++;
                     i = b;
                 } else if (w != i) {
-                    h[w] = h[i];
-                    hOrigin[w] = hOrigin[i];
-                    heat[w] = heat[i];
-                    temp[w] = temp[i];
-                    dzc[w] = dzc[i];
-                    invDz[w] = invDz[i];
-                    seg[w] = seg[i];
-                    rock[w] = rock[i];
-                    curve[w] = curve[i];
-                    sill[w] = sill[i];
+                    moveCell(i, w);
                 }
                 w++;
             }
             n = w;
             emplacedCells -= merges;
             return merges;
+        }
+
+        /** Copies cell {@code from} to position {@code to} (the arrays that stay with a cell between steps). */
+        private void moveCell(int from, int to) {
+            h[to] = h[from];
+            hOrigin[to] = hOrigin[from];
+            heat[to] = heat[from];
+            temp[to] = temp[from];
+            dzc[to] = dzc[from];
+            invDz[to] = invDz[from];
+            seg[to] = seg[from];
+            rock[to] = rock[from];
+            curve[to] = curve[from];
+            sill[to] = sill[from];
         }
 
         /** Inserts one sill and books its enthalpy. */
