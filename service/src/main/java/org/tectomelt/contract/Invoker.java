@@ -2,11 +2,13 @@ package org.tectomelt.contract;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.lang.reflect.RecordComponent;
 import java.util.Collection;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.tectomelt.engine.Deadline;
+import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.operations.Cost;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
@@ -159,6 +161,47 @@ public final class Invoker {
      */
     public Map<String, Double> outputs(String name, Record result, Collection<String> names) {
         return outputsOf(operation(name), result, names);
+    }
+
+    /** Reads a result record's {@code models} component; null for a record without one. */
+    private static final ClassValue<RecordComponent> MODELS = new ClassValue<>() {
+        @Override
+        protected RecordComponent computeValue(Class<?> type) {
+            if (type.isRecord()) {
+                for (RecordComponent c : type.getRecordComponents()) {
+                    if (c.getName().equals("models") && List.class.isAssignableFrom(c.getType())) {
+                        return c;
+                    }
+                }
+            }
+            return null;
+        }
+    };
+
+    /**
+     * The published models an operation's result lists under {@code models} (what the answer's
+     * {@code provenance.models} shows over HTTP); empty when the result has no such component.
+     */
+    public static List<ModelInfo> models(Record result) {
+        RecordComponent c = MODELS.get(result.getClass());
+        if (c == null) {
+            return List.of();
+        }
+        Object value;
+        try {
+            value = c.getAccessor().invoke(result);
+        } catch (ReflectiveOperationException e) {
+            throw new IllegalStateException("cannot read the models of " + result.getClass().getName(), e);
+        }
+        List<ModelInfo> out = new java.util.ArrayList<>();
+        if (value instanceof List<?> list) {
+            for (Object m : list) {
+                if (m instanceof ModelInfo info) {
+                    out.add(info);
+                }
+            }
+        }
+        return out;
     }
 
     @SuppressWarnings("unchecked")

@@ -15,6 +15,7 @@ import java.util.Map;
 import java.util.TreeMap;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
+import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.runs.NewRun;
 import org.tectomelt.runs.PointResult;
@@ -49,7 +50,7 @@ final class RunsRoutes {
         return List.of(
                 Route.livePost("/v1/runs", ctx -> submit(ctx, invoker)),
                 Route.liveGet("/v1/runs", RunsRoutes::list),
-                Route.liveGet("/v1/runs/{id}", ctx -> ctx.contentType(Responses.JSON).result(Json.write(view(found(ctx))))),
+                Route.liveGet("/v1/runs/{id}", ctx -> ctx.contentType(Responses.JSON).result(Json.write(view(ctx, found(ctx))))),
                 Route.liveGet("/v1/runs/{id}/results", ctx -> results(ctx, invoker)),
                 Route.delete("/v1/runs/{id}", RunsRoutes::delete));
     }
@@ -71,12 +72,18 @@ final class RunsRoutes {
         });
         RunRecord r = runs.submit(new NewRun(Sweep.KIND, sweep.operation(), owner, sweep.label(), sweep.definition(),
                 provenance(invoker, sweep), sweep.points()));
-        ctx.status(202).header("Location", "/v1/runs/" + r.id()).contentType(Responses.JSON).result(Json.write(view(r)));
+        ctx.status(202).header("Location", "/v1/runs/" + r.id()).contentType(Responses.JSON).result(Json.write(view(r, List.of())));
     }
 
+    /**
+     * What is stored with a run when it is accepted: the build that accepted it (version and
+     * commit, as {@code /v1/health} reports them), the operation and its path. The models are
+     * added when the run is shown, from those its computed points listed ({@link #view}).
+     */
     private static String provenance(Invoker invoker, Sweep sweep) {
         ObjectNode p = Json.mapper().createObjectNode();
         p.put("version", App.VERSION);
+        p.put("commit", BuildInfo.CURRENT.commitLabel());
         p.put("operation", sweep.operation());
         Operation<?, ?> op = invoker.operation(sweep.operation());
         p.put("path", op.path());
@@ -93,8 +100,17 @@ final class RunsRoutes {
                 List.of(), Map.of()));
     }
 
-    /** The JSON of a run: what {@code POST}, {@code GET /v1/runs/{id}} and the listing show. */
-    static ObjectNode view(RunRecord r) {
+    /** {@link #view(RunRecord, List)} with the run's models read from the database. */
+    private static ObjectNode view(Context ctx, RunRecord r) {
+        return view(r, runs(ctx).models(List.of(r.id())).get(r.id()));
+    }
+
+    /**
+     * The JSON of a run: what {@code POST}, {@code GET /v1/runs/{id}} and the listing show.
+     *
+     * @param models the published models its computed points listed (none before the first is stored)
+     */
+    static ObjectNode view(RunRecord r, List<ModelInfo> models) {
         ObjectNode o = Json.mapper().createObjectNode();
         o.put("id", r.id());
         o.put("kind", r.kind());
@@ -125,14 +141,31 @@ final class RunsRoutes {
         if (r.statusReason() != null) {
             o.put("statusReason", r.statusReason());
         }
-        if (r.provenance() != null) {
-            o.set("provenance", tree(r.provenance()));
-        }
+        o.set("provenance", provenance(r, models));
         ObjectNode links = o.putObject("links");
         links.put("self", "/v1/runs/" + r.id());
         links.put("results", "/v1/runs/" + r.id() + "/results");
         links.put("page", "/#/runs/" + r.id());
         return o;
+    }
+
+    /**
+     * {@code provenance: {version, commit, models, operation, path, spec}}: the stored part, with
+     * the models of its computed points. A run accepted before commits were stored says
+     * {@code unknown} for the commit (the build that accepted it is not known).
+     */
+    private static ObjectNode provenance(RunRecord r, List<ModelInfo> models) {
+        JsonNode stored = r.provenance() == null ? Json.mapper().createObjectNode() : tree(r.provenance());
+        ObjectNode p = Json.mapper().createObjectNode();
+        p.put("version", stored.path("version").asText(App.VERSION));
+        p.put("commit", stored.path("commit").asText(BuildInfo.UNKNOWN));
+        p.set("models", Json.mapper().valueToTree(models));
+        stored.fields().forEachRemaining(e -> {
+            if (!p.has(e.getKey())) {
+                p.set(e.getKey(), e.getValue());
+            }
+        });
+        return p;
     }
 
     private static void list(Context ctx) {
@@ -153,8 +186,10 @@ final class RunsRoutes {
                 blankToNull(ctx.queryParam("operation")));
         ObjectNode o = Json.mapper().createObjectNode();
         ArrayNode items = o.putArray("runs");
-        for (RunRecord r : runs.list(f, limit, offset)) {
-            items.add(view(r));
+        List<RunRecord> page = runs.list(f, limit, offset);
+        Map<String, List<ModelInfo>> models = runs.models(page.stream().map(RunRecord::id).toList());
+        for (RunRecord r : page) {
+            items.add(view(r, models.get(r.id())));
         }
         o.put("total", runs.count(f));
         o.put("limit", limit);
@@ -173,7 +208,7 @@ final class RunsRoutes {
                     List.of(), Map.of());
         }
         switch (runs(ctx).delete(r.id(), caller)) {
-            case CANCELLED -> ctx.contentType(Responses.JSON).result(Json.write(view(runs(ctx).find(r.id()).orElseThrow())));
+            case CANCELLED -> ctx.contentType(Responses.JSON).result(Json.write(view(ctx, runs(ctx).find(r.id()).orElseThrow())));
             case REMOVED -> ctx.status(204);
             case NOT_FOUND -> throw new ApiProblem(404, "run-not-found", "No such run",
                     "Run " + r.id() + " was deleted meanwhile", List.of(), Map.of());

@@ -19,8 +19,10 @@ import java.time.Instant;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.BitSet;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicInteger;
@@ -216,6 +218,7 @@ final class RunExecutor implements AutoCloseable {
         int to = Math.min(from + run.chunkSize(), run.totalPoints());
         BitSet have = store.computed(runId, from, to);
         List<PointResult> batch = new ArrayList<>();
+        Set<String> modelsRecorded = new HashSet<>();
         long lastSave = System.nanoTime();
         for (int i = from; i < to; i++) {
             if (have.get(i - from)) {
@@ -223,21 +226,25 @@ final class RunExecutor implements AutoCloseable {
             }
             load.yieldToInteractive();
             PointResult p = prepared.evaluate(i);
-            batch.add(new PointResult(i, p.inputs(), p.outputs(), p.problem(), config.instanceName()));
+            batch.add(new PointResult(i, p.inputs(), p.outputs(), p.problem(), config.instanceName(), p.models()));
             if (System.nanoTime() - lastSave > SAVE_EVERY_NANOS) {
-                if (!save(runId, batch)) {
+                if (!save(runId, batch, modelsRecorded)) {
                     return;
                 }
                 lastSave = System.nanoTime();
             }
         }
         if (!batch.isEmpty() || have.cardinality() == to - from) {
-            save(runId, batch);
+            save(runId, batch, modelsRecorded);
         }
     }
 
-    /** Saves and clears {@code batch}; false when the run is no longer active. */
-    private boolean save(String runId, List<PointResult> batch) {
+    /**
+     * Records the models of {@code batch} the run lacks ({@code modelsRecorded}: those this chunk
+     * recorded already), then saves and clears the batch; false when the run is no longer active.
+     */
+    private boolean save(String runId, List<PointResult> batch, Set<String> modelsRecorded) {
+        store.recordModels(runId, batch, modelsRecorded);
         RunStore.Saved saved = store.save(runId, batch, Instant.now());
         long n = batch.size();
         batch.clear();

@@ -1,6 +1,7 @@
 package org.tectomelt.runs;
 
 import java.time.Instant;
+import java.util.Collection;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -9,6 +10,7 @@ import java.util.function.Consumer;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.tectomelt.RunsConfig;
+import org.tectomelt.engine.ModelInfo;
 
 /**
  * The runs of this service: accept, read, list, cancel and delete them; they are computed in the
@@ -109,6 +111,14 @@ public final class RunService implements AutoCloseable {
     /** Computed points after {@code afterIndex}, in order, at most {@code limit}; returns the last index. */
     public int points(String id, int afterIndex, int limit, Consumer<PointResult> sink) {
         return store.points(id, afterIndex, limit, sink);
+    }
+
+    /**
+     * The published models behind each run's computed points (the union over its points, in the
+     * order they were first listed), as stored by whichever instance computed them.
+     */
+    public Map<String, List<ModelInfo>> models(Collection<String> ids) {
+        return store.models(ids);
     }
 
     /** Points computed per instance, for one run. */

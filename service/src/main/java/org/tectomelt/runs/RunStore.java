@@ -9,13 +9,17 @@ import java.time.OffsetDateTime;
 import java.time.ZoneOffset;
 import java.util.ArrayList;
 import java.util.BitSet;
+import java.util.Collection;
 import java.util.EnumMap;
 import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import java.util.function.Consumer;
 import javax.sql.DataSource;
+import org.tectomelt.engine.ModelInfo;
 
 /**
  * The SQL of runs and points (one dialect for H2 and PostgreSQL). Every method opens its own
@@ -25,6 +29,9 @@ public final class RunStore {
 
     private static final String COLUMNS = "id, kind, operation, owner_name, label, status, definition, provenance, "
             + "total_points, chunk_size, done_points, failed_points, created_at, started_at, finished_at, status_reason";
+
+    /** SQLSTATE of a unique-key violation (H2 and PostgreSQL alike). */
+    private static final String UNIQUE_VIOLATION = "23505";
 
     private final DataSource ds;
     private final String where;
@@ -333,6 +340,76 @@ public final class RunStore {
                 try (ResultSet rs = ps.executeQuery()) {
                     while (rs.next()) {
                         out.put(rs.getString(1), rs.getInt(2));
+                    }
+                }
+            }
+            return out;
+        });
+    }
+
+    /**
+     * Records the models {@code points} list that this run does not have yet ({@code known}: the
+     * ids this caller already recorded for it, updated). Each model is its own statement outside
+     * any transaction, so a second instance recording the same model at the same moment (the
+     * primary key refuses one of the two) changes nothing and fails nothing. Called before the
+     * points are saved: a stored point's models are always stored.
+     */
+    void recordModels(String runId, List<PointResult> points, Set<String> known) {
+        run(c -> {
+            try (PreparedStatement ps = c.prepareStatement("insert into run_models "
+                    + "(run_id, model_id, citation, doi, first_point, list_order) select ?, ?, ?, ?, ?, ? "
+                    + "where not exists (select 1 from run_models where run_id = ? and model_id = ?)")) {
+                for (PointResult p : points) {
+                    for (int k = 0; k < p.models().size(); k++) {
+                        ModelInfo m = p.models().get(k);
+                        if (!known.add(m.id())) {
+                            continue;
+                        }
+                        ps.setString(1, runId);
+                        ps.setString(2, m.id());
+                        ps.setString(3, m.citation());
+                        ps.setString(4, m.doi() == null ? "" : m.doi());
+                        ps.setInt(5, p.index());
+                        ps.setInt(6, k);
+                        ps.setString(7, runId);
+                        ps.setString(8, m.id());
+                        try {
+                            ps.executeUpdate();
+                        } catch (SQLException e) {
+                            if (!UNIQUE_VIOLATION.equals(e.getSQLState())) {
+                                known.remove(m.id());
+                                throw e;
+                            }
+                            // recorded by another instance between the check and the insert
+                        }
+                    }
+                }
+            }
+            return null;
+        });
+    }
+
+    /**
+     * The models of the runs {@code runIds} (each run's list in the order its points first
+     * listed them); a run without recorded models maps to an empty list.
+     */
+    public Map<String, List<ModelInfo>> models(Collection<String> runIds) {
+        Map<String, List<ModelInfo>> out = new LinkedHashMap<>();
+        runIds.forEach(id -> out.put(id, new ArrayList<>()));
+        if (runIds.isEmpty()) {
+            return out;
+        }
+        return run(c -> {
+            String marks = String.join(", ", java.util.Collections.nCopies(out.size(), "?"));
+            try (PreparedStatement ps = c.prepareStatement("select run_id, model_id, citation, doi from run_models "
+                    + "where run_id in (" + marks + ") order by run_id, first_point, list_order, model_id")) {
+                int i = 1;
+                for (String id : out.keySet()) {
+                    ps.setString(i++, id);
+                }
+                try (ResultSet rs = ps.executeQuery()) {
+                    while (rs.next()) {
+                        out.get(rs.getString(1)).add(new ModelInfo(rs.getString(2), rs.getString(3), rs.getString(4)));
                     }
                 }
             }

@@ -18,8 +18,10 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
@@ -122,6 +124,15 @@ class RunsContractTest {
         assertEquals(0, done.getInt("progress.failed"));
         assertEquals(App.VERSION, done.getString("provenance.version"));
         assertEquals("/v1/settings/mid-ocean-ridge", done.getString("provenance.path"));
+        assertEquals("mid-ocean-ridge", done.getString("provenance.operation"));
+        // the build as /v1/health names it, on the POST answer (no models yet: nothing computed) too
+        String commit = TestApps.given(app).get("/v1/health").then().statusCode(200).extract().path("commit");
+        assertEquals(commit, done.getString("provenance.commit"));
+        assertEquals(commit, created.jsonPath().getString("provenance.commit"));
+        assertEquals(List.of(), created.jsonPath().getList("provenance.models"));
+        Set<Map<String, String>> runModels = Set.copyOf(done.<Map<String, String>>getList("provenance.models"));
+        assertEquals(done.getList("provenance.models").size(), runModels.size(), "each model once");
+        Set<Map<String, String>> pointModels = new HashSet<>();
 
         // JSON: one row per point in index order, the last axis fastest; the same numbers the
         // operation's own route answers for that point (one engine path)
@@ -142,6 +153,20 @@ class RunsContractTest {
                     .getDouble("crustalThicknessKm");
             assertEquals(direct, rows.getDouble("[" + i + "].outputs.crustalThicknessKm"), 0.0);
         }
+        // the run's models: those single requests of the same operation list for its points
+        for (double water : new double[] {0, 0.01}) {
+            JsonPath single = as(ANA).contentType(ContentType.JSON).body("{\"potentialTemperatureC\": 1350, "
+                    + "\"bulkWaterWtPct\": " + water + ", \"fullSpreadingRateMmPerYr\": 40}")
+                    .post("/v1/settings/mid-ocean-ridge").then().statusCode(200).extract().jsonPath();
+            pointModels.addAll(single.<Map<String, String>>getList("provenance.models"));
+            assertEquals(single.getList("models"), single.getList("provenance.models"));
+        }
+        assertTrue(!pointModels.isEmpty());
+        assertEquals(pointModels, runModels);
+        // the listing shows the same provenance
+        as(BEN).get("/v1/runs?owner=ana").then().statusCode(200)
+                .body("runs[0].provenance.commit", equalTo(commit))
+                .body("runs[0].provenance.models.size()", equalTo(runModels.size()));
         // hotter mantle, thicker crust (common practice; e.g. White et al. 1992)
         assertTrue(rows.getDouble("[12].outputs.crustalThicknessKm") > rows.getDouble("[0].outputs.crustalThicknessKm"));
 

@@ -13,6 +13,7 @@ import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -82,6 +83,17 @@ class RunsStudyContractTest {
         assertEquals("succeeded", run.getString("status"));
         assertEquals(2, run.getInt("progress.total"), "two sweep points of one 20-sample block each");
         assertEquals(42L, run.getLong("study.uncertainty.seed"));
+        // provenance as on every answer: the build /v1/health names and the models the samples'
+        // results listed, here those a single wet request of the operation lists
+        assertEquals(TestApps.given(app).get("/v1/health").then().extract().path("commit"),
+                run.getString("provenance.commit"));
+        List<Map<String, String>> single = TestApps.given(app).contentType(ContentType.JSON)
+                .body("{\"potentialTemperatureC\": 1300, \"bulkWaterWtPct\": 0.01, \"fullSpreadingRateMmPerYr\": 60}")
+                .post("/v1/settings/mid-ocean-ridge").then().statusCode(200).extract().jsonPath()
+                .getList("provenance.models");
+        List<Map<String, String>> models = run.getList("provenance.models");
+        assertEquals(models.size(), Set.copyOf(models).size(), "each model once: " + models);
+        assertEquals(Set.copyOf(single), Set.copyOf(models));
         JsonPath rows = TestApps.given(app).get("/v1/runs/" + id + "/results").then().statusCode(200)
                 .extract().jsonPath();
         assertEquals(2, rows.getList("$").size());
@@ -113,8 +125,15 @@ class RunsStudyContractTest {
                  "solve": {"field": "potentialTemperatureC", "min": 1200, "max": 1500, "method": "sampling",
                            "scanPoints": 8},
                  "observed": {"crustalThicknessKm": {"value": 7.1, "sd": 0.8}}}""");
-        assertEquals("succeeded", await(posterior).getString("status"));
+        JsonPath posteriorRun = await(posterior);
+        assertEquals("succeeded", posteriorRun.getString("status"));
         assertEquals("succeeded", await(sampling).getString("status"));
+        // the models of the inversion's forward evaluations, as a single dry request lists them
+        List<Map<String, String>> single = TestApps.given(app).contentType(ContentType.JSON)
+                .body("{\"potentialTemperatureC\": 1300, \"fullSpreadingRateMmPerYr\": 60}")
+                .post("/v1/settings/mid-ocean-ridge").then().statusCode(200).extract().jsonPath()
+                .getList("provenance.models");
+        assertEquals(Set.copyOf(single), Set.copyOf(posteriorRun.<Map<String, String>>getList("provenance.models")));
         JsonPath p = TestApps.given(app).get("/v1/runs/" + posterior + "/results").then().statusCode(200)
                 .extract().jsonPath();
         assertEquals("posterior", p.getString("[0].study.study"));

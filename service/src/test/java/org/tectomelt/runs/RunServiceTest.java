@@ -13,6 +13,7 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.function.Predicate;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
@@ -20,6 +21,10 @@ import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.tectomelt.RunsConfig;
+import org.tectomelt.engine.ModelInfo;
+import org.tectomelt.engine.composition.Shaw1970;
+import org.tectomelt.engine.composition.Zou1998DynamicMelting;
+import org.tectomelt.engine.crust.HeatBudget;
 
 /**
  * Storage and execution of runs against each backend ({@link Backends}): every point computed
@@ -210,22 +215,86 @@ class RunServiceTest {
         }
     }
 
+    /**
+     * {@link #squares} whose computed points list published models as an operation's result does:
+     * every computed point Shaw (1970) and Zou (1998), every tenth also the heat budget; a point
+     * with a problem lists none. (The models stand in for what a result lists; only their
+     * bookkeeping is checked.)
+     */
+    static Evaluator squaresWithModels(long millis) {
+        Evaluator squares = squares(millis);
+        return run -> {
+            Evaluator.Prepared p = squares.prepare(run);
+            return i -> {
+                PointResult r = p.evaluate(i);
+                List<ModelInfo> models = !r.ok() ? List.of() : i % 10 == 9
+                        ? List.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO, HeatBudget.INFO)
+                        : List.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO);
+                return new PointResult(i, r.inputs(), r.outputs(), r.problem(), null, models);
+            };
+        };
+    }
+
     @ParameterizedTest(name = "[{0}]")
     @MethodSource("backends")
-    void twoInstancesOnOneDatabaseShareTheChunksOfOneRun(String backend) {
+    void recordingTheSameModelsAtOnceFromEightWritersStoresEachOnceAndFailsNone(String backend) throws Exception {
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0));
+             Database db = Database.open(Backends.sameDatabase(s.config(), "writers"), 10)) {
+            RunStore store = new RunStore(db.dataSource(), "test");
+            List<PointResult> points = List.of(new PointResult(4, "{}", "{}", null, "w", List.of(Shaw1970.INFO)),
+                    new PointResult(5, "{}", "{}", null, "w", List.of(Zou1998DynamicMelting.INFO, Shaw1970.INFO)));
+            for (int round = 0; round < 5; round++) {
+                String id = s.submit(run("ana", 1)).id();
+                java.util.concurrent.CyclicBarrier go = new java.util.concurrent.CyclicBarrier(8);
+                java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(8);
+                List<java.util.concurrent.Future<?>> writers = new ArrayList<>();
+                for (int w = 0; w < 8; w++) {
+                    writers.add(pool.submit(() -> {
+                        go.await();
+                        store.recordModels(id, points, new java.util.HashSet<>());
+                        return null;
+                    }));
+                }
+                for (java.util.concurrent.Future<?> f : writers) {
+                    f.get(30, java.util.concurrent.TimeUnit.SECONDS); // none failed
+                }
+                pool.shutdown();
+                assertEquals(List.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO), store.models(List.of(id)).get(id),
+                        "each once, in the order of the first point that listed them");
+            }
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void twoInstancesOnOneDatabaseShareTheChunksOfOneRunAndBothRecordItsModels(String backend) {
         // the embedded file cannot be shared by two processes, but two pools in one JVM can share it
         RunsConfig a = Backends.fresh(backend, dir, "instance-a");
-        try (RunService sa = RunService.open(a, squares(3));
-             RunService sb = RunService.open(Backends.sameDatabase(a, "instance-b"), squares(3))) {
+        try (RunService sa = RunService.open(a, squaresWithModels(3));
+             RunService sb = RunService.open(Backends.sameDatabase(a, "instance-b"), squaresWithModels(3))) {
             sa.start();
             sb.start();
             RunRecord r = sa.submit(run("ana", 800));
+            RunRecord only = sa.submit(run("ana", 6)); // points 0..5: no tenth point, point 3 fails
+            assertEquals(List.of(), sa.models(List.of(r.id())).get(r.id()), "nothing computed yet");
             RunRecord done = await(sb, r.id(), x -> !x.status().active(), Duration.ofSeconds(60));
+            await(sb, only.id(), x -> !x.status().active(), Duration.ofSeconds(60));
             assertEquals(RunStatus.SUCCEEDED, done.status());
             Map<String, Integer> by = sa.pointsByInstance(r.id());
             assertEquals(800, by.values().stream().mapToInt(Integer::intValue).sum(), by.toString());
             assertTrue(by.getOrDefault("instance-a", 0) > 0 && by.getOrDefault("instance-b", 0) > 0,
-                    "both instances computed points: " + by);
+                    "both instances computed points (and recorded their models): " + by);
+            for (RunService s : List.of(sa, sb)) {
+                Map<String, List<ModelInfo>> models = s.models(List.of(r.id(), only.id(), "no-such-run"));
+                List<ModelInfo> all = models.get(r.id());
+                assertEquals(3, all.size(), "each model once: " + all);
+                assertEquals(Set.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO, HeatBudget.INFO), Set.copyOf(all));
+                assertEquals(Set.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO), Set.copyOf(models.get(only.id())));
+                assertEquals(List.of(), models.get("no-such-run"));
+            }
+            // removing a finished run removes its models
+            assertEquals(RunService.Deleted.REMOVED, sa.delete(only.id(), "ana"));
+            assertEquals(List.of(), sb.models(List.of(only.id())).get(only.id()));
         }
     }
 

@@ -2,12 +2,16 @@ package org.tectomelt.runs.study;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.Collections;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Set;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.EngineException;
+import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
 import org.tectomelt.studies.StudyModel;
@@ -27,6 +31,7 @@ public final class OperationModel implements StudyModel {
     private final Operation<?, ?> operation;
     private final ObjectNode base;
     private final List<String> outputs;
+    private final Set<ModelInfo> models = Collections.synchronizedSet(new LinkedHashSet<>());
 
     /**
      * @param invoker   the spec and the operations
@@ -46,7 +51,15 @@ public final class OperationModel implements StudyModel {
         ObjectNode request = base.deepCopy();
         inputs.forEach((field, value) -> set(request, field, value));
         Record result = invoker.prepare(operation, request).run(Deadline.none());
+        models.addAll(Invoker.models(result));
         return invoker.outputs(operation.name(), result, outputs);
+    }
+
+    /** The published models the results computed so far listed (their union, first seen first). */
+    public List<ModelInfo> models() {
+        synchronized (models) {
+            return List.copyOf(models);
+        }
     }
 
     @Override

@@ -10,6 +10,7 @@ import java.util.Map;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
 import org.tectomelt.engine.Deadline;
+import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.Output;
 import org.tectomelt.studies.MonteCarlo;
@@ -96,6 +97,20 @@ public final class StudyRun {
      * @param deadline polled before each sample
      */
     public String evaluate(ObjectNode request, int block, Deadline deadline) {
+        return evaluateBlock(request, block, deadline).json();
+    }
+
+    /**
+     * One computed block: its JSON text and the published models its samples' results listed.
+     *
+     * @param json   the block as stored
+     * @param models the union of the models the block's evaluations listed
+     */
+    public record Block(String json, List<ModelInfo> models) {
+    }
+
+    /** {@link #evaluate}, with the models the block's evaluations listed. */
+    public Block evaluateBlock(ObjectNode request, int block, Deadline deadline) {
         OperationModel model = new OperationModel(invoker, operation, request, outputs);
         Object b = switch (kind()) {
             case FORWARD -> MonteCarlo.evaluate(model, study.inputs(), outputs, study.seed(), block * BLOCK_SAMPLES,
@@ -105,7 +120,7 @@ public final class StudyRun {
                     Math.min(study.samples(), (block + 1) * BLOCK_SAMPLES), Workers.serial(), deadline);
         };
         try {
-            return Json.mapper().writeValueAsString(b);
+            return new Block(Json.mapper().writeValueAsString(b), model.models());
         } catch (JsonProcessingException e) {
             throw new IllegalStateException("a study block could not be written as JSON", e);
         }

@@ -65,9 +65,9 @@ public final class SweepEvaluator implements Evaluator {
         int point = index / sweep.blocks();
         String inputs = json(sweep.inputs(point));
         try {
-            String block = study.evaluate(sweep.pointRequest(point), index % sweep.blocks(),
+            StudyRun.Block block = study.evaluateBlock(sweep.pointRequest(point), index % sweep.blocks(),
                     Deadline.after(pointBudget));
-            return new PointResult(index, inputs, block, null, null);
+            return new PointResult(index, inputs, block.json(), null, null, block.models());
         } catch (BudgetExceededException e) {
             return problem(index, inputs, 503, "over-budget", "Computation budget exceeded",
                     e.getMessage() + " (TECTOMELT_HEAVY_BUDGET_MS per stored point: " + StudyRun.BLOCK_SAMPLES
@@ -81,7 +81,7 @@ public final class SweepEvaluator implements Evaluator {
             Record result = (filled == null ? invoker.prepare(op, sweep.pointRequest(index))
                     : bound(op, sweep.pointRequest(filled, index))).run(Deadline.after(pointBudget));
             Map<String, Double> out = invoker.outputs(op.name(), result, sweep.outputs());
-            return new PointResult(index, inputs, json(out), null, null);
+            return new PointResult(index, inputs, json(out), null, null, Invoker.models(result));
         } catch (EngineException e) {
             return problem(index, inputs, 400, "outside-model-range", "Outside what the model can compute", e.getMessage(),
                     null);
