@@ -94,13 +94,24 @@ class ReadmeExamplesTest {
     }
 
     private static String run(String script) throws Exception {
-        Process p = new ProcessBuilder("bash", "-c", "set -eo pipefail\n" + script).redirectErrorStream(false).start();
-        p.getOutputStream().close();
-        byte[] out = p.getInputStream().readAllBytes();
-        String err = new String(p.getErrorStream().readAllBytes(), StandardCharsets.UTF_8);
-        assertTrue(p.waitFor(120, TimeUnit.SECONDS), "the example did not finish");
-        assertEquals(0, p.exitValue(), "the example's commands failed: " + err);
-        return new String(out, StandardCharsets.UTF_8);
+        Path out = Files.createTempFile("readme-example", ".out");
+        Path err = Files.createTempFile("readme-example", ".err");
+        try {
+            // set -e without pipefail, as a reader's shell runs it: "curl … | head -4" closes curl's pipe early
+            Process p = new ProcessBuilder("bash", "-c", "set -e\n" + script)
+                    .redirectInput(ProcessBuilder.Redirect.from(new java.io.File("/dev/null")))
+                    .redirectOutput(out.toFile()).redirectError(err.toFile()).start();
+            if (!p.waitFor(120, TimeUnit.SECONDS)) {
+                p.descendants().forEach(ProcessHandle::destroyForcibly);
+                p.destroyForcibly();
+                fail("the example did not finish within 120 s; printed so far:\n" + Files.readString(out));
+            }
+            assertEquals(0, p.exitValue(), "the example's commands failed: " + Files.readString(err));
+            return Files.readString(out, StandardCharsets.UTF_8);
+        } finally {
+            Files.deleteIfExists(out);
+            Files.deleteIfExists(err);
+        }
     }
 
     @org.junit.jupiter.api.Test
