@@ -310,6 +310,19 @@ async function showRun(id) {
   }
 }
 
+/** The rows grouped by their value of the second swept field (one group when there is none), in order. */
+function bySecondAxis(rows, second) {
+  const groups = new Map();
+  for (const row of rows) {
+    const key = second === undefined ? "" : row.inputs[second];
+    if (!groups.has(key)) {
+      groups.set(key, []);
+    }
+    groups.get(key).push(row);
+  }
+  return groups;
+}
+
 /**
  * One plot per output against the first swept field, one line per value of the second (when
  * the sweep has two axes); points with a problem leave a gap.
@@ -320,14 +333,7 @@ export function runPlots(run, rows) {
     return [];
   }
   const [x, second] = axes;
-  const groups = new Map();
-  for (const row of rows) {
-    const key = second === undefined ? "" : row.inputs[second];
-    if (!groups.has(key)) {
-      groups.set(key, []);
-    }
-    groups.get(key).push(row);
-  }
+  const groups = bySecondAxis(rows, second);
   return (run.outputs || []).map((out) => ({
     title: `${out} against ${x}` + (second ? `, one line per ${second}` : ""),
     x: { label: x }, y: { label: out },
@@ -436,14 +442,7 @@ function finiteRuns(triples) {
  */
 export function bandView(run, rows, name) {
   const [x, second] = Object.keys(run.sweep || {});
-  const groups = new Map();
-  for (const row of rows) {
-    const key = second === undefined ? "" : row.inputs[second];
-    if (!groups.has(key)) {
-      groups.set(key, []);
-    }
-    groups.get(key).push(row);
-  }
+  const groups = bySecondAxis(rows, second);
   let unit;
   const series = [];
   [...groups.entries()].forEach(([key, rs], i) => {

@@ -1558,6 +1558,11 @@ class PageBrowserTest {
         return Files.readAllLines(browser.downloaded(name), StandardCharsets.UTF_8);
     }
 
+    private static void assertAxeClean(String where) {
+        List<String> found = serious(where, browser.axeViolations());
+        assertTrue(found.isEmpty(), String.join("\n", found));
+    }
+
     /** A number as the page shows it agrees with the API's to the shown decimals. */
     private static void assertShown(double expected, String shown, String what) {
         int dot = shown.indexOf('.');
@@ -1653,8 +1658,7 @@ class PageBrowserTest {
             assertEquals(edges.get(i).asDouble(), Double.parseDouble(cells[0]));
             assertEquals(counts.get(i).asInt(), Integer.parseInt(cells[2]));
         }
-        List<String> found = serious("run with uncertainty", browser.axeViolations());
-        assertTrue(found.isEmpty(), String.join("\n", found));
+        assertAxeClean("run with uncertainty");
     }
 
     @Test
@@ -1705,8 +1709,7 @@ class PageBrowserTest {
         assertEquals(1350.0, Double.parseDouble(second[0]));
         assertEquals(rows.get(1).get("study").get("summaries").get("crustalThicknessKm").get("p50").asDouble(), Double.parseDouble(second[5]));
         assertEquals("20", second[8]);
-        List<String> found = serious("uncertain sweep", browser.axeViolations());
-        assertTrue(found.isEmpty(), String.join("\n", found));
+        assertAxeClean("uncertain sweep");
     }
 
     @Test
@@ -1770,7 +1773,6 @@ class PageBrowserTest {
         String[] tenth = csv.get(11).split(",");
         assertEquals(grid.get(10).asDouble(), Double.parseDouble(tenth[0]));
         assertEquals(density.get(10).asDouble(), Double.parseDouble(tenth[1]));
-        List<String> found = serious("inversion", browser.axeViolations());
-        assertTrue(found.isEmpty(), String.join("\n", found));
+        assertAxeClean("inversion");
     }
 }
