@@ -1020,6 +1020,33 @@ class PageBrowserTest {
     }
 
     @Test
+    void aSlowRidgeSaysWhichCrustModelRanAndAFractionalColumnShowsTheResiduesWater() throws IOException {
+        browser.open(page("ridge"));
+        browser.fill("fullSpreadingRateMmPerYr", "48");
+        assertEquals("done", browser.submit());
+        assertEquals("melting up to the sea floor", text("#summary tr[data-path='crustModel'] td.value"));
+        assertEquals(0.0, summary("conductiveLidKm"), 0);
+        double fast = summary("crustalThicknessKm");
+
+        browser.fill("fullSpreadingRateMmPerYr", "8");
+        browser.fill("bulkWaterWtPct", "0.01");
+        select("meltingMode", "fractional");
+        assertEquals("done", browser.submit());
+        assertEquals("fractional", sentBody().get("meltingMode").asText());
+        assertEquals("conductive lid of slow spreading", text("#summary tr[data-path='crustModel'] td.value"));
+        assertTrue(summary("conductiveLidKm") > 0, "a conductive lid below 20 mm/yr");
+        double slow = summary("crustalThicknessKm");
+        // White et al. (2001); Dick, Lin & Schouten (2003), REFERENCES §6 [mem]: 6–7 km of crust above about
+        // 20 mm/yr full rate, thinner below
+        assertTrue(slow < fast, "crust at 8 mm/yr " + slow + " km, at 48 mm/yr " + fast + " km");
+        // Asimow & Langmuir (2003) [pub]: water leaves with each increment of fractional melt
+        double residue = summary("column.profile.last.residueWaterWtPct");
+        assertTrue(residue >= 0 && residue < 0.005, "residue water at the top " + residue + " of 0.01 wt%");
+        assertEquals(1, browser.driver.findElements(By.cssSelector("#listing tr")).size() - 1, "one rock: peridotite");
+        assertEquals(summary("column.onset.depthKm"), column("onset.depthKm").get(0), 0.051, "the peridotite's onset is the column's");
+    }
+
+    @Test
     void thePageHasAFavicon() {
         browser.open(page("pressure"));
         @SuppressWarnings("unchecked")
