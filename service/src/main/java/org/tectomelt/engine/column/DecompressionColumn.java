@@ -653,6 +653,11 @@ public record DecompressionColumn(MantleLithology lithology, MantleThermodynamic
             final int b = branch;
             final Variable v = towardTop ? TowardTop.of(-zTop, t0) : new FromStart(t0);
             final double sigmaTop = v.s(-zTop);
+            if (!(sigmaTop > 0)) {
+                // an event (the saturation point of a nearly dry melt) at the top itself: nothing left
+                stop = Stop.TOP;
+                return -zTop;
+            }
             DormandPrince853Integrator integrator = new DormandPrince853Integrator(1e-12, Math.max(sigmaTop, 1e-6),
                     new double[] {ABSOLUTE_TOLERANCE, 1e-6, 1e6, 1e-1},
                     new double[] {RELATIVE_TOLERANCE, RELATIVE_TOLERANCE, RELATIVE_TOLERANCE, RELATIVE_TOLERANCE});

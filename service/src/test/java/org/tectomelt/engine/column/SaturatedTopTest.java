@@ -73,6 +73,20 @@ class SaturatedTopTest {
     }
 
     @Test
+    void everyWaterContentDownToTracesSolvesAndMoreWaterNeverMakesLessMelt() {
+        // a nearly dry melt saturates within nanometres of the top (the event lands on the top
+        // itself); more water lowers the solidus, so the column melts no less (common practice)
+        for (double tp : new double[] {1300, 1350, 1450}) {
+            double previous = DecompressionColumn.of(katz, tp + 273.15, 0.0).solve().meltThickness();
+            for (double w = 1e-12; w < 3e-4; w *= 1.5) {
+                double melt = DecompressionColumn.of(katz, tp + 273.15, w).solve().meltThickness();
+                assertTrue(melt >= previous * (1 - 1e-9), "Tp " + tp + ", water " + w + ": " + melt + " < " + previous);
+                previous = melt;
+            }
+        }
+    }
+
+    @Test
     void aLidJustBelowTheSaturationPointChangesTheMeltByNoMoreThanTheLayerAboveIt() {
         // the melt made in the top metres is at most F × their thickness: the integration of that
         // layer (saturated, singular at P = 0) must not move the column's answer by more
