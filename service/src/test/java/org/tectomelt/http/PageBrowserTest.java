@@ -1869,6 +1869,29 @@ class PageBrowserTest {
     }
 
     @Test
+    void aSampledInversionShowsItsRootsAsAHistogramWithTheirPercentilesAndCounts() throws Exception {
+        // invented observation: 7.1 ± 0.8 km of crust at the Varn Ridge, dry source, 20 draws each solved by root finding
+        String id = startRun("{\"operation\": \"mid-ocean-ridge\", \"request\": {\"fullSpreadingRateMmPerYr\": 48},"
+                + " \"uncertainty\": {\"samples\": 20, \"seed\": 3},"
+                + " \"solve\": {\"field\": \"potentialTemperatureC\", \"min\": 1200, \"max\": 1500, \"method\": \"sampling\"},"
+                + " \"observed\": {\"crustalThicknessKm\": {\"value\": 7.1, \"sd\": 0.8}}}");
+        JsonNode st = openFinishedRun(id).get(0).get("study");
+        JsonNode s = st.get("summary");
+        JsonNode fig = studyFigure("run-" + id + "-potentialTemperatureC-histogram");
+        assertEquals(s.get("histogram").get("counts").size(), fig.get("bars").size());
+        assertEquals(5, fig.get("xlevels").size());
+        assertEquals(s.get("p50").asDouble(), fig.get("xlevels").get(2).get("x").asDouble(), 1e-9 * s.get("p50").asDouble());
+        Matcher m = Pattern.compile("mean ([0-9.]+) ± ([0-9.]+) °C").matcher(fig.get("caption").asText());
+        assertTrue(m.find(), fig.get("caption").asText());
+        assertShown(s.get("mean").asDouble(), m.group(1), "mean of the roots");
+        String counts = browser.driver.findElement(By.id("study-counts")).getText();
+        assertTrue(counts.contains("20 draws (seed 3): " + st.get("solved").asInt() + " solved"), counts);
+        assertTrue(counts.contains(st.get("severalRoots").asInt() + " with several roots"), counts);
+        assertEquals(s.get("histogram").get("counts").size() + 1, studyCsv(fig.get("csv").asText()).size());
+        assertAxeClean("sampled inversion");
+    }
+
+    @Test
     void anInversionDrawsThePosteriorWithItsMeanAndTheTwoIntervalsAndItsCsv() throws Exception {
         // invented observation: 7.1 ± 0.8 km of crust at the Varn Ridge (48 mm/yr), source water uncertain
         String id = startRun("{\"operation\": \"mid-ocean-ridge\", \"label\": \"Varn Ridge, Tp from its crust\","
