@@ -325,15 +325,25 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
 
         /** Σ weightⱼ·Kⱼ for every element into {@code out}, mineral by mineral (a zero weight adds nothing). */
         private void bulk(double[] weight, double[] out) {
-            java.util.Arrays.fill(out, 0.0);
+            boolean first = true;
             for (int j = 0; j < N; j++) {
                 double wj = weight[j];
                 if (wj != 0.0) {
                     int o = j * ne;
-                    for (int e = 0; e < ne; e++) {
-                        out[e] += wj * kT[o + e];
+                    if (first) {
+                        for (int e = 0; e < ne; e++) {
+                            out[e] = wj * kT[o + e];
+                        }
+                        first = false;
+                    } else {
+                        for (int e = 0; e < ne; e++) {
+                            out[e] += wj * kT[o + e];
+                        }
                     }
                 }
+            }
+            if (first) {
+                java.util.Arrays.fill(out, 0.0);
             }
         }
 

@@ -143,7 +143,14 @@ public final class CompositionResult {
         double[] rc = new double[ne];
         double fInt = 0;
         double height = 0;
-        for (int i = 0; i + 1 < size(); i++) {
+        // the trapezoids of the products F·C̄_L and (1 − F)·C_s over the intervals, the deep end of a cut interval
+        // interpolated to the cut (so that F·C̄_L + (1 − F)·C_s = C₀ holds there as well): weight t/2 on the deep
+        // point, (2 − t)/2 on the upper. Each point's weights from its two intervals are added first, so that
+        // every point's values are read once.
+        int n = size();
+        double[] meltWeight = new double[n];
+        double[] solidWeight = new double[n];
+        for (int i = 0; i + 1 < n; i++) {
             double zDeep = depth[i];
             double zUp = depth[i + 1];
             if (zUp >= maxDepth) {
@@ -158,17 +165,21 @@ public final class CompositionResult {
             double fUp = meltFraction[i + 1];
             fInt += 0.5 * dz * (fDeep + fUp);
             height += dz;
-            // trapezoid of the products F·C̄_L and (1 − F)·C_s, the deep end interpolated to the cut, so that
-            // F·C̄_L + (1 − F)·C_s = C₀ holds at the cut as well: weight t/2 on the deep point, (2 − t)/2 on the upper
-            double melt = 0.5 * dz * t * meltFraction[i];
-            double meltU = 0.5 * dz * (2 - t) * fUp;
-            double solid = 0.5 * dz * t * (1 - meltFraction[i]);
-            double solidU = 0.5 * dz * (2 - t) * (1 - fUp);
-            int deep = (3 * i + 1) * ne; // accumulated melt at the deep point; its residue follows
-            int up = deep + 3 * ne;
+            meltWeight[i] += 0.5 * dz * t * meltFraction[i];
+            meltWeight[i + 1] += 0.5 * dz * (2 - t) * fUp;
+            solidWeight[i] += 0.5 * dz * t * (1 - meltFraction[i]);
+            solidWeight[i + 1] += 0.5 * dz * (2 - t) * (1 - fUp);
+        }
+        for (int i = 0; i < n; i++) {
+            double a = meltWeight[i];
+            double b = solidWeight[i];
+            if (a == 0.0 && b == 0.0) {
+                continue;
+            }
+            int at = (3 * i + 1) * ne; // accumulated melt of point i; its residue follows
             for (int e = 0; e < ne; e++) {
-                fc[e] += melt * values[deep + e] + meltU * values[up + e];
-                rc[e] += solid * values[deep + ne + e] + solidU * values[up + ne + e];
+                fc[e] += a * values[at + e];
+                rc[e] += b * values[at + ne + e];
             }
         }
         if (!(fInt > 0)) {
