@@ -3,7 +3,7 @@
 the same points computed in the client by a scipy brentq loop, side by side in one run.
 
 Starts service/target/tectomelt.jar on loopback (or uses TECTOMELT_URL), then times, best of
---repeats after one warm-up each:
+--repeats after --warmup untimed calls of each side (default 10):
   service: json.dumps of the request -> POST /v1/melt-fraction with Accept: text/csv and
            ?fields=meltFraction,solidusC,waterInMeltWtPct -> pandas.read_csv of the answer
   client:  the same 10,000 points, Katz, Spiegelman & Langmuir (2003) hydrous melting solved per
@@ -88,6 +88,8 @@ def start_server(jar):
 def main():
     ap = argparse.ArgumentParser()
     ap.add_argument("--repeats", type=int, default=5)
+    ap.add_argument("--warmup", type=int, default=10,
+                    help="untimed calls of each side first (a lab server runs warm; its JIT needs a few)")
     ap.add_argument("--jar", default="service/target/tectomelt.jar")
     args = ap.parse_args()
     proc, url = (None, os.environ["TECTOMELT_URL"]) if "TECTOMELT_URL" in os.environ else start_server(args.jar)
@@ -111,7 +113,8 @@ def main():
             return np.array([f_wet(p, t, water) for p, t in zip(ps, ts)])
 
         def best(fn):
-            fn()  # warm-up
+            for _ in range(args.warmup):
+                fn()  # warm-up
             times, out = [], None
             for _ in range(args.repeats):
                 t0 = time.perf_counter()

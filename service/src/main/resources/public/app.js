@@ -50,10 +50,17 @@ function h(tag, attrs, ...children) {
   return e;
 }
 
-/** Value at a dotted path ("onset.depthKm"), or undefined. */
+/** Value at a dotted path ("onset.depthKm"; "profile.last.x" is x of an array's last element), or undefined. */
 export function getPath(obj, path) {
   let cur = obj;
   for (const part of path.split(".")) {
+    if (part === "last" && Array.isArray(cur)) {
+      if (!cur.length) {
+        return undefined;
+      }
+      cur = cur[cur.length - 1];
+      continue;
+    }
     if (cur === null || typeof cur !== "object" || !(part in cur)) {
       return undefined;
     }
@@ -647,6 +654,9 @@ function rowApplies(row, values) {
   if (!w) {
     return true;
   }
+  if (w.field && !w.in.includes(String(values[w.field]))) {
+    return false; // e.g. the residue's water only for the fractional modes
+  }
   const info = lithologyInfo(values[w.lithology]);
   if (!info) {
     return true;
@@ -675,8 +685,16 @@ export function timeInUnits(kyr) {
 /** The text, unit and raw value of one summary row for a response, or null when it does not apply. */
 function summaryCell(row, response, values) {
   const v = pick(response, row.path);
-  if (v === undefined || !rowApplies(row, values)) {
+  if (!rowApplies(row, values)) {
     return null;
+  }
+  if (v === undefined) {
+    // "nullText": what a null answer means (e.g. no water can start melting), shown instead of leaving the row out
+    return row.nullText && row.path.some((p) => getPath(response, p) === null)
+      ? { text: row.nullText, unit: "", value: null } : null;
+  }
+  if (row.labels && typeof v === "string" && row.labels[v]) {
+    return { text: row.labels[v], unit: "", value: v };
   }
   if (row.requires) {
     const r = pick(response, row.requires);
@@ -695,6 +713,17 @@ function summaryCell(row, response, values) {
     return { text: fmt(v * (row.scale || 1), row.digits), unit: row.unit || "", value: v };
   }
   return { text: String(v), unit: row.unit || "", value: v };
+}
+
+/** A listing cell: numbers with the column's scale and digits, lithology ids by name, "empty" for a null. */
+function listingText(c, v) {
+  if (v === null || v === undefined) {
+    return c.empty || "";
+  }
+  if (typeof v === "number") {
+    return fmt(v * (c.scale || 1), c.digits);
+  }
+  return c.format === "lithology" ? lithologyName(v) : String(v);
 }
 
 async function renderResults(last) {
@@ -750,8 +779,8 @@ async function renderResults(last) {
       h("caption", {}, tool.listing.title),
       h("tr", {}, tool.listing.columns.map((c) => h("th", { scope: "col" }, c.unit ? `${c.label} (${c.unit})` : c.label))),
       rows.map((r) => h("tr", {}, tool.listing.columns.map((c) => {
-        const v = r[c.key];
-        return h("td", { "data-key": c.key }, typeof v === "number" ? fmt(v, c.digits) : String(v ?? ""));
+        const v = getPath(r, c.key);
+        return h("td", { "data-key": c.key }, listingText(c, v));
       }))));
     results.append(rows.length ? table : h("p", { class: "empty" }, `No ${tool.listing.title.toLowerCase()}.`));
   }

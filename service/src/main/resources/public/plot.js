@@ -58,6 +58,8 @@ svg.plot .bar { stroke: #fff; stroke-width: 0.5; fill: #22577a; fill-opacity: 0.
 svg.plot .band.role-melt, svg.plot .bar.role-melt { fill: #b5483a; }
 svg.plot .band.role-solidus, svg.plot .bar.role-solidus { fill: #5b3f8c; }
 svg.plot .level { stroke: #7d776b; stroke-dasharray: 3 3; stroke-width: 1; }
+svg.plot .xlevel { stroke: #4a453c; stroke-width: 1.2; stroke-dasharray: 4 3; }
+svg.plot .xlevel-strong { stroke: #1d2327; stroke-width: 1.8; stroke-dasharray: none; }
 svg.plot .level-label, svg.plot .mark-label, svg.plot .curve-label { font-size: 11.5px; fill: #4a453c;
   paint-order: stroke; stroke: #fff; stroke-width: 3px; stroke-linejoin: round; }
 svg.plot .mark { fill: #fff; stroke: #1d2327; stroke-width: 1.6; }
@@ -305,6 +307,11 @@ export function dataDomain(spec) {
       ys.push(lv.y);
     }
   }
+  for (const lv of spec.xLevels || []) {
+    if (isFinite(lv.x) && (!logX || lv.x > 0)) {
+      xs.push(lv.x);
+    }
+  }
   let x = [Math.min(...xs), Math.max(...xs)], y = [Math.min(...ys), Math.max(...ys)];
   // a curve lying on the frame is hard to see: leave a little room, but never cross zero for it
   const pad = (r) => {
@@ -397,8 +404,9 @@ function curveSamples(screenSeries) {
  * Draws one plot.
  * @param spec {title, x: {label, unit, domain?}, y: {label, unit, domain?}, invertY,
  *   series: [{label, role, color?, points: [[x, y]], dots?, extras?: [string per point]}],
- *   levels: [{y, label}], marks: [{x, y, label}], y2: {label, unit, pairs: [[y, value]]},
- *   legendTitle?}
+ *   levels: [{y, label}], xLevels: [{x, label, strong?}] (vertical lines: percentiles, a mean),
+ *   marks: [{x, y, label}], y2: {label, unit, pairs: [[y, value]]}, legendTitle?;
+ *   a band series may give `opacity` (its fill's opacity, default 0.2)}
  * @param options {width (px, default 480), plotHeight (px; by default from the width), viewport: {x, y},
  *   provenance: string drawn as a small last line, titleLines: room for this many title lines
  *   (so that panels side by side keep their frames level)}
@@ -414,7 +422,7 @@ export function drawPlot(spec, options) {
   const items = series.filter((s) => s.points.some(([x, y]) => isFinite(x) && isFinite(y)) && s.legend !== false);
   const markItems = (spec.marks || []).filter((mk) => isFinite(mk.x) && isFinite(mk.y));
   const legendRows = series.filter((s) => s.legend !== false && (s.band || s.bars) && !items.includes(s))
-    .map((s) => ({ label: s.label, role: s.role, color: s.color, swatch: s.bars ? "bar" : "band" }))
+    .map((s) => ({ label: s.label, role: s.role, color: s.color, swatch: s.bars ? "bar" : "band", opacity: s.opacity }))
     .concat(items.map((s) => ({ label: s.label, role: s.role, color: s.color, swatch: s.bars ? "bar" : undefined })));
   if (markItems.length) {
     legendRows.push({ label: markItems[0].label || "point", role: "mark-item" });
@@ -510,7 +518,8 @@ export function drawPlot(spec, options) {
 
   // bands (a range between two curves) and bars, under the curves
   for (const s of series) {
-    const fill = s.color ? `fill: ${s.color}` : undefined;
+    const fill = [s.color ? `fill: ${s.color}` : "", isFinite(s.opacity) ? `fill-opacity: ${s.opacity}` : ""]
+      .filter((x) => x).join("; ") || undefined;
     if (s.band) {
       const ring = s.band.upper.concat(s.band.lower.slice().reverse())
         .filter(([x, y]) => isFinite(sx(x)) && isFinite(sy(y)));
@@ -541,6 +550,15 @@ export function drawPlot(spec, options) {
         }));
       }
     }
+  }
+
+  // vertical lines at given x (percentiles, a mean), over the bars and bands
+  const xLevelsShown = (spec.xLevels || []).filter((lv) => isFinite(lv.x) && isFinite(sx(lv.x))
+    && sx(lv.x) >= m.l - 0.5 && sx(lv.x) <= m.l + pw + 0.5);
+  for (const lv of xLevelsShown) {
+    const X = sx(lv.x);
+    area.appendChild(el("line", { x1: X, x2: X, y1: m.t, y2: m.t + ph, class: "xlevel" + (lv.strong ? " xlevel-strong" : ""),
+      "data-x": lv.x, "data-label": lv.label || "" }));
   }
 
   // curves: gaps (non-finite values) break a curve into pieces
@@ -618,6 +636,21 @@ export function drawPlot(spec, options) {
     c.lines.forEach((line, k) => t.appendChild(el("tspan", { x: c.x, dy: k === 0 ? 0 : lhh }, k < c.lines.length - 1 ? line + " " : line)));
     labels.appendChild(t);
   }
+  for (const lv of xLevelsShown) {
+    if (!lv.label) {
+      continue;
+    }
+    // beside its line, as high as the curves and the other labels allow
+    const X = sx(lv.x), w = textWidth(lv.label, fs);
+    const candidates = [];
+    for (let top = m.t + 3; top <= m.t + ph - lhh - 3; top += lhh) {
+      candidates.push({ x: X + 3, y: top, w, h: lhh }, { x: X - 3 - w, y: top, w, h: lhh });
+    }
+    const c = placeLabel(candidates, obstacles, placed, frame);
+    if (c) {
+      labels.appendChild(el("text", { x: c.x, y: c.y + lhh - 4, class: "level-label xlevel-label", "data-x": lv.x }, lv.label));
+    }
+  }
   for (const mk of spec.marks || []) {
     if (!isFinite(mk.x) || !isFinite(mk.y)) {
       continue;
@@ -652,7 +685,7 @@ export function drawPlot(spec, options) {
         g.appendChild(el("path", { d: `M${lx + 7},${Y}l6,-6l6,6l-6,6z`, class: "mark" }));
       } else if (s.swatch) {
         g.appendChild(el("rect", { x: lx, y: Y - 6, width: 26, height: 12, class: `${s.swatch} role-${s.role || "path"}`,
-          style: s.color ? `fill: ${s.color}` : undefined }));
+          style: [s.color ? `fill: ${s.color}` : "", isFinite(s.opacity) ? `fill-opacity: ${s.opacity}` : ""].filter((x) => x).join("; ") || undefined }));
       } else {
         g.appendChild(el("line", {
           x1: lx, x2: lx + 26, y1: Y, y2: Y, class: `curve role-${s.role || "path"}`,
@@ -751,6 +784,9 @@ export function saveBlob(blob, name) {
   const a = document.createElement("a");
   a.href = URL.createObjectURL(blob);
   a.download = name;
+  // named and hidden: it stays in the page for a second, and an unnamed link is an accessibility fault
+  a.textContent = name;
+  a.hidden = true;
   document.body.append(a);
   a.click();
   setTimeout(() => {

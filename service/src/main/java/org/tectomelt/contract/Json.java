@@ -4,6 +4,7 @@ import com.fasterxml.jackson.core.JsonGenerator;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.core.StreamReadConstraints;
 import com.fasterxml.jackson.core.StreamReadFeature;
+import com.fasterxml.jackson.core.StreamWriteFeature;
 import com.fasterxml.jackson.core.exc.StreamReadException;
 import com.fasterxml.jackson.core.exc.StreamConstraintsException;
 import com.fasterxml.jackson.databind.DeserializationFeature;
@@ -71,6 +72,10 @@ public final class Json {
                 .disable(DeserializationFeature.ACCEPT_FLOAT_AS_INT)
                 .disable(MapperFeature.ALLOW_COERCION_OF_SCALARS)
                 .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+                // shortest-repr number conversions (Jackson's own; the JDK 17 ones dominated a
+                // 10,000-point batch): the same doubles, read and written faster
+                .enable(StreamReadFeature.USE_FAST_DOUBLE_PARSER)
+                .enable(StreamWriteFeature.USE_FAST_DOUBLE_WRITER)
                 .disable(SerializationFeature.FAIL_ON_EMPTY_BEANS)
                 .serializationInclusion(JsonInclude.Include.NON_NULL)
                 .annotationIntrospector(new ExplicitNullIntrospector())

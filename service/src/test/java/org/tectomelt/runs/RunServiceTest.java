@@ -237,6 +237,46 @@ class RunServiceTest {
 
     @ParameterizedTest(name = "[{0}]")
     @MethodSource("backends")
+    void savingTheSamePointsAtOnceFromEightWritersStoresAndCountsEachOnceAndFailsNone(String backend)
+            throws Exception {
+        // two executions of one chunk at once: a chunk revived after its heartbeats went stale
+        // (a database outage, a long pause) while the first execution still computes
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0));
+             Database db = Database.open(Backends.sameDatabase(s.config(), "writers"), 10)) {
+            RunStore store = new RunStore(db.dataSource(), "test");
+            for (int round = 0; round < 5; round++) {
+                RunRecord r = s.submit(run("ana", 20));
+                List<PointResult> points = new ArrayList<>();
+                for (int i = 0; i < 20; i++) {
+                    points.add(new PointResult(i, "{\"i\":" + i + "}", "{\"y\":" + i + "}", null, "w"));
+                }
+                java.util.concurrent.CyclicBarrier go = new java.util.concurrent.CyclicBarrier(8);
+                java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(8);
+                List<java.util.concurrent.Future<RunStore.Saved>> writers = new ArrayList<>();
+                for (int w = 0; w < 8; w++) {
+                    writers.add(pool.submit(() -> {
+                        go.await();
+                        return store.save(r.id(), points, Instant.now());
+                    }));
+                }
+                int finished = 0;
+                for (java.util.concurrent.Future<RunStore.Saved> f : writers) {
+                    if (f.get(30, java.util.concurrent.TimeUnit.SECONDS) == RunStore.Saved.FINISHED) { // none failed
+                        finished++;
+                    }
+                }
+                pool.shutdown();
+                RunRecord after = s.find(r.id()).orElseThrow();
+                assertEquals(20, after.donePoints(), "each point counted once");
+                assertEquals(RunStatus.SUCCEEDED, after.status());
+                assertEquals(1, finished, "one writer finished the run");
+                assertEquals(20, allPoints(s, r.id()).size());
+            }
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
     void recordingTheSameModelsAtOnceFromEightWritersStoresEachOnceAndFailsNone(String backend) throws Exception {
         try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0));
              Database db = Database.open(Backends.sameDatabase(s.config(), "writers"), 10)) {

@@ -114,7 +114,7 @@ class InversionTest {
         };
         PosteriorInversion.Result p = posterior(partial, 10, 0.5, UncertainInputs.none(), 1);
         assertEquals(20, p.failed(), "grid points 14.05 ... 15 (j = 181 ... 200)");
-        assertEquals(Map.of("theta above 14 is outside the model", 20), p.failureReasons());
+        assertEquals(Map.of("theta above … is outside the model", 20), p.failureReasons());
         assertEquals(10, p.estimate().mean(), 1e-3);
         SamplingInversion.Result s = sampling(partial, 10, 0.5, UncertainInputs.none(), 50);
         assertEquals(50, s.failed(), "the scan meets the failure at 15 for every draw");

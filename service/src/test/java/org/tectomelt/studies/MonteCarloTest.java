@@ -43,7 +43,7 @@ class MonteCarloTest {
             absentByHand += x <= 50 ? 1 : 0;
         }
         assertEquals(failedByHand, r.failed());
-        assertEquals(Map.of("x above 80 cannot be computed", failedByHand), r.failureReasons());
+        assertEquals(Map.of("x above … cannot be computed", failedByHand), r.failureReasons());
         assertEquals(10_000 - failedByHand, r.summaries().get("twiceX").n());
         assertEquals(absentByHand, r.absent().get("onsetKm"));
         assertEquals(10_000 - failedByHand - absentByHand, r.summaries().get("onsetKm").n());

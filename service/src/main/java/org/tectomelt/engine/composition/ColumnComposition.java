@@ -193,11 +193,16 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         return a;
     }
 
-    /** One integration; mutable scratch state. */
+    /**
+     * One integration; mutable scratch state. The partition coefficients are held mineral by mineral
+     * ({@code kT[j·ne + e]}), so that the bulk sums Σ xⱼKⱼ of all elements are built one mineral at a
+     * time in short loops over the elements (one weight in a register, no reloads; the order of the
+     * sum per element, and so every result, is that of the plain loop).
+     */
     private final class Run {
         private final int n;
         private final int ne;
-        private final double[][] k;
+        private final double[] kT;
         private final double[] c0;
         /** Mineral masses of the spinel-field [0] and garnet-field [1] residues. */
         private final double[][] m = new double[2][];
@@ -207,6 +212,14 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         private final double[] pMix = new double[N];
         private final double[] q;
         private final double[] extracted;
+        /** Bulk sums of the current step, per element: Σ xⱼKⱼ (the solid's capacity S) and Σ pⱼKⱼ (P). */
+        private final double[] bulkS;
+        private final double[] bulkP;
+        /** The garnet share bulkS was built for, and whether the residues are unchanged since (then it is reused). */
+        private double bulkSW = Double.NaN;
+        private boolean bulkSFresh;
+        /** Residues still melted: both, or only the spinel-field one once garnet is gone for good. */
+        private int residues = 2;
         private final double phi = threshold();
         private final double r = phi < 1 ? phi / (1 - phi) : 0.0;
         private double f;
@@ -214,12 +227,17 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         Run(int n) {
             this.n = n;
             this.ne = elements.size();
-            this.k = new double[ne][];
+            this.kT = new double[N * ne];
             this.c0 = new double[ne];
             for (int e = 0; e < ne; e++) {
-                k[e] = coefficients.row(elements.get(e));
+                double[] row = coefficients.row(elements.get(e));
+                for (int j = 0; j < N; j++) {
+                    kT[j * ne + e] = row[j];
+                }
                 c0[e] = source.ppm(elements.get(e));
             }
+            bulkS = new double[ne];
+            bulkP = new double[ne];
             m[0] = mineralogy.spinelModeRef().clone();
             m[1] = mineralogy.garnetModeRef().clone();
             q = c0.clone();
@@ -227,27 +245,34 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         }
 
         CompositionResult integrate(double[] z, double[] p, double[] fCol, DoubleUnaryOperator cpxExhaustion) {
-            double[] inst = new double[n * ne];
-            double[] acc = new double[n * ne];
-            double[] res = new double[n * ne];
+            double[] values = new double[3 * n * ne];
             double[] fOut = new double[n];
             double[] w = new double[n];
             double[] cpx = new double[n];
+            // past the last point (or step) with any garnet share, the garnet-field residue has weight 0 in every
+            // blend: it is no longer melted (the blends, and so the results, are the same)
+            int lastGarnet = -1;
+            for (int i = 0; i < n; i++) {
+                if (mineralogy.garnetFraction(p[i]) > 0 || (i > 0 && mineralogy.garnetFraction(0.5 * (p[i - 1] + p[i])) > 0)) {
+                    lastGarnet = i;
+                }
+            }
             for (int i = 0; i < n; i++) {
                 if (i > 0) {
                     double target = Math.max(f, clampFraction(fCol[i]));
                     if (target > f) {
                         double pm = 0.5 * (p[i - 1] + p[i]);
                         double exh = cpxExhaustion == null ? Double.NaN : cpxExhaustion.applyAsDouble(pm);
+                        residues = i > lastGarnet ? 1 : 2;
                         melt(target, mineralogy.garnetFraction(pm), exh);
                     }
                 }
                 fOut[i] = f;
                 w[i] = mineralogy.garnetFraction(p[i]);
                 cpx[i] = (1 - w[i]) * m[0][CPX] + w[i] * m[1][CPX];
-                output(w[i], inst, acc, res, i * ne);
+                output(w[i], values, 3 * i * ne);
             }
-            return new CompositionResult(ColumnComposition.this, ne, z.clone(), p.clone(), fOut, w, cpx, inst, acc, res);
+            return new CompositionResult(ColumnComposition.this, ne, z.clone(), p.clone(), fOut, w, cpx, values);
         }
 
         private double clampFraction(double x) {
@@ -265,11 +290,15 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                     throw new IllegalStateException("composition increment did not converge");
                 }
                 double h = target - f;
-                for (int t = 0; t < 2; t++) {
-                    reactionOf(t, exhaustion, reaction[t]);
+                for (int t = 0; t < residues; t++) {
+                    double[] rt = reaction[t];
+                    double[] mt = m[t];
+                    reactionOf(t, exhaustion, rt);
                     for (int j = 0; j < N; j++) {
-                        if (reaction[t][j] > 0) {
-                            h = Math.min(h, m[t][j] / reaction[t][j]);
+                        // the mineral runs out within h: the division only where it may shorten the step
+                        // (a multiplication first; the margin covers its rounding, so h is the same as always dividing)
+                        if (rt[j] > 0 && mt[j] <= h * rt[j] * (1 + 1e-9)) {
+                            h = Math.min(h, mt[j] / rt[j]);
                         }
                     }
                 }
@@ -280,7 +309,8 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 if (f >= phi) {
                     extract(h, w);
                 }
-                for (int t = 0; t < 2; t++) {
+                bulkSFresh = false;
+                for (int t = 0; t < residues; t++) {
                     for (int j = 0; j < N; j++) {
                         double mj = m[t][j] - reaction[t][j] * h;
                         m[t][j] = mj < EXHAUSTED ? 0.0 : mj;
@@ -293,36 +323,66 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
         }
 
+        /** Σ weightⱼ·Kⱼ for every element into {@code out}, mineral by mineral (a zero weight adds nothing). */
+        private void bulk(double[] weight, double[] out) {
+            boolean first = true;
+            for (int j = 0; j < N; j++) {
+                double wj = weight[j];
+                if (wj != 0.0) {
+                    int o = j * ne;
+                    if (first) {
+                        for (int e = 0; e < ne; e++) {
+                            out[e] = wj * kT[o + e];
+                        }
+                        first = false;
+                    } else {
+                        for (int e = 0; e < ne; e++) {
+                            out[e] += wj * kT[o + e];
+                        }
+                    }
+                }
+            }
+            if (first) {
+                java.util.Arrays.fill(out, 0.0);
+            }
+        }
+
         /** Advances Q and E of every element over an increment h after the threshold. */
         private void extract(double h, double w) {
-            blend(w, mix, pMix);
+            solidCapacities(w);
+            double w0 = 1 - w;
+            for (int j = 0; j < N; j++) {
+                pMix[j] = w0 * reaction[0][j] + w * reaction[1][j];
+            }
+            bulk(pMix, bulkP);
             double retained = r * (1 - f);
             double scale = 1.0 / (1 - phi);
             for (int e = 0; e < ne; e++) {
-                double[] ke = k[e];
-                double s = 0;
-                double pb = 0;
-                for (int j = 0; j < N; j++) {
-                    s += mix[j] * ke[j];
-                    pb += pMix[j] * ke[j];
-                }
-                double hb = h / (s + retained);
+                double pb = bulkP[e];
+                double hb = h / (bulkS[e] + retained);
                 double qa = q[e];
-                double qb = qa * Math.exp(-hb * scale * Shaw1970.log1pOverX(-(pb + r) * hb));
+                double qb = qa * Shaw1970.exp(-hb * scale * Shaw1970.log1pOverX(-(pb + r) * hb));
                 q[e] = qb;
                 extracted[e] += qa - qb;
             }
         }
 
-        /** Blended residue modes and reaction at garnet share w (reaction into {@code pOut} when not null). */
-        private void blend(double w, double[] mOut, double[] pOut) {
+        /**
+         * The solid's capacity S = Σ xⱼKⱼ of every element into {@code bulkS} for the residues blended at garnet
+         * share w. Kept when nothing has melted since it was built for the same w (an output point and the next
+         * step inside one mineral field): the same numbers either way.
+         */
+        private void solidCapacities(double w) {
+            if (bulkSFresh && w == bulkSW) {
+                return;
+            }
             double w0 = 1 - w;
             for (int j = 0; j < N; j++) {
-                mOut[j] = w0 * m[0][j] + w * m[1][j];
-                if (pOut != null) {
-                    pOut[j] = w0 * reaction[0][j] + w * reaction[1][j];
-                }
+                mix[j] = w0 * m[0][j] + w * m[1][j];
             }
+            bulk(mix, bulkS);
+            bulkSW = w;
+            bulkSFresh = true;
         }
 
         /** The reaction of residue {@code t} now: proportions entering the melt, summing to 1. */
@@ -338,8 +398,9 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                     double pc = left > 1e-12 ? mt[CPX] / left : 1.0;
                     pc = Math.min(pc, 1.0);
                     double others = 1 - base[CPX];
+                    double perOther = others > 0 ? (1 - pc) / others : 0.0;
                     for (int j = 0; j < N; j++) {
-                        out[j] = j == CPX ? pc : (others > 0 ? base[j] * (1 - pc) / others : 0.0);
+                        out[j] = j == CPX ? pc : base[j] * perOther;
                     }
                 }
             }
@@ -356,9 +417,10 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
             if (lost > 0) {
                 if (melting > 0) {
+                    double spread = lost / melting;
                     for (int j = 0; j < N; j++) {
                         if (out[j] > 0) {
-                            out[j] += lost * out[j] / melting;
+                            out[j] += out[j] * spread;
                         }
                     }
                 } else if (mt[OL] > 0) {
@@ -369,23 +431,19 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
         }
 
-        /** Concentrations at the current state for garnet share {@code w}. */
-        private void output(double w, double[] inst, double[] acc, double[] res, int at) {
-            blend(w, mix, null);
+        /** Concentrations at the current state for garnet share {@code w}: instantaneous, accumulated, residue from {@code at}. */
+        private void output(double w, double[] values, int at) {
+            solidCapacities(w);
             boolean open = f > phi;
             double retained = open ? r * (1 - f) : f;
             double perSolid = 1 / (1 - f);
             double perMelt = f > 0 ? 1 / f : 0.0;
             for (int e = 0; e < ne; e++) {
-                double[] ke = k[e];
-                double s = 0;
-                for (int j = 0; j < N; j++) {
-                    s += mix[j] * ke[j];
-                }
+                double s = bulkS[e];
                 double cl = q[e] / (s + retained);
-                inst[at + e] = cl;
-                res[at + e] = cl * s * perSolid;
-                acc[at + e] = f > 0 ? (extracted[e] + cl * retained) * perMelt : cl;
+                values[at + e] = cl;
+                values[at + ne + e] = f > 0 ? (extracted[e] + cl * retained) * perMelt : cl;
+                values[at + 2 * ne + e] = cl * s * perSolid;
             }
         }
     }

@@ -18,13 +18,14 @@ public final class CompositionResult {
     private final double[] garnetFraction;
     private final double[] cpx;
     private final int ne;
-    private final double[] instantaneous;
-    private final double[] accumulated;
-    private final double[] residue;
+    /**
+     * Point by point, the instantaneous melt, the accumulated melt and the residue of every element:
+     * {@code values[(3i + k)·ne + e]}, k = 0, 1, 2 (one array, written and read in order).
+     */
+    private final double[] values;
 
     CompositionResult(ColumnComposition model, int ne, double[] depth, double[] pressure, double[] meltFraction,
-                      double[] garnetFraction, double[] cpx, double[] instantaneous, double[] accumulated,
-                      double[] residue) {
+                      double[] garnetFraction, double[] cpx, double[] values) {
         this.model = model;
         this.ne = ne;
         this.depth = depth;
@@ -32,9 +33,7 @@ public final class CompositionResult {
         this.meltFraction = meltFraction;
         this.garnetFraction = garnetFraction;
         this.cpx = cpx;
-        this.instantaneous = instantaneous;
-        this.accumulated = accumulated;
-        this.residue = residue;
+        this.values = values;
     }
 
     /** The model that produced this. */
@@ -80,17 +79,17 @@ public final class CompositionResult {
 
     /** Instantaneous melt leaving (or in equilibrium with) the residue at point {@code i} (ppm). */
     public double instantaneousMelt(int i, int element) {
-        return instantaneous[i * ne + element];
+        return values[3 * i * ne + element];
     }
 
     /** All melt made up to point {@code i}, extracted and retained (ppm); the first drop at F = 0. */
     public double accumulatedMelt(int i, int element) {
-        return accumulated[i * ne + element];
+        return values[(3 * i + 1) * ne + element];
     }
 
     /** Solid residue at point {@code i} (ppm). */
     public double residue(int i, int element) {
-        return residue[i * ne + element];
+        return values[(3 * i + 2) * ne + element];
     }
 
     /** Index of {@code e} among the elements. */
@@ -121,8 +120,8 @@ public final class CompositionResult {
         int top = size() - 1;
         double[] melt = new double[ne];
         double[] res = new double[ne];
-        System.arraycopy(accumulated, top * ne, melt, 0, ne);
-        System.arraycopy(residue, top * ne, res, 0, ne);
+        System.arraycopy(values, (3 * top + 1) * ne, melt, 0, ne);
+        System.arraycopy(values, (3 * top + 2) * ne, res, 0, ne);
         return new Pooled(meltFraction[top], melt, res);
     }
 
@@ -144,7 +143,14 @@ public final class CompositionResult {
         double[] rc = new double[ne];
         double fInt = 0;
         double height = 0;
-        for (int i = 0; i + 1 < size(); i++) {
+        // the trapezoids of the products F·C̄_L and (1 − F)·C_s over the intervals, the deep end of a cut interval
+        // interpolated to the cut (so that F·C̄_L + (1 − F)·C_s = C₀ holds there as well): weight t/2 on the deep
+        // point, (2 − t)/2 on the upper. Each point's weights from its two intervals are added first, so that
+        // every point's values are read once.
+        int n = size();
+        double[] meltWeight = new double[n];
+        double[] solidWeight = new double[n];
+        for (int i = 0; i + 1 < n; i++) {
             double zDeep = depth[i];
             double zUp = depth[i + 1];
             if (zUp >= maxDepth) {
@@ -159,16 +165,21 @@ public final class CompositionResult {
             double fUp = meltFraction[i + 1];
             fInt += 0.5 * dz * (fDeep + fUp);
             height += dz;
+            meltWeight[i] += 0.5 * dz * t * meltFraction[i];
+            meltWeight[i + 1] += 0.5 * dz * (2 - t) * fUp;
+            solidWeight[i] += 0.5 * dz * t * (1 - meltFraction[i]);
+            solidWeight[i + 1] += 0.5 * dz * (2 - t) * (1 - fUp);
+        }
+        for (int i = 0; i < n; i++) {
+            double a = meltWeight[i];
+            double b = solidWeight[i];
+            if (a == 0.0 && b == 0.0) {
+                continue;
+            }
+            int at = (3 * i + 1) * ne; // accumulated melt of point i; its residue follows
             for (int e = 0; e < ne; e++) {
-                // interpolate the products, so that F·C̄_L + (1 − F)·C_s = C₀ holds at the cut as well
-                int deep = i * ne + e;
-                int up = deep + ne;
-                double meltDeep = meltFraction[i] * accumulated[deep];
-                double meltUp = fUp * accumulated[up];
-                double resDeep = (1 - meltFraction[i]) * residue[deep];
-                double resUp = (1 - fUp) * residue[up];
-                fc[e] += 0.5 * dz * (meltUp + t * (meltDeep - meltUp) + meltUp);
-                rc[e] += 0.5 * dz * (resUp + t * (resDeep - resUp) + resUp);
+                fc[e] += a * values[at + e];
+                rc[e] += b * values[at + ne + e];
             }
         }
         if (!(fInt > 0)) {

@@ -289,6 +289,15 @@ public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implemen
         return Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), waterSaturation(p));
     }
 
+    /** Xsat(P) − Xbulk / (D + F(1 − D)): where it crosses zero, {@link #waterInMelt} meets its cap. */
+    @Override
+    public double waterSaturationMargin(double p, double f, double bulkWater) {
+        if (bulkWater <= 0) {
+            return Double.POSITIVE_INFINITY;
+        }
+        return waterSaturation(p) - bulkWater / (D_WATER + f * (1.0 - D_WATER));
+    }
+
     /** Dry melt fraction at an effective temperature (K) at pressure p. */
     double dryMeltFraction(double p, double t) {
         double ts = drySolidus(p);
@@ -358,7 +367,11 @@ public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implemen
 
     @Override
     public double temperatureAt(double p, double f, double bulkWater) {
-        double dT = depression(p, waterInMelt(p, f, bulkWater));
+        return temperatureWith(p, f, depression(p, waterInMelt(p, f, bulkWater)));
+    }
+
+    /** T on the law for melt fraction f with the curves lowered by dT (K). */
+    private double temperatureWith(double p, double f, double dT) {
         double ts = drySolidus(p);
         double fCpx = cpxExhaustionFraction(p);
         if (f <= fCpx) {
@@ -383,12 +396,22 @@ public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implemen
     /** The solidus branch [(T − Ts)/(Tl − Ts)]^β1 is continued past cpx exhaustion with its own formula. */
     @Override
     public double temperatureOnBranch(double p, double f, double bulkWater, boolean afterExhaustion) {
+        return onBranch(p, f, afterExhaustion, depression(p, waterInMelt(p, f, bulkWater)));
+    }
+
+    /** The branch law with the melt's water Xbulk / (D + F(1 − D)) not capped at Xsat. */
+    @Override
+    public double temperatureBelowSaturation(double p, double f, double bulkWater, boolean afterExhaustion) {
+        double water = bulkWater <= 0 ? 0.0 : bulkWater / (D_WATER + f * (1.0 - D_WATER));
+        return onBranch(p, f, afterExhaustion, depression(p, water));
+    }
+
+    private double onBranch(double p, double f, boolean afterExhaustion, double dT) {
         if (afterExhaustion) {
-            return temperatureAt(p, f, bulkWater);
+            return temperatureWith(p, f, dT);
         }
         double ts = drySolidus(p);
-        return ts + Math.pow(f, 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts)
-                - depression(p, waterInMelt(p, f, bulkWater));
+        return ts + Math.pow(f, 1.0 / BETA1) * (lherzoliteLiquidus(p) - ts) - dT;
     }
 
     private List<String> check(double p, double bulkWater) {

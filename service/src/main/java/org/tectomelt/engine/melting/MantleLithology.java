@@ -58,6 +58,17 @@ public interface MantleLithology extends Lithology {
     }
 
     /**
+     * {@link #temperatureOnBranch} with the melt's water not capped at saturation: the same law
+     * continued smoothly past the point where {@link #waterSaturationMargin} reaches zero, which a
+     * column integrates up to that point (then on with the capped law). Equal to
+     * {@link #temperatureOnBranch} wherever the melt is undersaturated; laws without a cap need not
+     * override it.
+     */
+    default double temperatureBelowSaturation(double p, double f, double bulkWater, boolean afterExhaustion) {
+        return temperatureOnBranch(p, f, bulkWater, afterExhaustion);
+    }
+
+    /**
      * Water dissolved in the melt (mass fraction) when the rock holds melt fraction {@code f} at
      * pressure {@code p} (Pa) with bulk water {@code bulkWater}, melt and residue in equilibrium
      * (batch). The default asks {@link #melt} at {@link #temperatureAt}; hydrous models with a
@@ -68,6 +79,17 @@ public interface MantleLithology extends Lithology {
             return 0.0;
         }
         return melt(p, temperatureAt(p, f, bulkWater), bulkWater).waterInMelt();
+    }
+
+    /**
+     * How far below saturation the melt's water is at melt fraction {@code f} (mass fraction of
+     * water; negative once the melt would hold more than it can dissolve and the law caps it). Its
+     * zero is where T(P, F) changes form: a column starting there towards a top at zero pressure,
+     * where the saturated water and so the solidus change without bound, integrates in a variable
+     * that keeps that end regular. Laws without a saturation cap return {@code +∞} (the default).
+     */
+    default double waterSaturationMargin(double p, double f, double bulkWater) {
+        return Double.POSITIVE_INFINITY;
     }
 
     /**

@@ -139,6 +139,16 @@ public record ShiftedMantleLithology(MantleLithology base, double shift) impleme
     }
 
     @Override
+    public double temperatureBelowSaturation(double p, double f, double bulkWater, boolean afterExhaustion) {
+        return base.temperatureBelowSaturation(p, f, bulkWater, afterExhaustion) + shift;
+    }
+
+    @Override
+    public double waterSaturationMargin(double p, double f, double bulkWater) {
+        return base.waterSaturationMargin(p, f, bulkWater);
+    }
+
+    @Override
     public double waterPartition() {
         return base.waterPartition();
     }
