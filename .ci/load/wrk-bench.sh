@@ -45,6 +45,7 @@ OUT=""
 BASELINE=0
 COMPARE_JAR=""
 B_PID=""
+STARTED_PID=""
 SERVER_ENV=("TECTOMELT_CACHE_MB=0")   # measure computation, not the result cache
 ENDPOINTS=()
 
@@ -82,7 +83,7 @@ WORK=$(mktemp -d)
 SERVER_PID=""
 TRIVIAL_PID=""
 cleanup() {
-  for pid in "$SERVER_PID" "$TRIVIAL_PID" "$B_PID"; do
+  for pid in "$SERVER_PID" "$TRIVIAL_PID" "$B_PID" "$STARTED_PID"; do
     if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null; then
       kill "$pid" 2>/dev/null || true
       wait "$pid" 2>/dev/null || true
@@ -150,34 +151,31 @@ cpu_ticks() { awk '{print $14 + $15}' "/proc/${1:-$SERVER_PID}/stat"; }
 CLK_TCK=$(getconf CLK_TCK)
 hwm_mib() { awk '/^VmHWM:/ {printf "%.0f", $2 / 1024}' "/proc/$SERVER_PID/status"; }
 
-# each server keeps its (empty) run database in the scratch folder, not in ./data
-env HOST=127.0.0.1 PORT=0 TECTOMELT_DATA_DIR="$WORK/data" "${SERVER_ENV[@]}" \
-  java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -jar "$JAR" > "$WORK/server.log" 2>&1 &
-SERVER_PID=$!
-PORT=""
-for _ in $(seq 1 150); do
-  PORT=$(sed -n 's#.*listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$WORK/server.log" | sed -n 1p)
-  [ -n "$PORT" ] && break
-  kill -0 "$SERVER_PID" 2>/dev/null || { cat "$WORK/server.log" >&2; exit 1; }
-  sleep 0.2
-done
-[ -n "$PORT" ] || { echo "server did not start" >&2; cat "$WORK/server.log" >&2; exit 1; }
-BASE="http://127.0.0.1:$PORT"
+# starts a jar on a free loopback port with its own (empty) run database in the scratch folder,
+# not in ./data; sets STARTED_PID and STARTED_PORT ($2 names its log and database)
+start_server() {
+  local jar=$1 name=$2 log="$WORK/server-$2.log"
+  env HOST=127.0.0.1 PORT=0 TECTOMELT_DATA_DIR="$WORK/data-$name" "${SERVER_ENV[@]}" \
+    java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -jar "$jar" > "$log" 2>&1 &
+  STARTED_PID=$!
+  STARTED_PORT=""
+  for _ in $(seq 1 150); do
+    STARTED_PORT=$(sed -n 's#.*listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$log" | sed -n 1p)
+    [ -n "$STARTED_PORT" ] && return 0
+    kill -0 "$STARTED_PID" 2>/dev/null || { cat "$log" >&2; exit 1; }
+    sleep 0.2
+  done
+  echo "server $jar did not start" >&2; cat "$log" >&2; exit 1
+}
+start_server "$JAR" a
+SERVER_PID=$STARTED_PID
+BASE="http://127.0.0.1:$STARTED_PORT"
 B_BASE=""
 if [ -n "$COMPARE_JAR" ]; then
   [ -f "$COMPARE_JAR" ] || { echo "no $COMPARE_JAR" >&2; exit 2; }
-  env HOST=127.0.0.1 PORT=0 TECTOMELT_DATA_DIR="$WORK/data-b" "${SERVER_ENV[@]}" \
-    java -Xmx"$HEAP" -XX:+UseSerialGC -XX:+ExitOnOutOfMemoryError $JVM_OPTS -jar "$COMPARE_JAR" > "$WORK/server-b.log" 2>&1 &
-  B_PID=$!
-  BPORT=""
-  for _ in $(seq 1 150); do
-    BPORT=$(sed -n 's#.*listening on http://127.0.0.1:\([0-9]*\)/.*#\1#p' "$WORK/server-b.log" | sed -n 1p)
-    [ -n "$BPORT" ] && break
-    kill -0 "$B_PID" 2>/dev/null || { cat "$WORK/server-b.log" >&2; exit 1; }
-    sleep 0.2
-  done
-  [ -n "$BPORT" ] || { echo "second server did not start" >&2; exit 1; }
-  B_BASE="http://127.0.0.1:$BPORT"
+  start_server "$COMPARE_JAR" b
+  B_PID=$STARTED_PID
+  B_BASE="http://127.0.0.1:$STARTED_PORT"
   both=()
   for e in "${ENDPOINTS[@]}"; do both+=("$e" "B:$e"); done
   ENDPOINTS=("${both[@]}")
