@@ -121,9 +121,27 @@ final class CrustalRocks {
         return Double.NaN;
     }
 
-    /** The one rule between a rock's curve fields that can be checked on any body: not both. */
-    static void checkOneCurve(Rules rules, List<MeltPoint> points, MeltingInterval interval) {
-        rules.check(points == null || interval == null, "meltingInterval", "give meltCurve or meltingInterval, not both");
+    /** A rock of a request that may give its melting as a curve or as an interval. */
+    interface CurveFields {
+        List<MeltPoint> meltCurve();
+
+        MeltingInterval meltingInterval();
+    }
+
+    /**
+     * The one rule between a rock's curve fields that can be checked on any body, for the crust and
+     * the intrusion of a heating request (either may be absent): not both.
+     */
+    static void checkOneCurve(Rules rules, CurveFields crust, CurveFields intrusion) {
+        checkOneCurve(rules.at("crust"), crust);
+        checkOneCurve(rules.at("intrusion"), intrusion);
+    }
+
+    private static void checkOneCurve(Rules rules, CurveFields rock) {
+        if (rock != null) {
+            rules.check(rock.meltCurve() == null || rock.meltingInterval() == null, "meltingInterval",
+                    "give meltCurve or meltingInterval, not both");
+        }
     }
 
     /** {@code meltCurve} or {@code meltingInterval} of one rock (at most one of them); null when neither. */

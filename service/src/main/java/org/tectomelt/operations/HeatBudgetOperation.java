@@ -27,13 +27,15 @@ public final class HeatBudgetOperation implements Operation<HeatBudgetOperation.
     /** The crust. */
     public record Crust(String lithology, Double initialTemperatureC, Double densityKgPerM3,
                         Double heatCapacityJPerKgK, Double latentHeatJPerKg, List<MeltPoint> meltCurve,
-                        MeltingInterval meltingInterval, Double targetMeltFraction, Double thicknessM) {
+                        MeltingInterval meltingInterval, Double targetMeltFraction, Double thicknessM)
+            implements CrustalRocks.CurveFields {
     }
 
     /** The intrusion (the spec fills {@code lithology}). */
     public record Intrusion(String lithology, Double temperatureC, Double densityKgPerM3, Double heatCapacityJPerKgK,
                             Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
-                            Double crystallizedFraction, Double thicknessM) {
+                            Double crystallizedFraction, Double thicknessM)
+            implements CrustalRocks.CurveFields {
     }
 
     /** Request. */
@@ -95,13 +97,7 @@ public final class HeatBudgetOperation implements Operation<HeatBudgetOperation.
 
     @Override
     public void check(Request q, Rules rules) {
-        if (q.crust() != null) {
-            CrustalRocks.checkOneCurve(rules.at("crust"), q.crust().meltCurve(), q.crust().meltingInterval());
-        }
-        if (q.intrusion() != null) {
-            CrustalRocks.checkOneCurve(rules.at("intrusion"), q.intrusion().meltCurve(),
-                    q.intrusion().meltingInterval());
-        }
+        CrustalRocks.checkOneCurve(rules, q.crust(), q.intrusion());
     }
 
     @Override

@@ -50,7 +50,8 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
     public record Crust(String lithology, Double initialTemperatureC, Double conductivityWPerMK,
                         String conductivityLaw, Double densityKgPerM3, Double heatCapacityJPerKgK,
                         Double latentHeatJPerKg, List<MeltPoint> meltCurve, MeltingInterval meltingInterval,
-                        Double thicknessKm, List<CrustalRocks.TableRow> meltTable) {
+                        Double thicknessKm, List<CrustalRocks.TableRow> meltTable)
+            implements CrustalRocks.CurveFields {
     }
 
     /** The non-melting mantle below the Moho (the spec fills density and heat capacity). */
@@ -66,7 +67,8 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                             Double conductivityWPerMK, String conductivityLaw, Double densityKgPerM3,
                             Double heatCapacityJPerKgK, Double latentHeatJPerKg, List<MeltPoint> meltCurve,
                             MeltingInterval meltingInterval, Repeat repeat, Boolean convection,
-                            Double lockMeltFraction, Double viscosityPaS, Double thermalExpansivityPerK) {
+                            Double lockMeltFraction, Double viscosityPaS, Double thermalExpansivityPerK)
+            implements CrustalRocks.CurveFields {
     }
 
     /** A steady continental geotherm as the initial state (the spec fills its defaults). */
@@ -196,13 +198,7 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
 
     @Override
     public void check(Request q, Rules rules) {
-        if (q.crust() != null) {
-            CrustalRocks.checkOneCurve(rules.at("crust"), q.crust().meltCurve(), q.crust().meltingInterval());
-        }
-        if (q.intrusion() != null) {
-            CrustalRocks.checkOneCurve(rules.at("intrusion"), q.intrusion().meltCurve(),
-                    q.intrusion().meltingInterval());
-        }
+        CrustalRocks.checkOneCurve(rules, q.crust(), q.intrusion());
     }
 
     @Override
