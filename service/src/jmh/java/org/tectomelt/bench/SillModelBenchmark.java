@@ -49,6 +49,8 @@ public class SillModelBenchmark {
     private final SillModel.Setup setup = setup();
     private final SillModel.Setup gradedTen = setup.withGrid(SillModel.GridPlan.GRADED);
     private final SillModel.Setup gradedDefault = gradedTen.withGridSpacing(SillModel.resolvingSpacing(500));
+    private final SillModel.Setup gradedResolved = gradedDefault.withTolerance(SillModel.resolvingTolerance(500,
+            gradedDefault.gridSpacing()));
     private final SillModel.Setup stack = stackAtTenMmPerYr();
     private final SillModel.Setup stackResolved = stack.withTolerance(SillModel.resolvingTolerance(250,
             stack.gridSpacing()));
@@ -102,6 +104,12 @@ public class SillModelBenchmark {
     @Benchmark
     public SillResult twentyStackedSillsGradedDefault() {
         return SillModel.run(gradedDefault);
+    }
+
+    /** The 20-sill run as the service runs it without {@code gridSpacingM}: checked, refined until converged. */
+    @Benchmark
+    public SillResult twentyStackedSillsRefinedDefault() {
+        return SillModel.runRefined(gradedResolved, 20_000, Deadline.none());
     }
 
     /** The stacked case at 10 mm/yr on the default graded grid. */
