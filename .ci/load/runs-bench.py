@@ -2,14 +2,14 @@
 """Runs against individual requests, side by side in one go, on the packaged jar.
 
   python3 .ci/load/runs-bench.py [--jar service/target/tectomelt.jar] [--compare OLD.jar]
-                                 [--rounds 3] [--warmup-s 30] [--poll-ms 20] [--no-jmh]
+                                 [--rounds 3] [--warmup-s 60] [--poll-ms 20] [--no-jmh]
 
 1. JMH RunSweepBenchmark: the single-core time of the 2,000-point mid-ocean-ridge sweep,
    each point computed as a run computes it (no database); × the service's cores = the engine
    rate the issue compares with. Also measured with one thread per core at once (the cores'
    real joint rate on this machine) and, for reference, the engine's columns alone.
 2. The jar (and, with --compare, a second jar: both on loopback ports, each with a fresh
-   embedded database) warmed up for --warmup-s seconds each (individual requests and runs
+   embedded database) warmed up for --warmup-s seconds each (default 60; individual requests and runs
    alternately: a lab server runs warm, and a cold JVM spends as much CPU compiling as
    computing); then, per round and per jar:
    - the 2,000 points as 2,000 POST /v1/settings/mid-ocean-ridge from a client with two
@@ -57,7 +57,8 @@ def jmh(threads):
     out = os.path.join(ROOT, "service", "target", f"jmh-runsweep-t{threads}.json")
     subprocess.run(["java", "-Djmh.ignoreLock=true", "-cp", cp, "org.openjdk.jmh.Main", "RunSweepBenchmark",
                     "-f", "1", "-t", str(threads), "-wi", "3", "-w", "2s", "-i", "5", "-r", "2s",
-                    "-rf", "json", "-rff", out], cwd=ROOT, check=True, stdout=subprocess.DEVNULL)
+                    "-rf", "json", "-rff", out], cwd=ROOT, check=True, stdout=subprocess.DEVNULL,
+                   stderr=subprocess.DEVNULL)
     return {r["benchmark"].rsplit(".", 1)[1]: r["primaryMetric"]["score"] for r in json.load(open(out))}
 
 
@@ -159,7 +160,7 @@ def main():
     ap.add_argument("--jar", default=os.path.join(ROOT, "service", "target", "tectomelt.jar"))
     ap.add_argument("--compare", help="a second jar (say, main's) measured alternately with --jar")
     ap.add_argument("--rounds", type=int, default=3)
-    ap.add_argument("--warmup-s", type=float, default=30, help="seconds of warm-up per jar")
+    ap.add_argument("--warmup-s", type=float, default=60, help="seconds of warm-up per jar")
     ap.add_argument("--poll-ms", type=float, default=20, help="the client's poll interval of a run")
     ap.add_argument("--no-jmh", action="store_true")
     a = ap.parse_args()
