@@ -57,6 +57,7 @@ class ConfigTest {
         assertEquals(10_000, d.bodyTimeoutMillis());
         assertEquals(16, d.threadsPerClient());
         assertEquals(1_000, d.heavyBatchPoints());
+        assertEquals(1, d.compressionLevel());
         assertEquals(d, new Config("127.0.0.1", 7070, 1_048_576L), "the first release's constructor keeps working");
     }
 
@@ -73,7 +74,8 @@ class ConfigTest {
                 Map.entry("TECTOMELT_CACHE_MB", "0"),
                 Map.entry("TECTOMELT_TOKEN", "  s3cret-token-for-the-lab  "),
                 Map.entry("TECTOMELT_CORS_ORIGINS", "https://dash.example.org, http://localhost:8888/"),
-                Map.entry("TECTOMELT_SHUTDOWN_GRACE_MS", "3000")));
+                Map.entry("TECTOMELT_SHUTDOWN_GRACE_MS", "3000"),
+                Map.entry("TECTOMELT_COMPRESSION_LEVEL", "0")));
         assertEquals(500, c.maxBatchPoints());
         assertEquals(800, c.maxProfilePoints());
         assertEquals(1_000_000L, c.maxSillCellSteps());
@@ -86,6 +88,7 @@ class ConfigTest {
         assertTrue(c.accessControlled());
         assertEquals(List.of("https://dash.example.org", "http://localhost:8888"), c.corsOrigins());
         assertEquals(3000, c.shutdownGraceMillis());
+        assertEquals(0, c.compressionLevel());
     }
 
     @Test
@@ -125,6 +128,7 @@ class ConfigTest {
                 Map.of("TECTOMELT_HEAVY_CONCURRENCY", "0"),
                 Map.of("TECTOMELT_HEAVY_BUDGET_MS", "5"),
                 Map.of("TECTOMELT_CACHE_MB", "-1"),
+                Map.of("TECTOMELT_COMPRESSION_LEVEL", "10"),
                 Map.of("TECTOMELT_CORS_ORIGINS", "dash.example.org"),
                 Map.of("TECTOMELT_CORS_ORIGINS", "https://dash.example.org/path"),
                 Map.of("TECTOMELT_CORS_ORIGINS", "*, https://dash.example.org"))) {

@@ -34,7 +34,9 @@ import org.tectomelt.engine.units.Units;
  * <p>The stacked case at 10 mm/yr: 250 m sills every 25 kyr for 2 Myr (80 sills, 20 km of basalt),
  * under-accreted at 28 km in a 60 km column of crust at 450 °C (the page's invented scenario, with its
  * rock properties), output every 20 kyr, on the default graded grid (0.625 m finest cells), alone
- * and with the convergence check (a second run at twice the finest cell).
+ * and with the convergence check (a second run at twice the finest cell), and as the service runs it by
+ * default: at the default tolerance of that cell ({@code SillModel.resolvingTolerance}, 0.125 K), checked one
+ * level coarser and refined until converged ({@code SillModel.runRefined}).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -47,7 +49,11 @@ public class SillModelBenchmark {
     private final SillModel.Setup setup = setup();
     private final SillModel.Setup gradedTen = setup.withGrid(SillModel.GridPlan.GRADED);
     private final SillModel.Setup gradedDefault = gradedTen.withGridSpacing(SillModel.resolvingSpacing(500));
+    private final SillModel.Setup gradedResolved = gradedDefault.withTolerance(SillModel.resolvingTolerance(500,
+            gradedDefault.gridSpacing()));
     private final SillModel.Setup stack = stackAtTenMmPerYr();
+    private final SillModel.Setup stackResolved = stack.withTolerance(SillModel.resolvingTolerance(250,
+            stack.gridSpacing()));
 
     private static SillModel.Setup stackAtTenMmPerYr() {
         MeltCurve pelite = new MeltCurve(new double[] {C0 + 750, C0 + 800, C0 + 850, C0 + 900, C0 + 1000},
@@ -100,6 +106,12 @@ public class SillModelBenchmark {
         return SillModel.run(gradedDefault);
     }
 
+    /** The 20-sill run as the service runs it without {@code gridSpacingM}: checked, refined until converged. */
+    @Benchmark
+    public SillResult twentyStackedSillsRefinedDefault() {
+        return SillModel.runRefined(gradedResolved, 20_000, Deadline.none());
+    }
+
     /** The stacked case at 10 mm/yr on the default graded grid. */
     @Benchmark
     public SillResult stackAtTenMmPerYrGradedDefault() {
@@ -110,5 +122,11 @@ public class SillModelBenchmark {
     @Benchmark
     public SillResult stackAtTenMmPerYrWithConvergenceCheck() {
         return SillModel.runWithConvergenceCheck(stack, Deadline.none());
+    }
+
+    /** The stacked case at 10 mm/yr as the service runs it without {@code gridSpacingM}: refined until converged. */
+    @Benchmark
+    public SillResult stackAtTenMmPerYrRefinedDefault() {
+        return SillModel.runRefined(stackResolved, 20_000, Deadline.none());
     }
 }

@@ -9,7 +9,6 @@ import com.networknt.schema.Error;
 import com.networknt.schema.Schema;
 import com.networknt.schema.SchemaLocation;
 import com.networknt.schema.SchemaRegistry;
-import com.networknt.schema.dialect.Dialects;
 import com.networknt.schema.path.NodePath;
 import java.io.IOException;
 import java.io.InputStream;
@@ -61,7 +60,7 @@ public final class SpecContract {
     private SpecContract(JsonNode spec) {
         this.spec = spec;
         String json = spec.toString();
-        this.registry = SchemaRegistry.withDefaultDialect(Dialects.getOpenApi30(),
+        this.registry = SchemaRegistry.withDefaultDialect(QuickBounds.openApi30(),
                 b -> b.schemas(Map.of(BASE, json)));
     }
 

@@ -1,6 +1,8 @@
 package org.tectomelt.http;
 
 import io.javalin.Javalin;
+import io.javalin.compression.CompressionStrategy;
+import io.javalin.compression.Gzip;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import io.javalin.http.HandlerType;
@@ -87,6 +89,8 @@ public final class App {
             c.startup.showOldJavalinVersionWarning = false;
             c.http.maxRequestSize = config.maxBodyBytes();
             c.http.prefer405over404 = true;
+            c.http.compressionStrategy = config.compressionLevel() == 0 ? CompressionStrategy.NONE
+                    : new CompressionStrategy(null, new Gzip(config.compressionLevel()));
             c.appData(Metrics.KEY, metrics);
             c.appData(Heavy.KEY, heavy);
             c.appData(RunsRoutes.KEY, runs);

@@ -109,15 +109,25 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
     public record Boundaries(double surfaceTemperatureC, double basalHeatFlowMWPerM2) {
     }
 
-    /** The grid-convergence check: the run repeated with the finest cell doubled (see {@link SillResult.Convergence}). */
-    public record Convergence(double coarseGridSpacingM, Double solidificationTimeChange,
+    /** The coarser run's key numbers: the other answer of the convergence check's pair. */
+    public record CoarseRun(Double solidificationTimeKyr, Double timeToFirstCrustMeltKyr, double peakCrustMeltThicknessM,
+                            Double peakTimeKyr, Double lockUpTimeKyr) {
+    }
+
+    /**
+     * The convergence check: the run repeated one level coarser, the finest cell doubled and the time-step
+     * tolerance quadrupled (see {@link SillResult.Convergence}), after {@code refinements} refinements of the
+     * default.
+     */
+    public record Convergence(double coarseGridSpacingM, double coarseToleranceK, Double solidificationTimeChange,
                               Double timeToFirstCrustMeltChange, Double peakCrustMeltThicknessChange,
-                              Double peakTimeChange, double largestChange, boolean converged) {
+                              Double peakTimeChange, Double lockUpTimeChange, double largestChange, boolean converged,
+                              int refinements, CoarseRun coarse) {
     }
 
     /** Cost figures of the run. */
     public record Numerics(int cells, double gridSpacingM, int timeSteps, int rejectedSteps, long linearSolves,
-                           double smallestCellM, double largestCellM, Convergence convergence) {
+                           double smallestCellM, double largestCellM, double toleranceK, Convergence convergence) {
     }
 
     /** The run. */
@@ -361,7 +371,7 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                 initial, intrusions, columnM, dz,
                 Units.kyrToS(durationKyr), Units.kyrToS(every),
                 profileKyr.stream().map(Units::kyrToS).toList(), profileM,
-                new SillModel.Numerics(SillModel.Numerics.DEFAULT.toleranceK(), MAX_TIME_STEPS,
+                new SillModel.Numerics(SillModel.resolvingTolerance(thickness, dz), MAX_TIME_STEPS,
                         config.maxSillCellSteps()),
                 mantle, mohoM, plan, convection);
         long cells = (long) probe.initialCells() + (long) probe.sillsWithinDuration() * probe.cellsPerSill();
@@ -376,9 +386,18 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                 "the least grid cells × time steps this run needs,", "TECTOMELT_MAX_SILL_CELL_STEPS");
         // the column at its end: samples of a profile lie at least the spacing apart (and are cells)
         double finalDepth = columnM + probe.sillsWithinDuration() * thickness;
+        // the default graded grid is refined until converged (SillModel.runRefined), within MAX_CELLS
+        boolean refine = q.gridSpacingM() == null && !plan.uniform() && !Boolean.FALSE.equals(q.convergenceCheck());
         if (profileSpacing != null) {
+            long most = cells;
+            SillModel.Setup finest = probe;
+            for (int k = 0; refine && k < SillModel.MAX_REFINEMENTS; k++) {
+                finest = finest.finer();
+                most = Math.max(most, Math.min(MAX_CELLS,
+                        (long) finest.initialCells() + (long) finest.sillsWithinDuration() * finest.cellsPerSill()));
+            }
             double points = plan.uniform() ? Math.ceil(cells / Math.max(1, Math.rint(profileSpacing / dz)))
-                    : Math.min(cells, Math.floor(finalDepth / profileSpacing) + 1);
+                    : Math.min(most, Math.floor(finalDepth / profileSpacing) + 1);
             rules.cap("profileSpacingM", points, config.maxProfilePoints(), "points per profile",
                     "TECTOMELT_MAX_PROFILE_POINTS");
         }
@@ -394,8 +413,13 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
         }
         SillResult r;
         try {
-            r = Boolean.FALSE.equals(q.convergenceCheck()) ? SillModel.run(setup, deadline)
-                    : SillModel.runWithConvergenceCheck(setup, deadline);
+            if (Boolean.FALSE.equals(q.convergenceCheck())) {
+                r = SillModel.run(setup, deadline);
+            } else if (refine) {
+                r = SillModel.runRefined(setup, MAX_CELLS, deadline);
+            } else {
+                r = SillModel.runWithConvergenceCheck(setup, deadline);
+            }
         } catch (SillModel.WorkLimitExceeded e) {
             throw new OperationException("durationKyr", e.getMessage() + " (server caps TECTOMELT_MAX_SILL_CELL_STEPS "
                     + "and " + MAX_TIME_STEPS + " time steps); shorten durationKyr, coarsen gridSpacingM or emplace "
@@ -472,11 +496,17 @@ public final class SillModelOperation implements Operation<SillModelOperation.Re
                 Units.wPerM2ToMwPerM2(setup.initial().basalHeatFlow(setup.columnDepth())));
         SillResult.Numerics nm = r.numerics();
         SillResult.Convergence cc = r.convergence();
-        Convergence check = cc == null ? null : new Convergence(cc.coarseSpacing(), cc.solidificationTimeChange(),
-                cc.timeToFirstCrustMeltChange(), cc.peakCrustMeltChange(), cc.peakTimeChange(), cc.largestChange(),
-                cc.converged());
-        Numerics numerics = new Numerics(nm.cells(), setup.gridSpacing(), nm.timeSteps(), nm.rejectedSteps(),
-                nm.linearSolves(), nm.smallestCell(), nm.largestCell(), check);
+        Convergence check = null;
+        if (cc != null) {
+            SillResult.Summary cs = cc.coarse();
+            check = new Convergence(cc.coarseSpacing(), cc.coarseTolerance(), cc.solidificationTimeChange(),
+                    cc.timeToFirstCrustMeltChange(), cc.peakCrustMeltChange(), cc.peakTimeChange(),
+                    cc.lockUpTimeChange(), cc.largestChange(), cc.converged(), cc.refinements(),
+                    new CoarseRun(kyrOrNull(cs.solidificationTime()), kyrOrNull(cs.timeToFirstCrustMelt()),
+                            cs.peakCrustMeltThickness(), kyrOrNull(cs.peakTime()), kyrOrNull(cs.lockUpTime())));
+        }
+        Numerics numerics = new Numerics(nm.cells(), nm.gridSpacing(), nm.timeSteps(), nm.rejectedSteps(),
+                nm.linearSolves(), nm.smallestCell(), nm.largestCell(), nm.toleranceK(), check);
         List<ModelInfo> models = new ArrayList<>(List.of(SillModel.ENTHALPY_METHOD));
         if (setup.initial() instanceof GeothermInitialState) {
             models.add(ContinentalGeotherm.INFO);

@@ -373,7 +373,7 @@ class PageBrowserTest {
     @Test
     void sillFormUsesTheGradedGridDefaultsAndRunsConvectionBesideConduction() throws Exception {
         browser.open(page("sill"));
-        // the finest spacing is optional: left empty, the service plans 1/400 of the sill thickness
+        // the finest spacing is optional: left empty, the service starts from 1/400 of the sill thickness
         WebElement spacing = browser.driver.findElement(By.cssSelector("[name='gridSpacingM']"));
         assertEquals("", spacing.getAttribute("value"));
         assertEquals("server default", spacing.getAttribute("placeholder"));
@@ -388,14 +388,17 @@ class PageBrowserTest {
         assertEquals("done", browser.submit(), text("#form-error"));
         JsonNode json = downloadedJson("sill");
 
-        // the graded grid as the service reports it: finest cell 250 m / 400 (the spec's default), coarse far away
-        assertEquals(250.0 / 400, json.at("/numerics/gridSpacingM").asDouble(), 1e-12);
+        // the graded grid as the service reports it: finest cell 250 m / 400 (the spec's default), halved at each
+        // refinement of the default until the check passes, coarse far away
+        JsonNode check = json.at("/numerics/convergence");
+        int refinements = check.get("refinements").asInt();
+        assertEquals(250.0 / 400 / (1 << refinements), json.at("/numerics/gridSpacingM").asDouble(), 1e-12);
+        assertEquals(refinements, summary("numerics.convergence.refinements"), 0);
         assertEquals(json.at("/numerics/smallestCellM").asDouble(), summary("numerics.smallestCellM"), 0.0006);
         assertEquals(json.at("/numerics/largestCellM").asDouble(), summary("numerics.largestCellM"), 0.06);
         assertTrue(json.at("/numerics/largestCellM").asDouble() / json.at("/numerics/smallestCellM").asDouble() > 100);
-        // and its convergence check, run by default
-        JsonNode check = json.at("/numerics/convergence");
-        assertEquals(2 * 250.0 / 400, check.get("coarseGridSpacingM").asDouble(), 1e-12);
+        // and its convergence check, run by default, against the run one level coarser
+        assertEquals(2 * json.at("/numerics/gridSpacingM").asDouble(), check.get("coarseGridSpacingM").asDouble(), 1e-12);
         assertEquals(100 * check.get("largestChange").asDouble(), summary("numerics.convergence.largestChange"), 0.006);
         assertEquals(check.get("converged").asBoolean() ? "yes" : "no",
                 text("#summary tr[data-path='numerics.convergence.converged'] td.value"));

@@ -8,6 +8,7 @@ import static org.hamcrest.Matchers.hasItem;
 import static org.hamcrest.Matchers.lessThan;
 import static org.hamcrest.Matchers.notNullValue;
 import static org.hamcrest.Matchers.nullValue;
+import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.tectomelt.http.Problem.assertInvalidField;
 
 import org.junit.jupiter.api.Test;
@@ -59,6 +60,50 @@ class SillGradedGridContractTest {
         // a coarse grid is flagged
         TestServer.json(single("", ", \"gridSpacingM\": 5")).post(PATH).then()
                 .statusCode(200)
+                .body("numerics.convergence.converged", equalTo(false))
+                .body("warnings", hasItem(containsString("not converged")));
+    }
+
+    /**
+     * A 250 m sill in metapelite at 650 °C first melts its roof within a year, while the heated layer is a few
+     * metres thick: the default grid is refined (finest cell halved, tolerance quartered; adaptive refinement,
+     * common practice) until the run and the one before it agree within 1 %, and the response says how.
+     */
+    @Test
+    void theDefaultIsRefinedUntilConvergedAndReportsThePair() {
+        String body = "{\"crust\": {\"lithology\": \"metapelite\", \"initialTemperatureC\": 650}, \"intrusion\": "
+                + "{\"temperatureC\": 1230, \"thicknessM\": 250, \"topDepthKm\": 20}, \"columnDepthKm\": 40, "
+                + "\"durationKyr\": 20, \"outputEveryKyr\": 1";
+        var json = TestServer.json(body + "}").post(PATH).then()
+                .statusCode(200)
+                .body("numerics.convergence.converged", equalTo(true))
+                .body("numerics.convergence.largestChange", lessThan(0.01))
+                .body("numerics.convergence.refinements", greaterThan(0))
+                .body("numerics.convergence.coarse.timeToFirstCrustMeltKyr", notNullValue())
+                .body("numerics.convergence.coarse.peakCrustMeltThicknessM", greaterThan(0.0))
+                .extract().jsonPath();
+        int k = json.getInt("numerics.convergence.refinements");
+        double h = json.getDouble("numerics.gridSpacingM");
+        double tol = json.getDouble("numerics.toleranceK");
+        // the default 1/400 of the sill and 0.125 K, halved and quartered k times
+        assertEquals(250.0 / 400 / (1 << k), h, 1e-12);
+        assertEquals(0.125 / (1 << (2 * k)), tol, 1e-15);
+        assertEquals(2 * h, json.getDouble("numerics.convergence.coarseGridSpacingM"),
+                1e-12);
+        assertEquals(4 * tol, json.getDouble("numerics.convergence.coarseToleranceK"),
+                1e-15);
+        double fine = json.getDouble("summary.timeToFirstCrustMeltKyr");
+        double coarse = json.getDouble("numerics.convergence.coarse.timeToFirstCrustMeltKyr");
+        assertEquals(Math.abs(fine - coarse) / Math.max(fine, coarse),
+                json.getDouble("numerics.convergence.timeToFirstCrustMeltChange"), 1e-12);
+        // a given spacing is used as it is and checked, not refined; its tolerance goes with it
+        TestServer.json(body + ", \"gridSpacingM\": 1.25}").post(PATH).then()
+                .statusCode(200)
+                .body("numerics.gridSpacingM", closeTo(1.25, 1e-12))
+                .body("numerics.toleranceK", closeTo(0.5, 1e-12))
+                .body("numerics.convergence.refinements", equalTo(0))
+                .body("numerics.convergence.coarseGridSpacingM", closeTo(2.5, 1e-12))
+                .body("numerics.convergence.coarseToleranceK", closeTo(0.5, 1e-12))
                 .body("numerics.convergence.converged", equalTo(false))
                 .body("warnings", hasItem(containsString("not converged")));
     }

@@ -82,8 +82,15 @@ import org.tectomelt.engine.ModelInfo;
  * <h2>Resolution</h2>
  * The time of first crustal melt is when the crust first holds a melt layer ∫F dz of
  * {@link #MELT_ONSET_FRACTION} of one sill's thickness, a quantity that converges as the grid is refined.
- * {@link #resolvingSpacing} gives a finest cell for which halving it changes the reported times and
- * melt thicknesses by less than 1 %; {@link #runWithConvergenceCheck} measures that per run. The time
+ * Near the crust's solidus it falls within hours to years of the emplacement, while the heated layer of
+ * crust is only a few metres thick, so it needs finer cells than the sill's own cooling, and the time
+ * error of backward Euler (first order) moves it, and the solidification time, by 1–2 % at the 0.5 K
+ * tolerance of {@link Numerics#DEFAULT}. The check therefore refines space and time together:
+ * {@link Setup#coarser()} doubles the finest cell and quadruples the tolerance (the step of the error
+ * control grows as √tol, so the time step about doubles), {@link Setup#finer()} does the reverse.
+ * {@link #runWithConvergenceCheck} checks a run against the run one level coarser; {@link #runRefined}
+ * starts from {@link #resolvingSpacing} and {@link #resolvingTolerance} and refines until two successive
+ * runs agree within 1 % or its budget is spent (adaptive refinement of the whole run). The time
  * of the melt peak is ill-conditioned (a flat maximum): it is refined by a parabola through the
  * largest step value and its neighbours, but can still move by about 1–2 % between grids.
  *
@@ -151,6 +158,23 @@ public final class SillModel {
      * {@link #resolvingSpacing}).
      */
     public static final double DEFAULT_FINEST_FRACTION = 1.0 / 400;
+    /**
+     * Time-step tolerance (K) of a run at the default finest cell ({@link #resolvingTolerance}): a quarter of
+     * {@link Numerics#DEFAULT}'s 0.5 K. Backward Euler is of first order in time, and at 0.5 K its time error
+     * alone moves the time to first crustal melt and the solidification time by 1–2 % (measured: quartering
+     * the tolerance halves the step and moves them by 0.7–0.9 %), which a check of the grid alone does not see.
+     */
+    public static final double RESOLVING_TOLERANCE_K = 0.125;
+    /**
+     * Most refinements {@link #runRefined} makes beyond its starting setup: down to 1/8 of its finest cell
+     * and 1/64 of its tolerance (from the default, 1/3200 of the sill and about 0.002 K).
+     */
+    public static final int MAX_REFINEMENTS = 3;
+    /**
+     * Work of a refined run relative to the run it refines, used to decide before starting it whether it fits
+     * the work limits: about 2.2 measured (twice the time steps, a few more cells), with a margin.
+     */
+    public static final double REFINEMENT_WORK_FACTOR = 2.5;
 
     private SillModel() {
     }
@@ -346,13 +370,24 @@ public final class SillModel {
     }
 
     /**
-     * Finest cell (m) of the default graded grid for sills of {@code thickness} (m): a fixed fraction of
-     * the thickness, {@link #DEFAULT_FINEST_FRACTION}, small enough that halving it changes the times and
-     * melt thicknesses a run reports by less than 1 % (checked by the convergence tests and reported per
-     * run by {@link #runWithConvergenceCheck}).
+     * Finest cell (m) the default graded grid starts from for sills of {@code thickness} (m): a fixed fraction
+     * of the thickness, {@link #DEFAULT_FINEST_FRACTION}. With {@link #resolvingTolerance} it resolves a sill
+     * in crust well below its solidus to the 1 % criterion (a 50 m sill in 450 °C crust, an 80-sill stack);
+     * where the crust melts within hours to years of the emplacement, {@link #runRefined} refines it.
      */
     public static double resolvingSpacing(double thickness) {
         return thickness * DEFAULT_FINEST_FRACTION;
+    }
+
+    /**
+     * Time-step tolerance (K) that goes with a finest cell of {@code spacing} (m) for sills of {@code thickness}
+     * (m): {@link #RESOLVING_TOLERANCE_K} at {@link #resolvingSpacing}, scaled with the square of the spacing
+     * (the step of the error control grows as the square root of the tolerance, so the time step scales with
+     * the cell, as the refinement of {@link #runRefined} keeps it), and at most {@link Numerics#DEFAULT}'s.
+     */
+    public static double resolvingTolerance(double thickness, double spacing) {
+        double ratio = spacing / resolvingSpacing(thickness);
+        return Math.min(Numerics.DEFAULT.toleranceK(), RESOLVING_TOLERANCE_K * ratio * ratio);
     }
 
     /**
@@ -441,6 +476,35 @@ public final class SillModel {
         public Setup withGridSpacing(double spacing) {
             return new Setup(crust, intrusion, initial, intrusions, columnDepth, spacing, duration, outputEvery,
                     profileTimes, profileSpacing, numerics, mantle, mohoDepth, grid, convection);
+        }
+
+        /** The same setup with another time-step tolerance (K), keeping the work limits. */
+        public Setup withTolerance(double toleranceK) {
+            return new Setup(crust, intrusion, initial, intrusions, columnDepth, gridSpacing, duration, outputEvery,
+                    profileTimes, profileSpacing,
+                    new Numerics(toleranceK, numerics.maxSteps(), numerics.maxCellSteps()), mantle, mohoDepth, grid,
+                    convection);
+        }
+
+        /**
+         * One level coarser in space and time, the partner of the convergence check: the finest cell doubled
+         * and the tolerance quadrupled (the time step about doubled), the tolerance at most
+         * {@link Numerics#DEFAULT}'s (so a run at 0.5 K is checked on the grid alone, at the same tolerance).
+         */
+        public Setup coarser() {
+            return withGridSpacing(2 * gridSpacing)
+                    .withTolerance(Math.min(Numerics.DEFAULT.toleranceK(), 4 * numerics.toleranceK()));
+        }
+
+        /** One level finer: the finest cell halved and the tolerance quartered (the time step about halved). */
+        public Setup finer() {
+            return withGridSpacing(gridSpacing / 2).withTolerance(numerics.toleranceK() / 4);
+        }
+
+        /** True when the finest cell can be doubled: the column, and the largest cell of a graded grid, allow it. */
+        public boolean canCoarsen() {
+            double coarse = 2 * gridSpacing;
+            return columnDepth >= 2 * coarse && (grid.uniform() || grid.largestCell() >= coarse);
         }
 
         /** The same setup on another grid plan. */
@@ -597,34 +661,112 @@ public final class SillModel {
     }
 
     /**
-     * Runs the model, then again with the finest cell doubled, and attaches the relative change of every
-     * reported time and melt thickness between the two ({@link SillResult.Convergence}), with a warning
-     * when a change exceeds {@link SillResult.Convergence#TOLERANCE}. The coarser run costs about half
-     * of the first one on a graded grid (the cell count grows only with the logarithm of the spacing
-     * range; the time steps restart from a step four times longer).
+     * Runs the model, then again one level coarser ({@link Setup#coarser()}: the finest cell doubled and the
+     * tolerance quadrupled, at most 0.5 K), and attaches the relative change of every reported time and melt
+     * thickness between the two ({@link SillResult.Convergence}), with a warning when a change exceeds
+     * {@link SillResult.Convergence#TOLERANCE}. The coarser run costs about half of the first one on a
+     * graded grid at the same tolerance (the cell count grows only with the logarithm of the spacing range;
+     * the time steps restart from a step four times longer), about a quarter at four times the tolerance.
      *
      * @throws BudgetExceededException when the deadline passes during either run
      */
     public static SillResult runWithConvergenceCheck(Setup setup, Deadline deadline) {
         SillResult fine = run(setup, deadline);
-        double coarseSpacing = 2 * setup.gridSpacing();
-        if (!(setup.columnDepth() >= 2 * coarseSpacing)
-                || (!setup.grid().uniform() && !(setup.grid().largestCell() >= coarseSpacing))) {
+        if (!setup.canCoarsen()) {
             return fine.withConvergence(null, List.of("no grid-convergence check: the grid spacing is too coarse "
                     + "to double"));
         }
-        SillResult coarse = run(setup.withGridSpacing(coarseSpacing), deadline);
+        SillResult coarse = run(setup.coarser(), deadline);
+        return checked(setup, fine, setup.coarser(), coarse, 0, null);
+    }
+
+    /**
+     * Runs the model refined until it is converged (adaptive refinement of the whole run): the run of
+     * {@code setup} is checked against the run one level coarser ({@link Setup#coarser()}); while the
+     * largest change exceeds {@link SillResult.Convergence#TOLERANCE}, the run is repeated one level finer
+     * ({@link Setup#finer()}: the finest cell halved, the tolerance quartered) and checked against the run
+     * before it, until two successive runs agree within the tolerance or the budget is reached. Budget: at most
+     * {@link #MAX_REFINEMENTS} refinements; a refinement is not started when its expected work
+     * ({@link #REFINEMENT_WORK_FACTOR} × the last run's cell-steps and time steps) or its planned cells
+     * would exceed the setup's work limits or {@code maxCells}, and a refinement that exceeds them or the
+     * deadline is abandoned; the last pair is then reported, not converged, with a warning saying why. The
+     * result is the finest run of the last pair, with that pair's check and the number of refinements.
+     *
+     * @param maxCells most cells a refined column may plan (column plus all sills)
+     * @throws BudgetExceededException when the deadline passes during the first two runs
+     */
+    public static SillResult runRefined(Setup setup, int maxCells, Deadline deadline) {
+        SillResult fine = run(setup, deadline);
+        if (!setup.canCoarsen()) {
+            return fine.withConvergence(null, List.of("no grid-convergence check: the grid spacing is too coarse "
+                    + "to double"));
+        }
+        Setup coarseSetup = setup.coarser();
+        SillResult coarse = run(coarseSetup, deadline);
+        Setup fineSetup = setup;
+        int refinements = 0;
+        String stopped = null;
+        while (largestChange(fine, coarse) >= SillResult.Convergence.TOLERANCE) {
+            Setup next = fineSetup.finer();
+            SillResult.Numerics last = fine.numerics();
+            if (refinements == MAX_REFINEMENTS) {
+                stopped = "after " + MAX_REFINEMENTS + " refinements, the most allowed";
+                break;
+            }
+            if (REFINEMENT_WORK_FACTOR * last.cellSteps() > setup.numerics().maxCellSteps()
+                    || REFINEMENT_WORK_FACTOR * last.timeSteps() > setup.numerics().maxSteps()
+                    || (long) next.initialCells() + (long) next.sillsWithinDuration() * next.cellsPerSill() > maxCells) {
+                stopped = "because the next refinement would exceed the work limits (cells, time steps or cell-steps)";
+                break;
+            }
+            SillResult refined;
+            try {
+                refined = run(next, deadline);
+            } catch (WorkLimitExceeded e) {
+                stopped = "because the next refinement exceeded the work limits: " + e.getMessage();
+                break;
+            } catch (BudgetExceededException e) {
+                stopped = "because the next refinement ran out of the time budget";
+                break;
+            }
+            coarseSetup = fineSetup;
+            coarse = fine;
+            fineSetup = next;
+            fine = refined;
+            refinements++;
+        }
+        return checked(fineSetup, fine, coarseSetup, coarse, refinements, stopped);
+    }
+
+    /** The largest change between two runs of the quantities held to the criterion (see {@link #checked}). */
+    private static double largestChange(SillResult fine, SillResult coarse) {
+        double largest = 0;
+        for (Double c : changes(fine.summary(), coarse.summary())) {
+            if (c != null && c > largest) {
+                largest = c;
+            }
+        }
+        return largest;
+    }
+
+    /** Changes of the solidification time, the first-melt time, the peak melt and the lock-up time. */
+    private static Double[] changes(SillResult.Summary a, SillResult.Summary b) {
+        return new Double[] {change(a.solidificationTime(), b.solidificationTime()),
+            change(a.timeToFirstCrustMelt(), b.timeToFirstCrustMelt()),
+            change(a.peakCrustMeltThickness(), b.peakCrustMeltThickness()), change(a.lockUpTime(), b.lockUpTime())};
+    }
+
+    /** The fine run with the check against the coarse one attached, and a warning when it is not converged. */
+    private static SillResult checked(Setup fineSetup, SillResult fine, Setup coarseSetup, SillResult coarse,
+                                      int refinements, String stopped) {
         SillResult.Summary a = fine.summary();
         SillResult.Summary b = coarse.summary();
-        Double solid = change(a.solidificationTime(), b.solidificationTime());
-        Double first = change(a.timeToFirstCrustMelt(), b.timeToFirstCrustMelt());
-        Double peak = change(a.peakCrustMeltThickness(), b.peakCrustMeltThickness());
-        Double peakTime = change(a.peakTime(), b.peakTime());
+        Double[] changes = changes(a, b);
         double largest = 0;
         String worst = null;
         // the time of a flat peak is ill-conditioned (reported, not held to the criterion)
-        String[] names = {"solidification time", "time to first crustal melt", "peak crust melt thickness"};
-        Double[] changes = {solid, first, peak};
+        String[] names = {"solidification time", "time to first crustal melt", "peak crust melt thickness",
+            "lock-up time"};
         for (int k = 0; k < changes.length; k++) {
             if (changes[k] != null && changes[k] > largest) {
                 largest = changes[k];
@@ -632,11 +774,17 @@ public final class SillModel {
             }
         }
         boolean ok = largest < SillResult.Convergence.TOLERANCE;
-        List<String> notes = ok ? List.of() : List.of(String.format(Locale.ROOT, "doubling the finest cell from %.3g m "
-                + "to %.3g m changes the %s by %.1f %%: the results are not converged to 1 %%; use a finer grid "
-                + "spacing", setup.gridSpacing(), coarseSpacing, worst, 100 * largest));
-        return fine.withConvergence(new SillResult.Convergence(coarseSpacing, solid, first, peak, peakTime, largest, ok),
-                notes);
+        List<String> notes = new ArrayList<>();
+        if (!ok) {
+            notes.add(String.format(Locale.ROOT, "doubling the finest cell from %.3g m to %.3g m and the time-step "
+                    + "tolerance from %.3g K to %.3g K changes the %s by %.1f %%: the results are not converged to "
+                    + "1 %%%s", fineSetup.gridSpacing(), coarseSetup.gridSpacing(), fineSetup.numerics().toleranceK(),
+                    coarseSetup.numerics().toleranceK(), worst, 100 * largest,
+                    stopped == null ? "; use a finer grid spacing" : "; the refinement stopped " + stopped));
+        }
+        return fine.withConvergence(new SillResult.Convergence(coarseSetup.gridSpacing(),
+                coarseSetup.numerics().toleranceK(), b, changes[0], changes[1], changes[2],
+                change(a.peakTime(), b.peakTime()), changes[3], largest, ok, refinements), notes);
     }
 
     /** |fine − coarse| / max(|fine|, |coarse|); null when either is absent, 0 when both are 0. */
@@ -1732,7 +1880,7 @@ public final class SillModel {
                     peakMelt > 0 ? peakTime : null, errorFraction, emplaced, emplaced * sillThickness, faceDepth(topIndex),
                     hasMantle && maxMantleAll > 0 ? maxMantleAll : null, lockUp);
             SillResult.Numerics numbers = new SillResult.Numerics(n, steps, rejected, solves, cellSteps, smallest,
-                    largest);
+                    largest, dzMin, tolerance);
             return new SillResult(series, summary, profiles, numbers, warnings);
         }
     }

@@ -112,32 +112,44 @@ public record SillResult(List<Sample> series, Summary summary, List<Profile> pro
      * @param cellSteps        Σ cells over accepted and rejected steps: the work measure the limits apply to
      * @param smallestCell     smallest cell at the end (m)
      * @param largestCell      largest cell at the end (m)
+     * @param gridSpacing      the finest cell the grid was planned with (m)
+     * @param toleranceK       the time-step tolerance of the run (K)
      */
     public record Numerics(int cells, int timeSteps, int rejectedSteps, long linearSolves, long cellSteps,
-                           double smallestCell, double largestCell) {
+                           double smallestCell, double largestCell, double gridSpacing, double toleranceK) {
     }
 
     /**
-     * The grid-convergence check: the same run with the finest cell doubled, and the relative change of
-     * each reported time and melt thickness from that coarser run to this one, |fine − coarse| / |fine|
-     * ({@code null} where either run has no value, 0 where both are 0). Halving the spacing changes the
-     * results by about a third of these changes for a second-order scheme, so they bound the error of this run.
+     * The convergence check: the same run one level coarser in space and time (the finest cell doubled and
+     * the time-step tolerance quadrupled, at most {@link SillModel.Numerics#DEFAULT}'s, so that the time step
+     * about doubles too: see {@link SillModel.Setup#coarser()}), and the relative change of each reported
+     * time and melt thickness from that coarser run to this one, |fine − coarse| / max(|fine|, |coarse|)
+     * ({@code null} where either run has no value, 0 where both are 0). For a scheme of first order the
+     * error of this run is about the change; for one of second order about a third of it.
      *
      * @param coarseSpacing              finest cell of the coarser run (m)
+     * @param coarseTolerance            time-step tolerance of the coarser run (K)
+     * @param coarse                     the coarser run's key numbers (the other answer of the pair)
      * @param solidificationTimeChange   change of the solidification time of the first sill
      * @param timeToFirstCrustMeltChange change of the time to first crustal melt
      * @param peakCrustMeltChange        change of the peak crust melt thickness
      * @param peakTimeChange             change of the time of that peak
+     * @param lockUpTimeChange           change of the lock-up time of a convecting first sill
      * @param largestChange              the largest of the changes of the solidification time, the first-melt
-     *                                   time and the peak melt thickness (0 when none applies); the time of the
-     *                                   peak, a flat maximum and ill-conditioned, is reported but not included
+     *                                   time, the peak melt thickness and the lock-up time (0 when none applies);
+     *                                   the time of the peak, a flat maximum and ill-conditioned, is reported but
+     *                                   not included
      * @param converged                  true when the largest change is below {@link #TOLERANCE}
+     * @param refinements                how many times the run was refined (finest cell halved, tolerance
+     *                                   quartered) from its starting setup before this pair
+     *                                   ({@link SillModel#runRefined}); 0 for a single check
      */
-    public record Convergence(double coarseSpacing, Double solidificationTimeChange, Double timeToFirstCrustMeltChange,
-                              Double peakCrustMeltChange, Double peakTimeChange, double largestChange,
-                              boolean converged) {
+    public record Convergence(double coarseSpacing, double coarseTolerance, Summary coarse,
+                              Double solidificationTimeChange, Double timeToFirstCrustMeltChange,
+                              Double peakCrustMeltChange, Double peakTimeChange, Double lockUpTimeChange,
+                              double largestChange, boolean converged, int refinements) {
 
-        /** The resolution criterion: 1 % relative change on doubling the finest cell. */
+        /** The resolution criterion: 1 % relative change on doubling the finest cell and the time step. */
         public static final double TOLERANCE = 0.01;
     }
 

@@ -3,6 +3,7 @@ package org.tectomelt.engine.melting;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.DoubleUnaryOperator;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
@@ -336,6 +337,20 @@ public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implemen
         boolean cpxOut = f > 0 && f >= cpxExhaustionFraction(p) - 1e-12;
         return new MeltState(f, wetSolidus(p, bulkWater), drySolidus(p), wetLiquidus(p, bulkWater), xMelt,
                 saturated, cpxOut, warnings);
+    }
+
+    /** The dry law's curves at {@code p} evaluated once; hydrous water contents use {@link #meltFraction}. */
+    @Override
+    public DoubleUnaryOperator meltFractionAt(double p, double bulkWater) {
+        if (bulkWater > 0) {
+            return t -> meltFraction(p, t, bulkWater);
+        }
+        double ts = drySolidus(p);
+        double tl = lherzoliteLiquidus(p);
+        double fCpx = cpxExhaustionFraction(p);
+        double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
+        double tq = dryLiquidus(p);
+        return t -> dryMeltFraction(t, ts, tl, tq, fCpx, tCpx);
     }
 
     /** Melt fraction only (the hot path of columns and batches); no range check. */

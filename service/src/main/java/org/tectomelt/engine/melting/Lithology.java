@@ -1,6 +1,7 @@
 package org.tectomelt.engine.melting;
 
 import java.util.List;
+import java.util.function.DoubleUnaryOperator;
 import org.tectomelt.engine.ModelInfo;
 
 /**
@@ -88,6 +89,15 @@ public interface Lithology {
      */
     default double meltFraction(double p, double t, double bulkWater) {
         return melt(p, t, bulkWater).meltFraction();
+    }
+
+    /**
+     * The melt-fraction law at one pressure and water content, T (K) → F: the same numbers as
+     * {@link #meltFraction}, for root finders that try many temperatures at one pressure (the
+     * stepped columns). A law whose curves depend on pressure only evaluates them once here.
+     */
+    default DoubleUnaryOperator meltFractionAt(double p, double bulkWater) {
+        return t -> meltFraction(p, t, bulkWater);
     }
 
     /**

@@ -3,6 +3,7 @@ package org.tectomelt.engine.melting;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.DoubleUnaryOperator;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 
@@ -156,6 +157,14 @@ public record PertermannHirschmann2003Pyroxenite() implements MantleLithology {
     public double meltFraction(double p, double t, double bulkWater) {
         double ts = drySolidus(p);
         return meltFractionAtReducedTemperature((t - ts) / (dryLiquidus(p) - ts));
+    }
+
+    /** The solidus and liquidus at {@code p} evaluated once. */
+    @Override
+    public DoubleUnaryOperator meltFractionAt(double p, double bulkWater) {
+        double ts = drySolidus(p);
+        double tq = dryLiquidus(p);
+        return t -> meltFractionAtReducedTemperature((t - ts) / (tq - ts));
     }
 
     @Override

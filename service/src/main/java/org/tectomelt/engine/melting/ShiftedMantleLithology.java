@@ -1,6 +1,7 @@
 package org.tectomelt.engine.melting;
 
 import java.util.List;
+import java.util.function.DoubleUnaryOperator;
 import java.util.Locale;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
@@ -104,6 +105,12 @@ public record ShiftedMantleLithology(MantleLithology base, double shift) impleme
     @Override
     public double meltFraction(double p, double t, double bulkWater) {
         return base.meltFraction(p, t - shift, bulkWater);
+    }
+
+    @Override
+    public DoubleUnaryOperator meltFractionAt(double p, double bulkWater) {
+        DoubleUnaryOperator law = base.meltFractionAt(p, bulkWater);
+        return t -> law.applyAsDouble(t - shift);
     }
 
     @Override
