@@ -17,7 +17,7 @@ public final class ContinentalRiftOperation
     public record Request(Double potentialTemperatureC, Double stretchingFactor, Double lithosphereThicknessKm,
                           Double crustThicknessKm, Double bulkWaterWtPct, String lithology, String meltingMode, Double retainedMeltFraction, Double cpxMassFraction,
                           Double solidusShiftK, Double pyroxeniteFraction, String pyroxenite,
-                          Double pyroxeniteSolidusShiftK) {
+                          Double pyroxeniteSolidusShiftK) implements Sources.Fields {
     }
 
     /** The stretched lid, the melt and the column. */
@@ -86,8 +86,7 @@ public final class ContinentalRiftOperation
         if (q.bulkWaterWtPct() != null) {
             Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
         }
-        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
-                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), q);
     }
 
     @Override
@@ -96,8 +95,7 @@ public final class ContinentalRiftOperation
         check(q, rules);
         rules.throwIfBroken();
         MantleLithology lithology = Choices.mantleLithology(rules, q.lithology());
-        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
-                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), q);
         ContinentalRift.Result r = new ContinentalRift(source, Units.celsiusToKelvin(q.potentialTemperatureC()),
                 q.stretchingFactor(), Units.kmToM(q.lithosphereThicknessKm()), Units.kmToM(q.crustThicknessKm()),
                 Units.wtPctToFraction(q.bulkWaterWtPct())).solve();

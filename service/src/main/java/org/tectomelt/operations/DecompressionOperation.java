@@ -17,7 +17,7 @@ public final class DecompressionOperation
     public record Request(String lithology, Double potentialTemperatureC, Double bulkWaterWtPct, Double lidDepthKm,
                           String upwelling, Double stepKm, String meltingMode, Double retainedMeltFraction, Double cpxMassFraction,
                           Double solidusShiftK, Double pyroxeniteFraction, String pyroxenite,
-                          Double pyroxeniteSolidusShiftK) {
+                          Double pyroxeniteSolidusShiftK) implements Sources.Fields {
     }
 
     /** The column; absent quantities are explicit nulls. */
@@ -80,8 +80,7 @@ public final class DecompressionOperation
         if (q.bulkWaterWtPct() != null) {
             Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
         }
-        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
-                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), q);
     }
 
     @Override
@@ -89,8 +88,7 @@ public final class DecompressionOperation
         Rules rules = new Rules();
         MantleLithology lithology = Choices.mantleLithology(rules, q.lithology());
         double water = Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
-        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
-                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), q);
         rules.throwIfBroken();
         ColumnResult r = source.column(Units.celsiusToKelvin(q.potentialTemperatureC()), water)
                 .withLidDepth(Units.kmToM(q.lidDepthKm()))

@@ -17,7 +17,7 @@ public final class HotspotOperation implements Operation<HotspotOperation.Reques
                           Double lithosphereThicknessKm, Double plumeRadiusKm, Double upwellingVelocityCmPerYr,
                           Double bulkWaterWtPct, String lithology, String meltingMode, Double retainedMeltFraction, Double cpxMassFraction,
                           Double solidusShiftK, Double pyroxeniteFraction, String pyroxenite,
-                          Double pyroxeniteSolidusShiftK) {
+                          Double pyroxeniteSolidusShiftK) implements Sources.Fields {
     }
 
     /** Excess temperature, melt flux and the column. */
@@ -81,8 +81,7 @@ public final class HotspotOperation implements Operation<HotspotOperation.Reques
         if (q.bulkWaterWtPct() != null) {
             Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
         }
-        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
-                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        Sources.source(rules, lithology, q.bulkWaterWtPct() == null ? 0 : q.bulkWaterWtPct(), q);
     }
 
     @Override
@@ -90,8 +89,7 @@ public final class HotspotOperation implements Operation<HotspotOperation.Reques
         Rules rules = new Rules();
         MantleLithology lithology = Choices.mantleLithology(rules, q.lithology());
         double water = Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
-        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(), q.retainedMeltFraction(), q.cpxMassFraction(),
-                q.solidusShiftK(), q.pyroxeniteFraction(), q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), q);
         rules.throwIfBroken();
         Hotspot.Result r = new Hotspot(source, Units.celsiusToKelvin(q.potentialTemperatureC()),
                 Units.celsiusToKelvin(q.ambientPotentialTemperatureC()), Units.kmToM(q.lithosphereThicknessKm()),

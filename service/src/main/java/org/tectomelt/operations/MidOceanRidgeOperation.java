@@ -17,7 +17,7 @@ public final class MidOceanRidgeOperation
     public record Request(Double potentialTemperatureC, Double bulkWaterWtPct, Double fullSpreadingRateMmPerYr,
                           String lithology, String meltingMode, Double retainedMeltFraction, Double cpxMassFraction,
                           Double solidusShiftK, Double pyroxeniteFraction, String pyroxenite,
-                          Double pyroxeniteSolidusShiftK) {
+                          Double pyroxeniteSolidusShiftK) implements Sources.Fields {
     }
 
     /**
@@ -81,9 +81,7 @@ public final class MidOceanRidgeOperation
         Rules rules = new Rules();
         MantleLithology lithology = Choices.mantleLithology(rules, q.lithology());
         double water = Choices.mantleWater(rules, lithology, q.bulkWaterWtPct());
-        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), new Sources.Fields(q.meltingMode(),
-                q.retainedMeltFraction(), q.cpxMassFraction(), q.solidusShiftK(), q.pyroxeniteFraction(),
-                q.pyroxenite(), q.pyroxeniteSolidusShiftK()));
+        MantleSource source = Sources.source(rules, lithology, q.bulkWaterWtPct(), q);
         rules.throwIfBroken();
         MidOceanRidge.Result r = new MidOceanRidge(source, Units.celsiusToKelvin(q.potentialTemperatureC()), water,
                 Units.mmPerYrToMPerS(q.fullSpreadingRateMmPerYr()), SlowSpreadingConductiveLid.standard()).solve();

@@ -24,9 +24,24 @@ final class Sources {
     private Sources() {
     }
 
-    /** The source fields of a request, as read from it (boxed: null = absent). */
-    record Fields(String meltingMode, Double retainedMeltFraction, Double cpxMassFraction, Double solidusShiftK,
-                  Double pyroxeniteFraction, String pyroxenite, Double pyroxeniteSolidusShiftK) {
+    /**
+     * The source fields of a request (boxed: null = absent). The column, ridge, hotspot and rift
+     * requests implement it with their own record components of these names.
+     */
+    interface Fields {
+        String meltingMode();
+
+        Double retainedMeltFraction();
+
+        Double cpxMassFraction();
+
+        Double solidusShiftK();
+
+        Double pyroxeniteFraction();
+
+        String pyroxenite();
+
+        Double pyroxeniteSolidusShiftK();
     }
 
     /** Inputs a sweep or a sample may address, for {@code GET /v1/operations}. */

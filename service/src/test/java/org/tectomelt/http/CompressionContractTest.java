@@ -23,14 +23,6 @@ import org.tectomelt.Config;
  */
 class CompressionContractTest {
 
-    private static String batch(int n) {
-        StringBuilder sb = new StringBuilder("{\"lithology\":\"peridotite-katz2003\",\"bulkWaterWtPct\":0.1,\"points\":[");
-        for (int i = 0; i < n; i++) {
-            sb.append(i == 0 ? "" : ",").append("{\"pressureGPa\":2,\"temperatureC\":").append(1200 + i).append('}');
-        }
-        return sb.append("]}").toString();
-    }
-
     private static Response post(Javalin app, String body, String encoding) {
         return TestApps.given(app)
                 .config(RestAssured.config().decoderConfig(DecoderConfig.decoderConfig().noContentDecoders()))
@@ -49,7 +41,7 @@ class CompressionContractTest {
         Config config = TestApps.config(Map.of());
         Javalin app = TestApps.start(config, App.routes(config), new Heavy(config));
         try {
-            String body = batch(200);
+            String body = HeavyBatchContractTest.batch(200);
             Response plain = post(app, body, "identity");
             Response zipped = post(app, body, "gzip");
             assertEquals(200, plain.statusCode());
@@ -61,7 +53,7 @@ class CompressionContractTest {
             assertEquals(text, gunzip(zipped.asByteArray()));
             assertTrue(zipped.asByteArray().length < text.length() / 2, "compressed " + zipped.asByteArray().length);
             // a one-point answer is below the threshold: plain even when gzip is accepted
-            assertNull(post(app, batch(1), "gzip").getHeader("Content-Encoding"));
+            assertNull(post(app, HeavyBatchContractTest.batch(1), "gzip").getHeader("Content-Encoding"));
         } finally {
             app.stop();
         }
@@ -72,7 +64,7 @@ class CompressionContractTest {
         Config config = TestApps.config(Map.of("TECTOMELT_COMPRESSION_LEVEL", "0"));
         Javalin app = TestApps.start(config, App.routes(config), new Heavy(config));
         try {
-            Response r = post(app, batch(200), "gzip");
+            Response r = post(app, HeavyBatchContractTest.batch(200), "gzip");
             assertEquals(200, r.statusCode());
             assertNull(r.getHeader("Content-Encoding"));
             byte[] bytes = r.asByteArray();

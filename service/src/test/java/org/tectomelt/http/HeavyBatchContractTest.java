@@ -15,7 +15,8 @@ import org.tectomelt.Config;
  */
 class HeavyBatchContractTest {
 
-    private static String batch(int n) {
+    /** A hydrous melt-fraction batch of {@code n} points at 2 GPa, 1200 °C upwards. */
+    static String batch(int n) {
         StringBuilder sb = new StringBuilder("{\"lithology\":\"peridotite-katz2003\",\"bulkWaterWtPct\":0.1,\"points\":[");
         for (int i = 0; i < n; i++) {
             sb.append(i == 0 ? "" : ",").append("{\"pressureGPa\":2,\"temperatureC\":").append(1200 + i).append('}');
