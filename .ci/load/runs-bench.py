@@ -1,19 +1,31 @@
 #!/usr/bin/env python3
 """Runs against individual requests, side by side in one go, on the packaged jar.
 
-  python3 .ci/load/runs-bench.py [--jar service/target/tectomelt.jar] [--rounds 3] [--no-jmh]
+  python3 .ci/load/runs-bench.py [--jar service/target/tectomelt.jar] [--compare OLD.jar]
+                                 [--rounds 3] [--warmup-s 60] [--poll-ms 20] [--no-jmh]
 
 1. JMH RunSweepBenchmark: the single-core time of the 2,000-point mid-ocean-ridge sweep,
-   each point computed as a run computes it (no database); × the service's cores = the engine rate.
-2. The jar on a loopback port (fresh embedded database), warmed up; then, alternately, per round:
+   each point computed as a run computes it (no database); × the service's cores = the engine
+   rate the issue compares with. Also measured with one thread per core at once (the cores'
+   real joint rate on this machine) and, for reference, the engine's columns alone.
+2. The jar (and, with --compare, a second jar: both on loopback ports, each with a fresh
+   embedded database) warmed up for --warmup-s seconds each (default 60; individual requests and runs
+   alternately: a lab server runs warm, and a cold JVM spends as much CPU compiling as
+   computing); then, per round and per jar:
    - the 2,000 points as 2,000 POST /v1/settings/mid-ocean-ridge from a client with two
      keep-alive connections;
-   - the same 2,000 points as one run: POST /v1/runs, polled every 20 ms until it succeeded,
-     while a third connection asks GET /v1/health every 20 ms (its latencies give the p99).
-Prints the medians: seconds and points/s of both, their ratio, the run's share of the engine
-rate, and the health p50/p99 while runs computed. The machine is shared: read ratios, not times.
+   - the same 2,000 points as one run: POST /v1/runs, polled every --poll-ms until it
+     succeeded, while a third connection asks GET /v1/health every 20 ms (its latencies give
+     the p99).
+   A run is timed twice: end to end by the client (POST sent → "succeeded" seen, so it includes
+   the POST's own time and up to one poll interval), and by the run's own timestamps
+   (createdAt → finishedAt, stored by the service: from accepting the run to saving its last
+   point). The service's process CPU time per run is read from /proc.
+Prints the medians per jar: seconds and points/s, ratios, the run's share of the engine rate by
+both measures, health p50/p99 while runs computed. The machine is shared: read ratios, not times.
 """
 import argparse
+import datetime
 import http.client
 import json
 import os
@@ -35,17 +47,19 @@ SWEEP = {"operation": "mid-ocean-ridge", "request": {},
 POINTS = [(tp, r) for tp in TPS for r in RATES]
 
 
-def jmh_ms_per_sweep():
+def jmh(threads):
+    """{benchmark method: ms per 2,000-point sweep per thread} with `threads` threads at once."""
     cp_file = os.path.join(ROOT, "service", "target", "bench-classpath.txt")
     subprocess.run(["mvn", "-B", "-q", "-Pbench", "-pl", "service", "test-compile", "dependency:build-classpath",
                     "-Dmdep.outputFile=" + cp_file, "-Dmdep.includeScope=test"], cwd=ROOT, check=True)
     cp = ":".join([os.path.join(ROOT, "service", "target", "test-classes"),
                    os.path.join(ROOT, "service", "target", "classes"), open(cp_file).read().strip()])
-    out = os.path.join(ROOT, "service", "target", "jmh-runsweep.json")
+    out = os.path.join(ROOT, "service", "target", f"jmh-runsweep-t{threads}.json")
     subprocess.run(["java", "-Djmh.ignoreLock=true", "-cp", cp, "org.openjdk.jmh.Main", "RunSweepBenchmark",
-                    "-f", "1", "-wi", "3", "-w", "2s", "-i", "5", "-r", "2s", "-rf", "json", "-rff", out],
-                   cwd=ROOT, check=True, stdout=subprocess.DEVNULL)
-    return json.load(open(out))[0]["primaryMetric"]["score"]
+                    "-f", "1", "-t", str(threads), "-wi", "3", "-w", "2s", "-i", "5", "-r", "2s",
+                    "-rf", "json", "-rff", out], cwd=ROOT, check=True, stdout=subprocess.DEVNULL,
+                   stderr=subprocess.DEVNULL)
+    return {r["benchmark"].rsplit(".", 1)[1]: r["primaryMetric"]["score"] for r in json.load(open(out))}
 
 
 def start(jar):
@@ -73,6 +87,12 @@ def request(conn, method, path, body=None):
     return payload
 
 
+def cpu_ms(pid):
+    """User + system CPU time of the process so far, in ms."""
+    fields = open(f"/proc/{pid}/stat").read().rsplit(")", 1)[1].split()
+    return (int(fields[11]) + int(fields[12])) * 1000.0 / os.sysconf("SC_CLK_TCK")
+
+
 def individual(port):
     def worker(points):
         conn = http.client.HTTPConnection("127.0.0.1", port, timeout=60)
@@ -90,7 +110,12 @@ def individual(port):
     return time.perf_counter() - t0
 
 
-def as_run(port):
+def instant(text):
+    return datetime.datetime.fromisoformat(text.replace("Z", "+00:00")).timestamp()
+
+
+def as_run(port, pid, poll_s):
+    """(client seconds, createdAt → finishedAt seconds, process CPU ms, health latencies)."""
     latencies = []
     stop = threading.Event()
 
@@ -104,6 +129,7 @@ def as_run(port):
         conn.close()
     conn = http.client.HTTPConnection("127.0.0.1", port, timeout=60)
     sampler = threading.Thread(target=health)
+    cpu0 = cpu_ms(pid)
     t0 = time.perf_counter()
     rid = json.loads(request(conn, "POST", "/v1/runs", SWEEP))["id"]
     sampler.start()
@@ -111,15 +137,17 @@ def as_run(port):
         r = json.loads(request(conn, "GET", f"/v1/runs/{rid}"))
         if r["status"] not in ("queued", "running"):
             break
-        time.sleep(0.02)
+        time.sleep(poll_s)
     elapsed = time.perf_counter() - t0
     stop.set()
     sampler.join()
+    cpu = cpu_ms(pid) - cpu0
     if r["status"] != "succeeded" or r["progress"]["done"] != len(POINTS):
         sys.exit(f"run ended {r['status']} {r['progress']}")
+    own = instant(r["finishedAt"]) - instant(r["createdAt"])
     request(conn, "DELETE", f"/v1/runs/{rid}")
     conn.close()
-    return elapsed, latencies
+    return elapsed, own, cpu, latencies
 
 
 def quantile(xs, q):
@@ -130,36 +158,77 @@ def quantile(xs, q):
 def main():
     ap = argparse.ArgumentParser()
     ap.add_argument("--jar", default=os.path.join(ROOT, "service", "target", "tectomelt.jar"))
+    ap.add_argument("--compare", help="a second jar (say, main's) measured alternately with --jar")
     ap.add_argument("--rounds", type=int, default=3)
+    ap.add_argument("--warmup-s", type=float, default=60, help="seconds of warm-up per jar")
+    ap.add_argument("--poll-ms", type=float, default=20, help="the client's poll interval of a run")
     ap.add_argument("--no-jmh", action="store_true")
     a = ap.parse_args()
     cores = os.cpu_count()
-    jmh = None if a.no_jmh else jmh_ms_per_sweep()
-    proc, port = start(a.jar)
+    load0 = os.getloadavg()[0]
+    jmh1 = jmh2 = None
+    if not a.no_jmh:
+        jmh1, jmh2 = jmh(1), jmh(cores)
+    jars = [("new", a.jar)] + ([("old", a.compare)] if a.compare else [])
+    services = {}
     try:
-        individual(port)   # warm-up: JIT of both paths
-        as_run(port)
-        singles, runs, health = [], [], []
+        for name, jar in jars:
+            services[name] = start(jar)
+        for name, (proc, port) in services.items():
+            until = time.time() + a.warmup_s
+            while True:   # at least one of each: JIT of both paths
+                individual(port)
+                as_run(port, proc.pid, a.poll_ms / 1000)
+                if time.time() > until:
+                    break
+        res = {name: {"singles": [], "client": [], "own": [], "cpu": [], "health": []} for name in services}
         for _ in range(a.rounds):
-            singles.append(individual(port))
-            t, lat = as_run(port)
-            runs.append(t)
-            health.extend(lat)
+            for name, (proc, port) in services.items():
+                res[name]["singles"].append(individual(port))
+                t, own, cpu, lat = as_run(port, proc.pid, a.poll_ms / 1000)
+                res[name]["client"].append(t)
+                res[name]["own"].append(own)
+                res[name]["cpu"].append(cpu)
+                res[name]["health"].extend(lat)
     finally:
-        proc.terminate()
-        proc.wait(30)
+        for proc, _ in services.values():
+            proc.terminate()
+            proc.wait(30)
     n = len(POINTS)
-    s, r = statistics.median(singles), statistics.median(runs)
-    print(f"machine: {cores} cores, load average {os.getloadavg()[0]:.1f} (shared with other work)")
-    print(f"{n} points as individual requests, 2 connections: {s:.2f} s ({n / s:.0f} points/s), rounds {[round(x, 2) for x in singles]}")
-    print(f"{n} points as one run:                       {r:.2f} s ({n / r:.0f} points/s), rounds {[round(x, 2) for x in runs]}")
-    print(f"run vs individual requests: {s / r:.1f}x faster (target >= 3x)")
-    if jmh is not None:
-        engine = n / (jmh / 1000.0) * cores
-        print(f"JMH RunSweepBenchmark: {jmh:.0f} ms per {n}-point sweep on one core -> {n / (jmh / 1000):.0f} points/s x {cores} cores = {engine:.0f} points/s")
-        print(f"run rate / engine rate x cores: {100 * (n / r) / engine:.0f} % (target >= 70 %)")
-    print(f"GET /v1/health while runs computed: {len(health)} calls, p50 {1000 * quantile(health, 0.5):.1f} ms, "
-          f"p99 {1000 * quantile(health, 0.99):.1f} ms (target < 50 ms)")
+    print(f"machine: {cores} cores, load average {load0:.1f} at the start, {os.getloadavg()[0]:.1f} at the end "
+          f"(shared with other work); warm-up {a.warmup_s:.0f} s per jar, {a.rounds} rounds, poll {a.poll_ms:.0f} ms")
+    engine = None
+    if jmh1 is not None:
+        per = jmh1["sweepOf2000Points"]
+        engine = n / (per / 1000.0) * cores
+        print(f"JMH RunSweepBenchmark.sweepOf2000Points, 1 thread: {per:.0f} ms per {n}-point sweep -> "
+              f"{n / (per / 1000):.0f} points/s x {cores} cores = {engine:.0f} points/s (the engine rate compared with)")
+        per2 = jmh2["sweepOf2000Points"]
+        print(f"  the same with {cores} threads at once: {per2:.0f} ms per sweep per thread -> "
+              f"{cores * n / (per2 / 1000):.0f} points/s together")
+        if "columnsOf2000Points" in jmh1:
+            col = jmh1["columnsOf2000Points"]
+            print(f"  the engine's columns alone (no spec, binding or output text), 1 thread: {col:.0f} ms per sweep"
+                  f" -> {n / (col / 1000):.0f} points/s")
+    for name, jar in jars:
+        r = res[name]
+        s, c, o = statistics.median(r["singles"]), statistics.median(r["client"]), statistics.median(r["own"])
+        print(f"[{name}] {jar}")
+        print(f"  {n} points as individual requests, 2 connections: {s:.3f} s ({n / s:.0f} points/s), "
+              f"rounds {[round(x, 3) for x in r['singles']]}")
+        print(f"  {n} points as one run, client end to end:  {c:.3f} s ({n / c:.0f} points/s), "
+              f"rounds {[round(x, 3) for x in r['client']]}")
+        print(f"  {n} points as one run, createdAt->finishedAt: {o:.3f} s ({n / o:.0f} points/s), "
+              f"rounds {[round(x, 3) for x in r['own']]}")
+        print(f"  service CPU per run: {statistics.median(r['cpu']):.0f} ms (rounds {[round(x) for x in r['cpu']]})")
+        print(f"  run vs individual requests: {s / c:.1f}x faster end to end, {s / o:.1f}x by the run's timestamps "
+              f"(target >= 3x)")
+        if engine is not None:
+            print(f"  run rate / engine rate x cores: {100 * (n / c) / engine:.0f} % end to end, "
+                  f"{100 * (n / o) / engine:.0f} % by the run's timestamps (target >= 70 %)")
+        h = r["health"]
+        print(f"  GET /v1/health while runs computed: {len(h)} calls, p50 {1000 * quantile(h, 0.5):.1f} ms, "
+              f"p99 {1000 * quantile(h, 0.99):.1f} ms (target < 50 ms)")
 
 
 if __name__ == "__main__":

@@ -38,6 +38,7 @@ public class RunSweepBenchmark {
 
     private Evaluator.Prepared points;
     private int size;
+    private final java.util.List<org.tectomelt.contract.Invoker.Prepared<?, ?>> operations = new java.util.ArrayList<>();
 
     @Setup
     public void setUp() throws Exception {
@@ -49,13 +50,32 @@ public class RunSweepBenchmark {
         RunRecord run = new RunRecord("bench", Sweep.KIND, sweep.operation(), "bench", null, RunStatus.RUNNING,
                 sweep.definition(), null, size, 200, 0, 0, Instant.now(), null, null, null);
         points = App.evaluator(config).prepare(run);
+        var invoker = new org.tectomelt.contract.Invoker(org.tectomelt.contract.SpecContract.standard(),
+                org.tectomelt.operations.Operations.of(config));
+        var op = invoker.operations().named(sweep.operation()).orElseThrow();
+        for (int i = 0; i < size; i++) {
+            operations.add(invoker.prepare(op, sweep.pointRequest(i)));
+        }
     }
 
-    /** All 2,000 points, one after the other. */
+    /** All 2,000 points, one after the other, as a run's chunk computes them. */
     @Benchmark
     public void sweepOf2000Points(Blackhole bh) {
         for (int i = 0; i < size; i++) {
             bh.consume(points.evaluate(i));
+        }
+    }
+
+    /**
+     * The same 2,000 points through the operation alone, their requests checked and bound
+     * beforehand: the engine's columns and the operation's own rules, without the per-point
+     * binding and the output text a run's point adds.
+     */
+    @Benchmark
+    public void columnsOf2000Points(Blackhole bh) {
+        org.tectomelt.engine.Deadline none = org.tectomelt.engine.Deadline.none();
+        for (var p : operations) {
+            bh.consume(p.run(none));
         }
     }
 }

@@ -15,6 +15,14 @@ public interface Evaluator {
      */
     Prepared prepare(RunRecord run);
 
+    /**
+     * Runs whose points cost about the same share this key; the executor sizes a new run's
+     * chunks by what the points of earlier runs with its key cost. Default: the operation.
+     */
+    default String costKey(String operation, String definition) {
+        return operation;
+    }
+
     /** A run ready to compute any of its points. */
     @FunctionalInterface
     interface Prepared {

@@ -23,6 +23,7 @@ import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicInteger;
@@ -55,6 +56,10 @@ final class RunExecutor implements AutoCloseable {
     static final int CHUNKS_PER_THREAD = 8;
     /** Longest time computed points wait in memory before being saved. */
     static final long SAVE_EVERY_NANOS = 500_000_000L;
+    /** Chunks per worker thread a run of cheap points is still cut into at least. */
+    static final int MIN_CHUNKS_PER_THREAD = 2;
+    /** Work a chunk of cheap points holds at least. */
+    static final long CHUNK_WORK_NANOS = 100_000_000L;
     /** A chunk failing this many times in a row for a reason other than the database fails its run. */
     static final int MAX_CHUNK_FAILURES = 5;
 
@@ -70,6 +75,8 @@ final class RunExecutor implements AutoCloseable {
     private final ExecutorService workers;
     private final AtomicLong pointsComputed = new AtomicLong();
     private final ArrayDeque<long[]> recent = new ArrayDeque<>();
+    /** What a point cost here (wall time computing it, giving way excluded), per {@link Evaluator#costKey}. */
+    private final Map<String, Long> nanosPerPoint = new ConcurrentHashMap<>();
     private volatile String storageProblem;
 
     RunExecutor(Database db, RunStore store, Evaluator evaluator, RunsConfig config, InteractiveLoad load) {
@@ -131,10 +138,37 @@ final class RunExecutor implements AutoCloseable {
         }
     }
 
-    /** How many points {@code run} gets per chunk. */
+    /**
+     * How many points a run gets per chunk when nothing is known about the cost of its points:
+     * about {@link #CHUNKS_PER_THREAD} chunks per thread, at most {@link #MAX_CHUNK} points each.
+     */
     static int chunkSize(int totalPoints, int threads) {
         int perChunk = (int) Math.ceil(totalPoints / (double) (threads * CHUNKS_PER_THREAD));
         return Math.max(1, Math.min(MAX_CHUNK, perChunk));
+    }
+
+    /**
+     * How many points a run gets per chunk, given what one of its points cost this instance
+     * ({@code nanosPerPoint}, null when unknown). Cheap points are gathered into chunks holding at
+     * least {@link #CHUNK_WORK_NANOS} of work (a chunk's own bookkeeping, some ten statements
+     * and three commits, is then a small share of it), but never fewer than
+     * {@link #MIN_CHUNKS_PER_THREAD} chunks per thread, so that threads and other instances still
+     * share the run; dear points keep {@link #chunkSize(int, int)}.
+     */
+    static int chunkSize(int totalPoints, int threads, Long nanosPerPoint) {
+        int size = chunkSize(totalPoints, threads);
+        if (nanosPerPoint == null) {
+            return size;
+        }
+        long enough = CHUNK_WORK_NANOS / Math.max(1, nanosPerPoint);
+        int most = (int) Math.ceil(totalPoints / (double) (threads * MIN_CHUNKS_PER_THREAD));
+        return (int) Math.max(size, Math.min(enough, most));
+    }
+
+    /** How many points a new run gets per chunk on this instance. */
+    int chunkSize(NewRun run) {
+        return chunkSize(run.totalPoints(), config.threads(),
+                nanosPerPoint.get(evaluator.costKey(run.operation(), run.definition())));
     }
 
     /** Queues every chunk of a new run. */
@@ -197,6 +231,7 @@ final class RunExecutor implements AutoCloseable {
         int colon = instanceId.lastIndexOf(':');
         String runId = instanceId.substring(0, colon);
         int chunk = Integer.parseInt(instanceId.substring(colon + 1));
+        long began = System.nanoTime();
         RunRecord run = store.find(runId).orElse(null);
         if (run == null || !run.status().active()) {
             return;
@@ -204,8 +239,9 @@ final class RunExecutor implements AutoCloseable {
         if (storageProblem != null) {
             recovered(run);
         }
-        Instant now = Instant.now();
-        store.markStarted(runId, now);
+        if (run.status() == RunStatus.QUEUED) {
+            store.markStarted(runId, Instant.now());
+        }
         Evaluator.Prepared prepared;
         try {
             prepared = evaluator.prepare(run);
@@ -219,24 +255,49 @@ final class RunExecutor implements AutoCloseable {
         BitSet have = store.computed(runId, from, to);
         List<PointResult> batch = new ArrayList<>();
         Set<String> modelsRecorded = new HashSet<>();
-        long lastSave = System.nanoTime();
+        long computing = System.nanoTime();
+        long lastSave = computing;
+        long saving = 0;
+        long yielded = 0;
         for (int i = from; i < to; i++) {
             if (have.get(i - from)) {
                 continue;
             }
-            load.yieldToInteractive();
+            yielded += load.yieldToInteractive();
             PointResult p = prepared.evaluate(i);
             batch.add(new PointResult(i, p.inputs(), p.outputs(), p.problem(), config.instanceName(), p.models()));
             if (System.nanoTime() - lastSave > SAVE_EVERY_NANOS) {
+                long t = System.nanoTime();
                 if (!save(runId, batch, modelsRecorded)) {
                     return;
                 }
                 lastSave = System.nanoTime();
+                saving += lastSave - t;
             }
         }
+        long t = System.nanoTime();
         if (!batch.isEmpty() || have.cardinality() == to - from) {
             save(runId, batch, modelsRecorded);
         }
+        long end = System.nanoTime();
+        int computed = to - from - have.cardinality();
+        if (computed > 0) {
+            long perPoint = Math.max(1, (t - computing - saving - yielded) / computed);
+            if (nanosPerPoint.size() > 1_000) {
+                nanosPerPoint.clear(); // many different sweeps: start learning again
+            }
+            nanosPerPoint.merge(evaluator.costKey(run.operation(), run.definition()), perPoint, (a, b) -> (a + b) / 2);
+        }
+        if (LOG.isDebugEnabled()) {
+            LOG.debug("runs: chunk {} of run {} on {}: {} points; reading the run {} ms, computing {} ms ({} ms of it "
+                    + "giving way to requests), saving {} ms", chunk, runId, Thread.currentThread().getName(),
+                    computed, millis(computing - began), millis(t - computing - saving),
+                    millis(yielded), millis(saving + end - t));
+        }
+    }
+
+    private static String millis(long nanos) {
+        return String.format(java.util.Locale.ROOT, "%.1f", nanos / 1e6);
     }
 
     /**

@@ -81,7 +81,7 @@ public final class RunService implements AutoCloseable {
     public RunRecord submit(NewRun run) {
         RunRecord r = new RunRecord(UUID.randomUUID().toString(), run.kind(), run.operation(), run.owner(),
                 run.label(), RunStatus.QUEUED, run.definition(), run.provenance(), run.totalPoints(),
-                RunExecutor.chunkSize(run.totalPoints(), config.threads()), 0, 0, Instant.now(), null, null, null);
+                executor.chunkSize(run), 0, 0, Instant.now(), null, null, null);
         store.insert(r);
         try {
             executor.schedule(r);

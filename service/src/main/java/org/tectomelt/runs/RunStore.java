@@ -250,22 +250,23 @@ public final class RunStore {
     /**
      * Stores computed points and advances the run's counters in one transaction. A point already
      * stored (by another instance that held the chunk before) is skipped and not counted twice.
-     * When another writer stores the same points at the same moment (two executions of one chunk:
-     * one revived after its heartbeats went stale while the first still ran), the primary key
-     * refuses one insert; the transaction is then rolled back and tried again, and sees the other
-     * writer's points as stored. That is not a database failure.
+     * The points go in as one JDBC batch of plain inserts (the caller computed only points it found
+     * missing); when the primary key refuses one because another writer stored it meanwhile (two
+     * executions of one chunk: one revived after its heartbeats went stale while the first still
+     * ran), the transaction is rolled back and tried again point by point, skipping the stored
+     * ones. That is not a database failure.
      */
     Saved save(String runId, List<PointResult> points, Instant now) {
         return run(c -> {
             c.setAutoCommit(false);
             for (int attempt = 1; ; attempt++) {
                 try {
-                    Saved saved = saveOnce(c, runId, points, now);
+                    Saved saved = saveOnce(c, runId, points, now, attempt > 1);
                     c.commit();
                     return saved;
                 } catch (SQLException e) {
                     c.rollback();
-                    if (!UNIQUE_VIOLATION.equals(e.getSQLState()) || attempt >= SAVE_ATTEMPTS) {
+                    if (!uniqueViolation(e) || attempt >= SAVE_ATTEMPTS) {
                         throw e;
                     }
                 } catch (RuntimeException e) {
@@ -276,28 +277,58 @@ public final class RunStore {
         });
     }
 
-    /** One attempt of {@link #save}, in the caller's transaction (GONE rolls back itself). */
-    private static Saved saveOnce(Connection c, String runId, List<PointResult> points, Instant now)
-            throws SQLException {
+    /** True when {@code e} (or an exception it chains, as a batch's does) is a unique-key violation. */
+    private static boolean uniqueViolation(SQLException e) {
+        for (Throwable t = e; t != null; t = t.getCause() == t ? null : t.getCause()) {
+            if (t instanceof SQLException q) {
+                for (SQLException n = q; n != null; n = n.getNextException()) {
+                    if (UNIQUE_VIOLATION.equals(n.getSQLState())) {
+                        return true;
+                    }
+                }
+            }
+        }
+        return false;
+    }
+
+    /**
+     * One attempt of {@link #save}, in the caller's transaction (GONE rolls back itself): a batch
+     * of plain inserts, or with {@code skipStored} one insert per point that skips a stored point.
+     */
+    private static Saved saveOnce(Connection c, String runId, List<PointResult> points, Instant now,
+                                  boolean skipStored) throws SQLException {
         int done = 0;
         int failed = 0;
-        try (PreparedStatement ps = c.prepareStatement("insert into run_points "
-                + "(run_id, idx, inputs, outputs, problem, computed_by) select ?, ?, ?, ?, ?, ? "
-                + "where not exists (select 1 from run_points where run_id = ? and idx = ?)")) {
-            for (PointResult p : points) {
-                ps.setString(1, runId);
-                ps.setInt(2, p.index());
-                ps.setString(3, p.inputs());
-                ps.setString(4, p.outputs());
-                ps.setString(5, p.problem());
-                ps.setString(6, p.computedBy());
-                ps.setString(7, runId);
-                ps.setInt(8, p.index());
-                if (ps.executeUpdate() == 1) {
+        if (!skipStored) {
+            try (PreparedStatement ps = c.prepareStatement("insert into run_points "
+                    + "(run_id, idx, inputs, outputs, problem, computed_by) values (?, ?, ?, ?, ?, ?)")) {
+                for (PointResult p : points) {
+                    bindPoint(ps, runId, p);
+                    ps.addBatch();
                     if (p.ok()) {
                         done++;
                     } else {
                         failed++;
+                    }
+                }
+                if (!points.isEmpty()) {
+                    ps.executeBatch();
+                }
+            }
+        } else {
+            try (PreparedStatement ps = c.prepareStatement("insert into run_points "
+                    + "(run_id, idx, inputs, outputs, problem, computed_by) select ?, ?, ?, ?, ?, ? "
+                    + "where not exists (select 1 from run_points where run_id = ? and idx = ?)")) {
+                for (PointResult p : points) {
+                    bindPoint(ps, runId, p);
+                    ps.setString(7, runId);
+                    ps.setInt(8, p.index());
+                    if (ps.executeUpdate() == 1) {
+                        if (p.ok()) {
+                            done++;
+                        } else {
+                            failed++;
+                        }
                     }
                 }
             }
@@ -325,6 +356,15 @@ public final class RunStore {
             finished = ps.executeUpdate();
         }
         return finished == 1 ? Saved.FINISHED : Saved.STORED;
+    }
+
+    private static void bindPoint(PreparedStatement ps, String runId, PointResult p) throws SQLException {
+        ps.setString(1, runId);
+        ps.setInt(2, p.index());
+        ps.setString(3, p.inputs());
+        ps.setString(4, p.outputs());
+        ps.setString(5, p.problem());
+        ps.setString(6, p.computedBy());
     }
 
     /**

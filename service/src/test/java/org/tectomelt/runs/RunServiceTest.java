@@ -368,4 +368,47 @@ class RunServiceTest {
         assertEquals(RunExecutor.MAX_CHUNK, RunExecutor.chunkSize(1_000_000, 2));
         assertEquals(2, RunExecutor.chunkSize(31, 2));
     }
+
+    @Test
+    void cheapPointsAreGatheredIntoFewerChunksStillSharedByTheThreads() {
+        // unknown cost: as before
+        assertEquals(125, RunExecutor.chunkSize(2_000, 2, null));
+        // 100 µs a point: 0.1 s of work a chunk would be 1,000 points, but at least two chunks per thread
+        assertEquals(500, RunExecutor.chunkSize(2_000, 2, 100_000L));
+        // a large cheap run: chunks of 0.1 s of work, many of them
+        assertEquals(1_000, RunExecutor.chunkSize(50_000, 2, 100_000L));
+        // dear points (9 ms): the chunks stay as small as without an estimate
+        assertEquals(RunExecutor.chunkSize(1_200, 1), RunExecutor.chunkSize(1_200, 1, 9_000_000L));
+        assertEquals(RunExecutor.chunkSize(50_000, 2), RunExecutor.chunkSize(50_000, 2, 9_000_000L));
+        // free points: never fewer than two chunks per thread
+        for (int total : new int[] {1, 3, 31, 2_000, 50_000}) {
+            int size = RunExecutor.chunkSize(total, 2, 1L);
+            int chunks = (total + size - 1) / size;
+            assertEquals(Math.min(total, 4), chunks, "chunks of " + total + " points");
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void aLaterRunOfCheapPointsGetsLargerChunksAndStillEveryPointOnce(String backend) {
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0))) {
+            s.start();
+            RunRecord first = s.submit(run("ana", 2_000));
+            assertEquals(RunExecutor.chunkSize(2_000, s.config().threads()), first.chunkSize(), "nothing known yet");
+            assertEquals(RunStatus.SUCCEEDED, await(s, first.id(), x -> !x.status().active(), Duration.ofSeconds(60)).status());
+            RunRecord second = s.submit(run("ana", 2_000));
+            int threads = s.config().threads();
+            assertEquals((int) Math.ceil(2_000.0 / (threads * RunExecutor.MIN_CHUNKS_PER_THREAD)), second.chunkSize(),
+                    "squares cost microseconds: the fewest chunks allowed");
+            RunRecord done = await(s, second.id(), x -> !x.status().active(), Duration.ofSeconds(60));
+            assertEquals(RunStatus.SUCCEEDED, done.status());
+            List<PointResult> points = allPoints(s, second.id());
+            assertEquals(2_000, points.size());
+            for (int i = 0; i < points.size(); i++) {
+                assertEquals(i, points.get(i).index());
+            }
+            assertEquals(2_000, done.donePoints() + done.failedPoints());
+            assertEquals(2_000 / 7 + (2_000 % 7 > 3 ? 1 : 0), done.failedPoints());
+        }
+    }
 }

@@ -39,6 +39,20 @@ public final class SweepEvaluator implements Evaluator {
         this.pointBudget = pointBudget;
     }
 
+    /**
+     * The operation, its fixed request (a lithology or a water content changes what a point
+     * costs), the swept fields and whether each stored point is a study block.
+     */
+    @Override
+    public String costKey(String operation, String definition) {
+        try {
+            Sweep sweep = Sweep.fromDefinition(definition, null);
+            return operation + " " + sweep.request() + " " + sweep.axes().keySet() + (sweep.study() != null ? " study" : "");
+        } catch (RuntimeException e) {
+            return operation + " ?";
+        }
+    }
+
     @Override
     public Prepared prepare(RunRecord run) {
         if (!Sweep.KIND.equals(run.kind())) {
