@@ -2,7 +2,7 @@
 """Runs against individual requests, side by side in one go, on the packaged jar.
 
   python3 .ci/load/runs-bench.py [--jar service/target/tectomelt.jar] [--compare OLD.jar]
-                                 [--rounds 3] [--warmup-s 60] [--poll-ms 20] [--no-jmh]
+                                 [--rounds 3] [--warmup-s 120] [--poll-ms 20] [--no-jmh]
 
 1. JMH RunSweepBenchmark: the single-core time of the 2,000-point mid-ocean-ridge sweep,
    each point computed as a run computes it (no database), before and again after the services
@@ -11,9 +11,9 @@
    real joint rate on this machine) and, for reference, the operation alone on requests bound
    beforehand (the engine's columns and the operation's own rules).
 2. The jar (and, with --compare, a second jar: both on loopback ports, each with a fresh
-   embedded database) warmed up for --warmup-s seconds each (default 60; individual requests and runs
-   alternately: a lab server runs warm, and a cold JVM spends as much CPU compiling as
-   computing); then, per round and per jar:
+   embedded database) warmed up for --warmup-s seconds each (default 120; 2,000 individual
+   requests, then four runs, and again: a lab server runs warm, and a cold JVM spent as much CPU
+   compiling as computing, still a tenth after a minute of runs); then, per round and per jar:
    - the 2,000 points as 2,000 POST /v1/settings/mid-ocean-ridge from a client with two
      keep-alive connections;
    - the same 2,000 points as one run: POST /v1/runs, polled every --poll-ms until it
@@ -163,7 +163,7 @@ def main():
     ap.add_argument("--jar", default=os.path.join(ROOT, "service", "target", "tectomelt.jar"))
     ap.add_argument("--compare", help="a second jar (say, main's) measured alternately with --jar")
     ap.add_argument("--rounds", type=int, default=3)
-    ap.add_argument("--warmup-s", type=float, default=60, help="seconds of warm-up per jar")
+    ap.add_argument("--warmup-s", type=float, default=120, help="seconds of warm-up per jar")
     ap.add_argument("--poll-ms", type=float, default=20, help="the client's poll interval of a run")
     ap.add_argument("--no-jmh", action="store_true")
     a = ap.parse_args()
@@ -180,8 +180,9 @@ def main():
         for name, (proc, port) in services.items():
             until = time.time() + a.warmup_s
             while True:   # at least one of each: JIT of both paths
-                individual(port)
-                as_run(port, proc.pid, a.poll_ms / 1000)
+                individual(port)   # 2,000 requests
+                for _ in range(4):   # a run is a fifth of the time of the requests: as much time on each path
+                    as_run(port, proc.pid, a.poll_ms / 1000)
                 if time.time() > until:
                     break
         res = {name: {"singles": [], "client": [], "own": [], "cpu": [], "health": []} for name in services}
