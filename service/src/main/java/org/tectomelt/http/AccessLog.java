@@ -59,8 +59,9 @@ final class AccessLog implements AutoCloseable {
         boolean full;
         synchronized (pending) {
             pending.append('[').append(thread).append("] INFO tectomelt.access - ").append(method).append(' ')
-                    .append(path).append(' ').append(status).append(' ').append(RequestPlumbing.tenths(millis))
-                    .append("ms requestId=").append(requestId).append(System.lineSeparator());
+                    .append(path).append(' ').append(status).append(' ');
+            RequestPlumbing.appendTenths(millis, pending);
+            pending.append("ms requestId=").append(requestId).append(System.lineSeparator());
             full = pending.length() >= BUFFER_CHARS;
         }
         if (full) {

@@ -35,6 +35,19 @@ public final class App {
     private App() {
     }
 
+    /**
+     * Gzip at {@code level} (0: none). The service's own media types are listed as allowed, so a
+     * response of one of them skips Javalin's case-insensitive scan of its excluded types.
+     */
+    static CompressionStrategy compression(int level) {
+        if (level == 0) {
+            return CompressionStrategy.NONE;
+        }
+        CompressionStrategy s = new CompressionStrategy(null, new Gzip(level));
+        s.setAllowedMimeTypes(List.of(Responses.JSON, Responses.CSV, Problems.PROBLEM_JSON));
+        return s;
+    }
+
     /** The app for production: no request observer. */
     public static Javalin create(Config config) {
         return create(config, RequestObserver.NONE);
@@ -89,8 +102,7 @@ public final class App {
             c.startup.showOldJavalinVersionWarning = false;
             c.http.maxRequestSize = config.maxBodyBytes();
             c.http.prefer405over404 = true;
-            c.http.compressionStrategy = config.compressionLevel() == 0 ? CompressionStrategy.NONE
-                    : new CompressionStrategy(null, new Gzip(config.compressionLevel()));
+            c.http.compressionStrategy = compression(config.compressionLevel());
             c.appData(Metrics.KEY, metrics);
             c.appData(Heavy.KEY, heavy);
             c.appData(RunsRoutes.KEY, runs);

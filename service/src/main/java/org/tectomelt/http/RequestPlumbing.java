@@ -172,11 +172,19 @@ final class RequestPlumbing {
 
     /** {@code millis} with one decimal ({@code 12.3}), as {@code %.1f} writes it, without a Formatter. */
     static String tenths(float millis) {
+        StringBuilder sb = new StringBuilder(12);
+        appendTenths(millis, sb);
+        return sb.toString();
+    }
+
+    /** Appends {@link #tenths} to {@code sb} (the access log's form, written with no string in between). */
+    static void appendTenths(float millis, StringBuilder sb) {
         if (!Float.isFinite(millis) || millis < 0 || millis >= 1e9f) {
-            return String.format(java.util.Locale.ROOT, "%.1f", millis);
+            sb.append(String.format(java.util.Locale.ROOT, "%.1f", millis));
+            return;
         }
         long t = Math.round(millis * 10.0);
-        return (t / 10) + "." + (t % 10);
+        sb.append(t / 10).append('.').append(t % 10);
     }
 
     private static String matchedRoute(Context ctx) {
