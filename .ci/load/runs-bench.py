@@ -2,16 +2,18 @@
 """Runs against individual requests, side by side in one go, on the packaged jar.
 
   python3 .ci/load/runs-bench.py [--jar service/target/tectomelt.jar] [--compare OLD.jar]
-                                 [--rounds 3] [--warmup-s 60] [--poll-ms 20] [--no-jmh]
+                                 [--rounds 3] [--warmup-s 120] [--poll-ms 20] [--no-jmh]
 
 1. JMH RunSweepBenchmark: the single-core time of the 2,000-point mid-ocean-ridge sweep,
-   each point computed as a run computes it (no database); × the service's cores = the engine
-   rate the issue compares with. Also measured with one thread per core at once (the cores'
-   real joint rate on this machine) and, for reference, the engine's columns alone.
+   each point computed as a run computes it (no database), before and again after the services
+   (the mean of the two: the machine's load drifts); × the service's cores = the engine rate the
+   issue compares with. Also measured with one thread per core at once (the cores'
+   real joint rate on this machine) and, for reference, the operation alone on requests bound
+   beforehand (the engine's columns and the operation's own rules).
 2. The jar (and, with --compare, a second jar: both on loopback ports, each with a fresh
-   embedded database) warmed up for --warmup-s seconds each (default 60; individual requests and runs
-   alternately: a lab server runs warm, and a cold JVM spends as much CPU compiling as
-   computing); then, per round and per jar:
+   embedded database) warmed up for --warmup-s seconds each (default 120; 2,000 individual
+   requests, then four runs, and again: a lab server runs warm, and a cold JVM spent as much CPU
+   compiling as computing, still a tenth after a minute of runs); then, per round and per jar:
    - the 2,000 points as 2,000 POST /v1/settings/mid-ocean-ridge from a client with two
      keep-alive connections;
    - the same 2,000 points as one run: POST /v1/runs, polled every --poll-ms until it
@@ -47,7 +49,7 @@ SWEEP = {"operation": "mid-ocean-ridge", "request": {},
 POINTS = [(tp, r) for tp in TPS for r in RATES]
 
 
-def jmh(threads):
+def jmh(threads, only=None):
     """{benchmark method: ms per 2,000-point sweep per thread} with `threads` threads at once."""
     cp_file = os.path.join(ROOT, "service", "target", "bench-classpath.txt")
     subprocess.run(["mvn", "-B", "-q", "-Pbench", "-pl", "service", "test-compile", "dependency:build-classpath",
@@ -55,7 +57,8 @@ def jmh(threads):
     cp = ":".join([os.path.join(ROOT, "service", "target", "test-classes"),
                    os.path.join(ROOT, "service", "target", "classes"), open(cp_file).read().strip()])
     out = os.path.join(ROOT, "service", "target", f"jmh-runsweep-t{threads}.json")
-    subprocess.run(["java", "-Djmh.ignoreLock=true", "-cp", cp, "org.openjdk.jmh.Main", "RunSweepBenchmark",
+    subprocess.run(["java", "-Djmh.ignoreLock=true", "-cp", cp, "org.openjdk.jmh.Main",
+                    "RunSweepBenchmark" + ("." + only if only else ""),
                     "-f", "1", "-t", str(threads), "-wi", "3", "-w", "2s", "-i", "5", "-r", "2s",
                     "-rf", "json", "-rff", out], cwd=ROOT, check=True, stdout=subprocess.DEVNULL,
                    stderr=subprocess.DEVNULL)
@@ -160,7 +163,7 @@ def main():
     ap.add_argument("--jar", default=os.path.join(ROOT, "service", "target", "tectomelt.jar"))
     ap.add_argument("--compare", help="a second jar (say, main's) measured alternately with --jar")
     ap.add_argument("--rounds", type=int, default=3)
-    ap.add_argument("--warmup-s", type=float, default=60, help="seconds of warm-up per jar")
+    ap.add_argument("--warmup-s", type=float, default=120, help="seconds of warm-up per jar")
     ap.add_argument("--poll-ms", type=float, default=20, help="the client's poll interval of a run")
     ap.add_argument("--no-jmh", action="store_true")
     a = ap.parse_args()
@@ -177,8 +180,9 @@ def main():
         for name, (proc, port) in services.items():
             until = time.time() + a.warmup_s
             while True:   # at least one of each: JIT of both paths
-                individual(port)
-                as_run(port, proc.pid, a.poll_ms / 1000)
+                individual(port)   # 2,000 requests
+                for _ in range(4):   # a run is a fifth of the time of the requests: as much time on each path
+                    as_run(port, proc.pid, a.poll_ms / 1000)
                 if time.time() > until:
                     break
         res = {name: {"singles": [], "client": [], "own": [], "cpu": [], "health": []} for name in services}
@@ -194,21 +198,25 @@ def main():
         for proc, _ in services.values():
             proc.terminate()
             proc.wait(30)
+    # the machine's load drifts: the single-core time again after the services, the mean of both used
+    jmh1_after = None if a.no_jmh else jmh(1, "sweepOf2000Points")
     n = len(POINTS)
     print(f"machine: {cores} cores, load average {load0:.1f} at the start, {os.getloadavg()[0]:.1f} at the end "
           f"(shared with other work); warm-up {a.warmup_s:.0f} s per jar, {a.rounds} rounds, poll {a.poll_ms:.0f} ms")
     engine = None
     if jmh1 is not None:
-        per = jmh1["sweepOf2000Points"]
+        before, after = jmh1["sweepOf2000Points"], jmh1_after["sweepOf2000Points"]
+        per = (before + after) / 2
         engine = n / (per / 1000.0) * cores
-        print(f"JMH RunSweepBenchmark.sweepOf2000Points, 1 thread: {per:.0f} ms per {n}-point sweep -> "
-              f"{n / (per / 1000):.0f} points/s x {cores} cores = {engine:.0f} points/s (the engine rate compared with)")
+        print(f"JMH RunSweepBenchmark.sweepOf2000Points, 1 thread: {before:.0f} ms per {n}-point sweep before the "
+              f"services, {after:.0f} ms after, mean {per:.0f} ms -> {n / (per / 1000):.0f} points/s x {cores} cores = "
+              f"{engine:.0f} points/s (the engine rate compared with)")
         per2 = jmh2["sweepOf2000Points"]
         print(f"  the same with {cores} threads at once: {per2:.0f} ms per sweep per thread -> "
               f"{cores * n / (per2 / 1000):.0f} points/s together")
         if "columnsOf2000Points" in jmh1:
             col = jmh1["columnsOf2000Points"]
-            print(f"  the engine's columns alone (no spec, binding or output text), 1 thread: {col:.0f} ms per sweep"
+            print(f"  the operation alone on requests bound beforehand (no per-point binding or output text), 1 thread: {col:.0f} ms per sweep"
                   f" -> {n / (col / 1000):.0f} points/s")
     for name, jar in jars:
         r = res[name]
