@@ -671,13 +671,7 @@ public final class SillModel {
      * @throws BudgetExceededException when the deadline passes during either run
      */
     public static SillResult runWithConvergenceCheck(Setup setup, Deadline deadline) {
-        SillResult fine = run(setup, deadline);
-        if (!setup.canCoarsen()) {
-            return fine.withConvergence(null, List.of("no grid-convergence check: the grid spacing is too coarse "
-                    + "to double"));
-        }
-        SillResult coarse = run(setup.coarser(), deadline);
-        return checked(setup, fine, setup.coarser(), coarse, 0, null);
+        return refine(setup, 0, Integer.MAX_VALUE, deadline);
     }
 
     /**
@@ -696,6 +690,15 @@ public final class SillModel {
      * @throws BudgetExceededException when the deadline passes during the first two runs
      */
     public static SillResult runRefined(Setup setup, int maxCells, Deadline deadline) {
+        return refine(setup, MAX_REFINEMENTS, maxCells, deadline);
+    }
+
+    /**
+     * The run of {@code setup} checked against the run one level coarser, refined at most
+     * {@code maxRefinements} times while they disagree ({@link #runRefined}; 0 is
+     * {@link #runWithConvergenceCheck}, whose unconverged answer advises a finer spacing).
+     */
+    private static SillResult refine(Setup setup, int maxRefinements, int maxCells, Deadline deadline) {
         SillResult fine = run(setup, deadline);
         if (!setup.canCoarsen()) {
             return fine.withConvergence(null, List.of("no grid-convergence check: the grid spacing is too coarse "
@@ -706,11 +709,11 @@ public final class SillModel {
         Setup fineSetup = setup;
         int refinements = 0;
         String stopped = null;
-        while (largestChange(fine, coarse) >= SillResult.Convergence.TOLERANCE) {
+        while (maxRefinements > 0 && largestChange(fine, coarse) >= SillResult.Convergence.TOLERANCE) {
             Setup next = fineSetup.finer();
             SillResult.Numerics last = fine.numerics();
-            if (refinements == MAX_REFINEMENTS) {
-                stopped = "after " + MAX_REFINEMENTS + " refinements, the most allowed";
+            if (refinements == maxRefinements) {
+                stopped = "after " + maxRefinements + " refinements, the most allowed";
                 break;
             }
             if (REFINEMENT_WORK_FACTOR * last.cellSteps() > setup.numerics().maxCellSteps()
