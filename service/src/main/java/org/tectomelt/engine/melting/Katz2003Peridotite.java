@@ -305,24 +305,33 @@ public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implemen
         if (t <= ts) {
             return 0.0;
         }
-        double tl = lherzoliteLiquidus(p);
-        double fCpx = cpxExhaustionFraction(p);
-        double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
-        return dryMeltFraction(t, ts, tl, dryLiquidus(p), fCpx, tCpx);
+        return dryLaw(p, ts).meltFraction(t);
     }
 
-    /** The dry melt-fraction law with the curves at one pressure already evaluated (all K). */
-    private static double dryMeltFraction(double t, double ts, double tl, double tq, double fCpx, double tCpx) {
-        if (t <= ts) {
-            return 0.0;
+    /** The dry law's curves at pressure {@code p} whose dry solidus is {@code ts} (K). */
+    private DryLaw dryLaw(double p, double ts) {
+        double tl = lherzoliteLiquidus(p);
+        double fCpx = cpxExhaustionFraction(p);
+        return new DryLaw(ts, tl, dryLiquidus(p), fCpx, Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts);
+    }
+
+    /**
+     * The dry melt-fraction law at one pressure, its curves evaluated once (all K): solidus, lherzolite
+     * liquidus, liquidus, and the melt fraction and temperature of cpx exhaustion.
+     */
+    private record DryLaw(double ts, double tl, double tq, double fCpx, double tCpx) {
+        double meltFraction(double t) {
+            if (t <= ts) {
+                return 0.0;
+            }
+            if (t < tCpx) {
+                return Math.pow((t - ts) / (tl - ts), BETA1);
+            }
+            if (t >= tq) {
+                return 1.0;
+            }
+            return fCpx + (1.0 - fCpx) * Math.pow((t - tCpx) / (tq - tCpx), BETA2);
         }
-        if (t < tCpx) {
-            return Math.pow((t - ts) / (tl - ts), BETA1);
-        }
-        if (t >= tq) {
-            return 1.0;
-        }
-        return fCpx + (1.0 - fCpx) * Math.pow((t - tCpx) / (tq - tCpx), BETA2);
     }
 
     @Override
@@ -345,12 +354,7 @@ public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implemen
         if (bulkWater > 0) {
             return t -> meltFraction(p, t, bulkWater);
         }
-        double ts = drySolidus(p);
-        double tl = lherzoliteLiquidus(p);
-        double fCpx = cpxExhaustionFraction(p);
-        double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
-        double tq = dryLiquidus(p);
-        return t -> dryMeltFraction(t, ts, tl, tq, fCpx, tCpx);
+        return dryLaw(p, drySolidus(p))::meltFraction;
     }
 
     /** Melt fraction only (the hot path of columns and batches); no range check. */
@@ -360,24 +364,18 @@ public record Katz2003Peridotite(double cpxMode, WetSolidus wetSolidus) implemen
             return dryMeltFraction(p, t);
         }
         // the curves depend on pressure only: evaluate them once, outside the root finding
-        double ts = drySolidus(p);
-        double tl = lherzoliteLiquidus(p);
-        double tq = dryLiquidus(p);
-        double fCpx = cpxExhaustionFraction(p);
-        double tCpx = Math.pow(fCpx, 1.0 / BETA1) * (tl - ts) + ts;
+        DryLaw law = dryLaw(p, drySolidus(p));
         double xSat = waterSaturation(p);
         double scale = wetSolidus == WetSolidus.KATZ2003 ? 1.0 : experimentalScale(p);
-        if (dryMeltFraction(t + scale * solidusDepression(Math.min(bulkWater / D_WATER, xSat)), ts, tl, tq, fCpx, tCpx)
-                <= 0) {
+        if (law.meltFraction(t + scale * solidusDepression(Math.min(bulkWater / D_WATER, xSat))) <= 0) {
             return 0.0;
         }
-        if (dryMeltFraction(t + scale * solidusDepression(Math.min(bulkWater, xSat)), ts, tl, tq, fCpx, tCpx) >= 1.0) {
+        if (law.meltFraction(t + scale * solidusDepression(Math.min(bulkWater, xSat))) >= 1.0) {
             return 1.0;
         }
         BrentSolver solver = new BrentSolver(ROOT_ACCURACY);
-        return solver.solve(MAX_EVALUATIONS, f -> f - dryMeltFraction(
-                t + scale * solidusDepression(Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), xSat)),
-                ts, tl, tq, fCpx, tCpx), 0.0, 1.0);
+        return solver.solve(MAX_EVALUATIONS, f -> f - law.meltFraction(
+                t + scale * solidusDepression(Math.min(bulkWater / (D_WATER + f * (1.0 - D_WATER)), xSat))), 0.0, 1.0);
     }
 
     @Override

@@ -1,8 +1,8 @@
 package org.tectomelt.engine.melting;
 
 import java.util.List;
-import java.util.function.DoubleUnaryOperator;
 import java.util.Locale;
+import java.util.function.DoubleUnaryOperator;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 
