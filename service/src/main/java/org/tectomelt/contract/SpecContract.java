@@ -46,6 +46,12 @@ public final class SpecContract {
     /** Classpath location of the spec, copied byte for byte from {@code api-spec/} by the build. */
     public static final String SPEC_RESOURCE = "/api-spec/openapi.yaml";
 
+    /**
+     * The message of a number beyond the range of a double: {@link #check} reports those alone,
+     * before the schema is applied, so a body with one has not been held to the schema.
+     */
+    public static final String BEYOND_DOUBLE = "is invalid: the number is beyond the range of a double (about ±1.8e308)";
+
     private static final String BASE = "https://tectomelt.invalid/openapi.json";
     private static final ObjectMapper YAML = new ObjectMapper(new YAMLFactory());
     private static volatile SpecContract standard;
@@ -142,6 +148,15 @@ public final class SpecContract {
             }
         }
         return out;
+    }
+
+    /**
+     * Fills the spec's defaults of the request schema of {@code POST path} into {@code body}, in
+     * place, without checking it: for a body already checked when it was accepted and stored by an
+     * earlier build, whose defaults may not have been filled in.
+     */
+    public void fillDefaults(String path, ObjectNode body) {
+        applyDefaults(requestSchemaNode(path), body);
     }
 
     /**
@@ -278,8 +293,7 @@ public final class SpecContract {
                 }
             }
         } else if (node.isFloatingPointNumber() && !Double.isFinite(node.doubleValue())) {
-            out.add(new Violation(path.toString(), "is invalid: the number is beyond the range of a double"
-                    + " (about ±1.8e308)"));
+            out.add(new Violation(path.toString(), BEYOND_DOUBLE));
         }
     }
 
@@ -380,6 +394,10 @@ public final class SpecContract {
                         : String.join(", ", names.subList(0, names.size() - 1)) + " or " + names.get(names.size() - 1);
                 long min = owner == null ? 0 : owner.path("minProperties").asLong(0);
                 long max = owner == null ? Long.MAX_VALUE : owner.path("maxProperties").asLong(Long.MAX_VALUE);
+                if (names.isEmpty()) {
+                    return max == Long.MAX_VALUE ? "must have at least " + min + " members"
+                            : "must have between " + min + " and " + max + " members";
+                }
                 return min == 1 && max == 1 ? "give exactly one of " + choices
                         : "must have between " + min + " and " + max + " of " + choices;
             }
