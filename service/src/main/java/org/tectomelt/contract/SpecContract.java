@@ -160,6 +160,100 @@ public final class SpecContract {
     }
 
     /**
+     * Reads the query parameters of {@code method path} as the spec documents them (the
+     * operation's and the path's {@code parameters}, {@code $ref}s followed): each given value is
+     * read as its schema's type ({@code integer}, {@code number}, {@code boolean}, {@code string})
+     * and held to the schema ({@code minimum}, {@code maximum}, {@code enum}…); an absent or blank
+     * one takes the spec's {@code default}. Parameters the spec does not document are not read.
+     *
+     * @param method lower-case HTTP method, e.g. {@code get}
+     * @param given  the request's query parameters (the first value of each counts)
+     */
+    public Query query(String method, String path, Map<String, List<String>> given) {
+        Map<String, JsonNode> values = new java.util.LinkedHashMap<>();
+        List<Violation> out = new ArrayList<>();
+        String base = "/paths/" + escape(path);
+        for (String at : List.of(base + "/" + method + "/parameters", base + "/parameters")) {
+            JsonNode params = spec.at(at);
+            for (int i = 0; i < params.size(); i++) {
+                String pointer = at + "/" + i;
+                JsonNode p = params.get(i);
+                if (p.has("$ref") && p.get("$ref").asText().startsWith("#")) {
+                    pointer = p.get("$ref").asText().substring(1);
+                    p = resolve(p);
+                }
+                if (p == null || !"query".equals(p.path("in").asText()) || values.containsKey(p.path("name").asText())) {
+                    continue;
+                }
+                String name = p.path("name").asText();
+                JsonNode schema = resolve(p.get("schema"));
+                List<String> raw = given.get(name);
+                String text = raw == null || raw.isEmpty() || raw.get(0).isBlank() ? null : raw.get(0).trim();
+                if (text == null) {
+                    if (schema != null && schema.has("default")) {
+                        values.put(name, schema.get("default"));
+                    }
+                    continue;
+                }
+                JsonNode value = typed(text, schema == null ? "string" : schema.path("type").asText("string"));
+                if (value == null) {
+                    out.add(new Violation(name, "has the wrong type; expected " + describe(schema.path("type").asText())
+                            + ", got '" + abbreviate(text) + "'"));
+                    continue;
+                }
+                String schemaPointer = pointer + "/schema";
+                for (Error e : schemas.computeIfAbsent("#query " + schemaPointer,
+                        k -> registry.getSchema(SchemaLocation.of(BASE + "#" + schemaPointer))).validate(value)) {
+                    out.add(new Violation(name, message(e, name)));
+                }
+                values.put(name, value);
+            }
+        }
+        return new Query(values, out);
+    }
+
+    /**
+     * Query parameters read by {@link #query}.
+     *
+     * @param values     parameter → its value as the schema's type (given, or the spec's default)
+     * @param violations every parameter that broke its schema, named
+     */
+    public record Query(Map<String, JsonNode> values, List<Violation> violations) {
+
+        /** The integer value of {@code name}: given, or the spec's default. */
+        public long integer(String name) {
+            JsonNode v = values.get(name);
+            if (v == null) {
+                throw new IllegalStateException("the spec gives the query parameter '" + name + "' no default");
+            }
+            return v.asLong();
+        }
+
+        /** The text of {@code name}, or null when it was not given and has no default. */
+        public String text(String name) {
+            JsonNode v = values.get(name);
+            return v == null ? null : v.asText();
+        }
+    }
+
+    private static JsonNode typed(String text, String type) {
+        var f = com.fasterxml.jackson.databind.node.JsonNodeFactory.instance;
+        try {
+            return switch (type) {
+                case "integer" -> f.numberNode(Long.parseLong(text));
+                case "number" -> {
+                    double d = Double.parseDouble(text);
+                    yield Double.isFinite(d) ? f.numberNode(d) : null;
+                }
+                case "boolean" -> "true".equals(text) ? f.booleanNode(true) : "false".equals(text) ? f.booleanNode(false) : null;
+                default -> f.textNode(text);
+            };
+        } catch (NumberFormatException e) {
+            return null;
+        }
+    }
+
+    /**
      * What the spec says of a request field of {@code POST path} (a dotted path; array items are
      * reached through the list's name, {@code points.temperatureC}).
      */
