@@ -1,6 +1,7 @@
 package org.tectomelt.contract;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -10,6 +11,7 @@ import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.Deadline;
+import org.tectomelt.engine.DeferredList;
 import org.tectomelt.operations.MidOceanRidgeOperation;
 import org.tectomelt.operations.OperationException;
 
@@ -44,6 +46,25 @@ class InvokerTest {
                         + " \"temperatureC\": 1300, \"bulkWaterWtPct\": 0.1}").getBytes(StandardCharsets.UTF_8)),
                 Deadline.none()));
         assertEquals("bulkWaterWtPct", rule.violations().get(0).field());
+    }
+
+    @Test
+    void readingOutputsBuildsNeitherTheProfileRowsNorTheTextWhichAnAnswerStillCarriesInFull() {
+        Record r = INVOKER.run("mid-ocean-ridge", Json.readTree(
+                "{\"potentialTemperatureC\": 1350, \"fullSpreadingRateMmPerYr\": 12}".getBytes(StandardCharsets.UTF_8)),
+                Deadline.none());
+        MidOceanRidgeOperation.Result ridge = (MidOceanRidgeOperation.Result) r;
+        INVOKER.outputs("mid-ocean-ridge", r, List.of("crustalThicknessKm", "column.meanMeltFraction"));
+        assertFalse(((DeferredList<?>) ridge.column().profile()).isBuilt(), "a run's point converts no profile row");
+        assertFalse(((DeferredList<?>) ridge.assumptions()).isBuilt(), "nor writes the assumptions");
+        com.fasterxml.jackson.databind.JsonNode answer = Json.mapper().valueToTree(r);
+        // one row per km from the onset up to the lid (MidOceanRidge.PROFILE_STEP), the ridge's text last
+        assertEquals(ridge.column().profile().size(), answer.at("/column/profile").size());
+        assertTrue(answer.at("/column/profile").size() > 30, answer.at("/column/profile").toString());
+        assertEquals(ridge.column().onset().depthKm(), answer.at("/column/profile/0/depthKm").asDouble());
+        assertEquals(ridge.assumptions().size(), answer.at("/assumptions").size());
+        assertTrue(answer.at("/assumptions/" + (ridge.assumptions().size() - 1)).asText()
+                .startsWith("ridge: passive triangular melting region; slow spreading"), answer.at("/assumptions").toString());
     }
 
     @Test
