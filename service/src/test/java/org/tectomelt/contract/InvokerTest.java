@@ -22,9 +22,7 @@ class InvokerTest {
 
     @Test
     void anOperationRunsByNameFromAJsonTree() {
-        Record r = INVOKER.run("mid-ocean-ridge", Json.readTree(
-                "{\"potentialTemperatureC\": 1350, \"fullSpreadingRateMmPerYr\": 40}".getBytes(StandardCharsets.UTF_8)),
-                Deadline.none());
+        Record r = ridge(40);
         MidOceanRidgeOperation.Result ridge = (MidOceanRidgeOperation.Result) r;
         assertEquals("peridotite-katz2003", ridge.lithology(), "the spec's default lithology");
         Map<String, Double> out = INVOKER.outputs("mid-ocean-ridge", r, List.of("crustalThicknessKm",
@@ -50,9 +48,7 @@ class InvokerTest {
 
     @Test
     void readingOutputsBuildsNeitherTheProfileRowsNorTheTextWhichAnAnswerStillCarriesInFull() {
-        Record r = INVOKER.run("mid-ocean-ridge", Json.readTree(
-                "{\"potentialTemperatureC\": 1350, \"fullSpreadingRateMmPerYr\": 12}".getBytes(StandardCharsets.UTF_8)),
-                Deadline.none());
+        Record r = ridge(12);
         MidOceanRidgeOperation.Result ridge = (MidOceanRidgeOperation.Result) r;
         INVOKER.outputs("mid-ocean-ridge", r, List.of("crustalThicknessKm", "column.meanMeltFraction"));
         assertFalse(((DeferredList<?>) ridge.column().profile()).isBuilt(), "a run's point converts no profile row");
@@ -69,11 +65,16 @@ class InvokerTest {
 
     @Test
     void anUnknownOutputNameListsTheKnownOnes() {
-        Record r = INVOKER.run("mid-ocean-ridge", Json.readTree(
-                "{\"potentialTemperatureC\": 1350, \"fullSpreadingRateMmPerYr\": 40}".getBytes(StandardCharsets.UTF_8)),
-                Deadline.none());
+        Record r = ridge(40);
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> INVOKER.outputs("mid-ocean-ridge", r, List.of("crustThickness")));
         assertTrue(e.getMessage().contains("crustalThicknessKm"), e.getMessage());
+    }
+
+    /** The ridge at Tp 1350 °C and the given full spreading rate, run by name from a JSON tree. */
+    private static Record ridge(int fullSpreadingRateMmPerYr) {
+        return INVOKER.run("mid-ocean-ridge", Json.readTree(("{\"potentialTemperatureC\": 1350, "
+                + "\"fullSpreadingRateMmPerYr\": " + fullSpreadingRateMmPerYr + "}").getBytes(StandardCharsets.UTF_8)),
+                Deadline.none());
     }
 }
