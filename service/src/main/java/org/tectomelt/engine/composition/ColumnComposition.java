@@ -132,7 +132,8 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         }
         MantleLithology lith = peridotite(column.column());
         boolean declares = n > 0 && (lith.exhaustionMeltFraction(p[0]) < 1.0 || lith.exhaustionMeltFraction(p[n - 1]) < 1.0);
-        return along(z, p, f, declares ? lith::exhaustionMeltFraction : null);
+        // z and p are this call's own arrays: the result keeps them (the public path below copies its arguments)
+        return new Run(n).integrate(z, p, f, declares ? lith::exhaustionMeltFraction : null);
     }
 
     /** The one peridotite a column melts; trace elements are not modelled for a mixed source. */
@@ -161,7 +162,7 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         if (pressure.length != n || meltFraction.length != n) {
             throw new IllegalArgumentException("depth, pressure and melt fraction need the same length");
         }
-        return new Run(n).integrate(depth, pressure, meltFraction, cpxExhaustion);
+        return new Run(n).integrate(depth.clone(), pressure.clone(), meltFraction, cpxExhaustion);
     }
 
     /** Every published model the composition rests on. */
@@ -244,11 +245,12 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             extracted = new double[ne];
         }
 
+        /** Integrates along the points; z and p are kept by the result, not copied. */
         CompositionResult integrate(double[] z, double[] p, double[] fCol, DoubleUnaryOperator cpxExhaustion) {
-            double[] values = new double[3 * n * ne];
+            double[] values = new double[2 * n * ne];
+            double[] mixes = new double[n * N];
             double[] fOut = new double[n];
             double[] w = new double[n];
-            double[] cpx = new double[n];
             // past the last point (or step) with any garnet share, the garnet-field residue has weight 0 in every
             // blend: it is no longer melted (the blends, and so the results, are the same)
             int lastGarnet = -1;
@@ -269,10 +271,10 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 }
                 fOut[i] = f;
                 w[i] = mineralogy.garnetFraction(p[i]);
-                cpx[i] = (1 - w[i]) * m[0][CPX] + w[i] * m[1][CPX];
-                output(w[i], values, 3 * i * ne);
+                output(w[i], values, 2 * i * ne);
+                System.arraycopy(mix, 0, mixes, i * N, N);
             }
-            return new CompositionResult(ColumnComposition.this, ne, z.clone(), p.clone(), fOut, w, cpx, values);
+            return new CompositionResult(ColumnComposition.this, ne, kT, z, p, fOut, w, mixes, values);
         }
 
         private double clampFraction(double x) {
@@ -361,9 +363,21 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 double pb = bulkP[e];
                 double hb = h / (bulkS[e] + retained);
                 double qa = q[e];
-                double qb = qa * Shaw1970.exp(-hb * scale * Shaw1970.log1pOverX(-(pb + r) * hb));
+                double y = -hb * scale * Shaw1970.log1pOverX(-(pb + r) * hb); // ln(Q_b/Q_a)
+                double qb;
+                double leaving;
+                if (y > -0.5) {
+                    // a small share leaves: by e^y − 1 directly, as Q_a − Q_b would lose its digits (all but about
+                    // five of them at the first steps of a compatible element)
+                    leaving = -qa * Shaw1970.expm1(y);
+                    qb = qa - leaving;
+                } else {
+                    // most of it leaves: Q_b by e^y, so that a nearly stripped residue keeps its digits
+                    qb = qa * Shaw1970.exp(y);
+                    leaving = qa - qb;
+                }
                 q[e] = qb;
-                extracted[e] += qa - qb;
+                extracted[e] += leaving;
             }
         }
 
@@ -431,7 +445,11 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
         }
 
-        /** Concentrations at the current state for garnet share {@code w}: instantaneous, accumulated, residue from {@code at}. */
+        /**
+         * Concentrations at the current state for garnet share {@code w}, from {@code at}: the accumulated melt and
+         * the residue of every element. The residue's mineral mix is left in {@code mix}: with it the result
+         * derives the instantaneous melt from the residue (C_L = C_s·(1 − F)/S), so that it need not be stored.
+         */
         private void output(double w, double[] values, int at) {
             solidCapacities(w);
             boolean open = f > phi;
@@ -441,9 +459,8 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             for (int e = 0; e < ne; e++) {
                 double s = bulkS[e];
                 double cl = q[e] / (s + retained);
-                values[at + e] = cl;
-                values[at + ne + e] = f > 0 ? (extracted[e] + cl * retained) * perMelt : cl;
-                values[at + 2 * ne + e] = cl * s * perSolid;
+                values[at + e] = f > 0 ? (extracted[e] + cl * retained) * perMelt : cl;
+                values[at + ne + e] = cl * s * perSolid;
             }
         }
     }
