@@ -73,6 +73,12 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
     private static final int CPX = Mineral.CLINOPYROXENE.ordinal();
     private static final int N = Mineral.COUNT;
 
+    static {
+        if (N != 5) {
+            throw new ExceptionInInitializerError("the bulk sums are written out for five minerals, not " + N);
+        }
+    }
+
     /** Validates coverage and the retained fraction. */
     public ColumnComposition {
         elements = List.copyOf(elements);
@@ -195,15 +201,13 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
     }
 
     /**
-     * One integration; mutable scratch state. The partition coefficients are held mineral by mineral
-     * ({@code kT[j·ne + e]}), so that the bulk sums Σ xⱼKⱼ of all elements are built one mineral at a
-     * time in short loops over the elements (one weight in a register, no reloads; the order of the
-     * sum per element, and so every result, is that of the plain loop).
+     * One integration; mutable scratch state. The partition coefficients are held element by element
+     * ({@code kE[e·N + j]}), so that a bulk sum Σ xⱼKⱼ is five products in a row per element.
      */
     private final class Run {
         private final int n;
         private final int ne;
-        private final double[] kT;
+        private final double[] kE;
         private final double[] c0;
         /** Mineral masses of the spinel-field [0] and garnet-field [1] residues. */
         private final double[][] m = new double[2][];
@@ -228,12 +232,12 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         Run(int n) {
             this.n = n;
             this.ne = elements.size();
-            this.kT = new double[N * ne];
+            this.kE = new double[N * ne];
             this.c0 = new double[ne];
             for (int e = 0; e < ne; e++) {
                 double[] row = coefficients.row(elements.get(e));
                 for (int j = 0; j < N; j++) {
-                    kT[j * ne + e] = row[j];
+                    kE[e * N + j] = row[j];
                 }
                 c0[e] = source.ppm(elements.get(e));
             }
@@ -274,7 +278,7 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 output(w[i], values, 2 * i * ne);
                 System.arraycopy(mix, 0, mixes, i * N, N);
             }
-            return new CompositionResult(ColumnComposition.this, ne, kT, z, p, fOut, w, mixes, values);
+            return new CompositionResult(ColumnComposition.this, ne, kE, z, p, fOut, w, mixes, values);
         }
 
         private double clampFraction(double x) {
@@ -325,27 +329,25 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
         }
 
-        /** Σ weightⱼ·Kⱼ for every element into {@code out}, mineral by mineral (a zero weight adds nothing). */
+        /**
+         * Σ weightⱼ·Kⱼ for every element into {@code out}, the five minerals written out in their order (a sum
+         * of five products per element in one pass; a zero weight adds an exact zero, so each sum is the same as
+         * that of the minerals present alone).
+         */
         private void bulk(double[] weight, double[] out) {
-            boolean first = true;
-            for (int j = 0; j < N; j++) {
-                double wj = weight[j];
-                if (wj != 0.0) {
-                    int o = j * ne;
-                    if (first) {
-                        for (int e = 0; e < ne; e++) {
-                            out[e] = wj * kT[o + e];
-                        }
-                        first = false;
-                    } else {
-                        for (int e = 0; e < ne; e++) {
-                            out[e] += wj * kT[o + e];
-                        }
-                    }
-                }
-            }
-            if (first) {
-                java.util.Arrays.fill(out, 0.0);
+            double w0 = weight[0];
+            double w1 = weight[1];
+            double w2 = weight[2];
+            double w3 = weight[3];
+            double w4 = weight[4];
+            double[] k = kE;
+            for (int e = 0, o = 0; e < ne; e++, o += N) {
+                double s = w0 * k[o];
+                s += w1 * k[o + 1];
+                s += w2 * k[o + 2];
+                s += w3 * k[o + 3];
+                s += w4 * k[o + 4];
+                out[e] = s;
             }
         }
 

@@ -17,8 +17,8 @@ public final class CompositionResult {
     private final double[] meltFraction;
     private final double[] garnetFraction;
     private final int ne;
-    /** Partition coefficients mineral by mineral, {@code kT[j·ne + e]} (as the integration holds them). */
-    private final double[] kT;
+    /** Partition coefficients element by element, {@code kE[e·N + j]} (as the integration holds them). */
+    private final double[] kE;
     /** Point by point, the mass of each mineral in the residue per unit source mass, {@code mix[i·N + j]}. */
     private final double[] mix;
     /**
@@ -29,11 +29,11 @@ public final class CompositionResult {
      */
     private final double[] values;
 
-    CompositionResult(ColumnComposition model, int ne, double[] kT, double[] depth, double[] pressure,
+    CompositionResult(ColumnComposition model, int ne, double[] kE, double[] depth, double[] pressure,
                       double[] meltFraction, double[] garnetFraction, double[] mix, double[] values) {
         this.model = model;
         this.ne = ne;
-        this.kT = kT;
+        this.kE = kE;
         this.depth = depth;
         this.pressure = pressure;
         this.meltFraction = meltFraction;
@@ -85,13 +85,10 @@ public final class CompositionResult {
 
     /** Instantaneous melt leaving (or in equilibrium with) the residue at point {@code i} (ppm). */
     public double instantaneousMelt(int i, int element) {
-        // S = Σ mⱼKⱼ summed as the integration sums it (mineral order, absent minerals skipped)
+        // S = Σ mⱼKⱼ summed as the integration sums it (in mineral order)
         double s = 0;
-        for (int j = 0, o = i * Mineral.COUNT; j < Mineral.COUNT; j++) {
-            double mj = mix[o + j];
-            if (mj != 0.0) {
-                s += mj * kT[j * ne + element];
-            }
+        for (int j = 0, o = i * Mineral.COUNT, k = element * Mineral.COUNT; j < Mineral.COUNT; j++) {
+            s += mix[o + j] * kE[k + j];
         }
         return residue(i, element) * (1 - meltFraction[i]) / s;
     }
