@@ -107,6 +107,12 @@ public final class Shaw1970 {
     /** e^(k/16) for k = −64 … 64 as a sum of two doubles, hi the correctly rounded value, lo the rest. */
     private static final double[] EXP_TABLE_HI = new double[2 * EXP_TABLE_HALF + 1];
     private static final double[] EXP_TABLE_LO = new double[2 * EXP_TABLE_HALF + 1];
+    /**
+     * 1.5·2⁵²: added to 16y (|16y| &lt; 2⁵¹) it leaves round(16y) (to nearest, ties to even, as Math.rint) in the
+     * low bits of the sum, and subtracted again it gives k exactly; cheaper than Math.rint and a conversion to int.
+     */
+    private static final double ROUND_TO_INTEGER = 0x1.8p52;
+
     /** 1/(n + 1)! for n = 0 … 7: (e^r − 1)/r = Σ rⁿ/(n + 1)!. */
     private static final double[] EXPM1_OVER_R_SERIES = {1.0, 1.0 / 2, 1.0 / 6, 1.0 / 24, 1.0 / 120, 1.0 / 720,
         1.0 / 5040, 1.0 / 40320};
@@ -150,8 +156,9 @@ public final class Shaw1970 {
         if (!(Math.abs(y) < EXP_TABLE_LIMIT)) {
             return Math.exp(y);
         }
-        double k = Math.rint(y * 16);
-        return EXP_TABLE_HI[(int) k + EXP_TABLE_HALF] + expTail(y, k);
+        double t = y * 16 + ROUND_TO_INTEGER;
+        int at = tableIndex(t);
+        return EXP_TABLE_HI[at] + expTail(y, t, at);
     }
 
     /**
@@ -163,14 +170,20 @@ public final class Shaw1970 {
         if (!(Math.abs(y) < EXP_TABLE_LIMIT)) {
             return Math.expm1(y);
         }
-        double k = Math.rint(y * 16);
-        return (EXP_TABLE_HI[(int) k + EXP_TABLE_HALF] - 1.0) + expTail(y, k);
+        double t = y * 16 + ROUND_TO_INTEGER;
+        int at = tableIndex(t);
+        return (EXP_TABLE_HI[at] - 1.0) + expTail(y, t, at);
     }
 
-    /** hi·(e^r − 1) + lo for table point k = round(16y); y·16 and k/16 are exact, so r = y − k/16 is (Sterbenz). */
-    private static double expTail(double y, double k) {
+    /** The table index of k = round(16y) from t = 16y + 1.5·2⁵²: the low 32 bits of t are k in two's complement. */
+    private static int tableIndex(double t) {
+        return (int) Double.doubleToRawLongBits(t) + EXP_TABLE_HALF;
+    }
+
+    /** hi·(e^r − 1) + lo at table index {@code at}; y·16 and k/16 are exact, so r = y − k/16 is (Sterbenz). */
+    private static double expTail(double y, double t, int at) {
+        double k = t - ROUND_TO_INTEGER;
         double r = y - k * EXP_TABLE_STEP;
-        int at = (int) k + EXP_TABLE_HALF;
         return Math.fma(EXP_TABLE_HI[at], r * expm1OverR(r), EXP_TABLE_LO[at]);
     }
 
