@@ -4,12 +4,14 @@
   python3 .ci/load/runs-bench.py [--jar service/target/tectomelt.jar] [--compare OLD.jar]
                                  [--rounds 3] [--warmup-s 120] [--poll-ms 20] [--no-jmh]
 
-1. JMH RunSweepBenchmark: the single-core time of the 2,000-point mid-ocean-ridge sweep,
-   each point computed as a run computes it (no database), before and again after the services
-   (the mean of the two: the machine's load drifts); × the service's cores = the engine rate the
-   issue compares with. Also measured with one thread per core at once (the cores'
-   real joint rate on this machine) and, for reference, the operation alone on requests bound
-   beforehand (the engine's columns and the operation's own rules).
+1. JMH RunSweepBenchmark: the single-core time of the 2,000 columns of the mid-ocean-ridge
+   sweep in the engine alone (engineColumnsOf2000Points: the ridge's column, no request, no
+   operation, no text), before and again after the services (the mean of the two: the machine's
+   load drifts); × the service's cores = the engine's column rate the issue compares with. Beside
+   it, for reference: each point computed as a run computes it (sweepOf2000Points: the request,
+   the operation, the chosen outputs as text; no database), the operation alone on requests bound
+   beforehand (columnsOf2000Points), and the engine columns with one thread per core at once (the
+   cores' real joint rate on this machine).
 2. The jar (and, with --compare, a second jar: both on loopback ports, each with a fresh
    embedded database) warmed up for --warmup-s seconds each (default 120; 2,000 individual
    requests, then four runs, and again: a lab server runs warm, and a cold JVM spent as much CPU
@@ -171,7 +173,7 @@ def main():
     load0 = os.getloadavg()[0]
     jmh1 = jmh2 = None
     if not a.no_jmh:
-        jmh1, jmh2 = jmh(1), jmh(cores)
+        jmh1, jmh2 = jmh(1), jmh(cores, "engineColumnsOf2000Points")
     jars = [("new", a.jar)] + ([("old", a.compare)] if a.compare else [])
     services = {}
     try:
@@ -199,25 +201,31 @@ def main():
             proc.terminate()
             proc.wait(30)
     # the machine's load drifts: the single-core time again after the services, the mean of both used
-    jmh1_after = None if a.no_jmh else jmh(1, "sweepOf2000Points")
+    jmh1_after = None if a.no_jmh else jmh(1, "engineColumnsOf2000Points")
     n = len(POINTS)
     print(f"machine: {cores} cores, load average {load0:.1f} at the start, {os.getloadavg()[0]:.1f} at the end "
           f"(shared with other work); warm-up {a.warmup_s:.0f} s per jar, {a.rounds} rounds, poll {a.poll_ms:.0f} ms")
     engine = None
     if jmh1 is not None:
-        before, after = jmh1["sweepOf2000Points"], jmh1_after["sweepOf2000Points"]
+        before, after = jmh1["engineColumnsOf2000Points"], jmh1_after["engineColumnsOf2000Points"]
         per = (before + after) / 2
         engine = n / (per / 1000.0) * cores
-        print(f"JMH RunSweepBenchmark.sweepOf2000Points, 1 thread: {before:.0f} ms per {n}-point sweep before the "
-              f"services, {after:.0f} ms after, mean {per:.0f} ms -> {n / (per / 1000):.0f} points/s x {cores} cores = "
-              f"{engine:.0f} points/s (the engine rate compared with)")
-        per2 = jmh2["sweepOf2000Points"]
-        print(f"  the same with {cores} threads at once: {per2:.0f} ms per sweep per thread -> "
+        print(f"JMH RunSweepBenchmark.engineColumnsOf2000Points, 1 thread: {before:.0f} ms per {n} columns before the "
+              f"services, {after:.0f} ms after, mean {per:.0f} ms -> {n / (per / 1000):.0f} columns/s x {cores} cores = "
+              f"{engine:.0f} points/s (the engine's column rate compared with)")
+        per2 = jmh2["engineColumnsOf2000Points"]
+        print(f"  the same with {cores} threads at once: {per2:.0f} ms per {n} columns per thread -> "
               f"{cores * n / (per2 / 1000):.0f} points/s together")
-        if "columnsOf2000Points" in jmh1:
-            col = jmh1["columnsOf2000Points"]
-            print(f"  the operation alone on requests bound beforehand (no per-point binding or output text), 1 thread: {col:.0f} ms per sweep"
-                  f" -> {n / (col / 1000):.0f} points/s")
+        clean = abs(before - after) <= 0.1 * per and per2 <= 1.15 * per
+        print(f"  clean go: {'yes' if clean else 'NO'} (the single-core times before and after within 10 % of each "
+              f"other, {cores} threads at once within 15 % of one thread; otherwise other work took the cores and "
+              f"the ratios below say little)")
+        sweep = jmh1["sweepOf2000Points"]
+        print(f"  a run's per-point path (request, operation, outputs as text; no database), 1 thread: {sweep:.0f} ms "
+              f"per sweep -> {n / (sweep / 1000):.0f} points/s")
+        col = jmh1["columnsOf2000Points"]
+        print(f"  the operation alone on requests bound beforehand, 1 thread: {col:.0f} ms per sweep"
+              f" -> {n / (col / 1000):.0f} points/s")
     for name, jar in jars:
         r = res[name]
         s, c, o = statistics.median(r["singles"]), statistics.median(r["client"]), statistics.median(r["own"])

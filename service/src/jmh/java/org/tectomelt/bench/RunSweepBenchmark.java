@@ -12,7 +12,16 @@ import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.infra.Blackhole;
 import org.tectomelt.Config;
 import org.tectomelt.contract.Json;
+import org.tectomelt.engine.column.ColumnResult;
+import org.tectomelt.engine.column.MantleSource;
+import org.tectomelt.engine.column.Upwelling;
+import org.tectomelt.engine.melting.Lithologies;
+import org.tectomelt.engine.melting.MantleLithology;
+import org.tectomelt.engine.settings.MidOceanRidge;
+import org.tectomelt.engine.settings.SlowSpreadingConductiveLid;
+import org.tectomelt.engine.units.Units;
 import org.tectomelt.http.App;
+import org.tectomelt.operations.MidOceanRidgeOperation;
 import org.tectomelt.runs.Evaluator;
 import org.tectomelt.runs.RunRecord;
 import org.tectomelt.runs.RunStatus;
@@ -36,7 +45,11 @@ public class RunSweepBenchmark {
             + " \"fullSpreadingRateMmPerYr\": {\"from\": 10, \"to\": 100, \"steps\": 10}},"
             + " \"outputs\": [\"crustalThicknessKm\", \"meltProductionKm3PerYrPerKm\"]}";
 
+    /** The sweep's lithology, the spec's default for the ridge (checked in the set-up). */
+    private static final String DEFAULT_LITHOLOGY = "peridotite-katz2003";
+
     private Evaluator.Prepared points;
+    private final java.util.List<MidOceanRidge> ridges = new java.util.ArrayList<>();
     private int size;
     private final java.util.List<org.tectomelt.contract.Invoker.Prepared<?, ?>> operations = new java.util.ArrayList<>();
 
@@ -53,9 +66,45 @@ public class RunSweepBenchmark {
         var invoker = new org.tectomelt.contract.Invoker(org.tectomelt.contract.SpecContract.standard(),
                 org.tectomelt.operations.Operations.of(config));
         var op = invoker.operations().named(sweep.operation()).orElseThrow();
+        MantleLithology dry = Lithologies.mantleById(DEFAULT_LITHOLOGY).orElseThrow();
         for (int i = 0; i < size; i++) {
-            operations.add(invoker.prepare(op, sweep.pointRequest(i)));
+            var prepared = invoker.prepare(op, sweep.pointRequest(i));
+            operations.add(prepared);
+            var q = (MidOceanRidgeOperation.Request) prepared.request();
+            if (!DEFAULT_LITHOLOGY.equals(q.lithology()) || q.bulkWaterWtPct() != 0 || q.meltingMode() != null
+                    && !"batch".equals(q.meltingMode())) {
+                throw new IllegalStateException("the sweep is no longer the dry default ridge: " + q);
+            }
+            ridges.add(new MidOceanRidge(MantleSource.of(dry), Units.celsiusToKelvin(q.potentialTemperatureC()), 0.0,
+                    Units.mmPerYrToMPerS(q.fullSpreadingRateMmPerYr()), SlowSpreadingConductiveLid.standard()));
+            // the engine's column must be the operation's: the same crust to the last digit
+            double crust = Units.mToKm(engineColumn(i).crustalThickness());
+            double answer = ((MidOceanRidgeOperation.Result) prepared.run(org.tectomelt.engine.Deadline.none()))
+                    .crustalThicknessKm();
+            if (crust != answer) {
+                throw new IllegalStateException("point " + i + ": engine column " + crust + " km, operation " + answer);
+            }
         }
+    }
+
+    /**
+     * The same 2,000 columns in the engine alone: the mid-ocean ridge's passive column up to its
+     * conductive lid (what {@code MidOceanRidge.solve} integrates), without the ridge's text, the
+     * request, the operation or the output: the engine's column rate the issue compares a run with.
+     */
+    @Benchmark
+    public void engineColumnsOf2000Points(Blackhole bh) {
+        for (int i = 0; i < size; i++) {
+            bh.consume(engineColumn(i));
+        }
+    }
+
+    /** Point {@code i}'s ridge column, as {@code MidOceanRidge.solve} computes it. */
+    private ColumnResult engineColumn(int i) {
+        MidOceanRidge r = ridges.get(i);
+        double lid = r.cooling().lidDepth(r.fullSpreadingRate(), r.potentialTemperature());
+        return r.source().column(r.potentialTemperature(), r.bulkWater()).withUpwelling(Upwelling.PASSIVE)
+                .withLidDepth(lid).withOutputStep(MidOceanRidge.PROFILE_STEP).solve();
     }
 
     /** All 2,000 points, one after the other, as a run's chunk computes them. */

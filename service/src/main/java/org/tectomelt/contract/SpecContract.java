@@ -46,6 +46,12 @@ public final class SpecContract {
     /** Classpath location of the spec, copied byte for byte from {@code api-spec/} by the build. */
     public static final String SPEC_RESOURCE = "/api-spec/openapi.yaml";
 
+    /**
+     * The message of a number beyond the range of a double: {@link #check} reports those alone,
+     * before the schema is applied, so a body with one has not been held to the schema.
+     */
+    public static final String BEYOND_DOUBLE = "is invalid: the number is beyond the range of a double (about ±1.8e308)";
+
     private static final String BASE = "https://tectomelt.invalid/openapi.json";
     private static final ObjectMapper YAML = new ObjectMapper(new YAMLFactory());
     private static volatile SpecContract standard;
@@ -142,6 +148,109 @@ public final class SpecContract {
             }
         }
         return out;
+    }
+
+    /**
+     * Fills the spec's defaults of the request schema of {@code POST path} into {@code body}, in
+     * place, without checking it: for a body already checked when it was accepted and stored by an
+     * earlier build, whose defaults may not have been filled in.
+     */
+    public void fillDefaults(String path, ObjectNode body) {
+        applyDefaults(requestSchemaNode(path), body);
+    }
+
+    /**
+     * Reads the query parameters of {@code method path} as the spec documents them (the
+     * operation's and the path's {@code parameters}, {@code $ref}s followed): each given value is
+     * read as its schema's type ({@code integer}, {@code number}, {@code boolean}, {@code string})
+     * and held to the schema ({@code minimum}, {@code maximum}, {@code enum}…); an absent or blank
+     * one takes the spec's {@code default}. Parameters the spec does not document are not read.
+     *
+     * @param method lower-case HTTP method, e.g. {@code get}
+     * @param given  the request's query parameters (the first value of each counts)
+     */
+    public Query query(String method, String path, Map<String, List<String>> given) {
+        Map<String, JsonNode> values = new java.util.LinkedHashMap<>();
+        List<Violation> out = new ArrayList<>();
+        String base = "/paths/" + escape(path);
+        for (String at : List.of(base + "/" + method + "/parameters", base + "/parameters")) {
+            JsonNode params = spec.at(at);
+            for (int i = 0; i < params.size(); i++) {
+                String pointer = at + "/" + i;
+                JsonNode p = params.get(i);
+                if (p.has("$ref") && p.get("$ref").asText().startsWith("#")) {
+                    pointer = p.get("$ref").asText().substring(1);
+                    p = resolve(p);
+                }
+                if (p == null || !"query".equals(p.path("in").asText()) || values.containsKey(p.path("name").asText())) {
+                    continue;
+                }
+                String name = p.path("name").asText();
+                JsonNode schema = resolve(p.get("schema"));
+                List<String> raw = given.get(name);
+                String text = raw == null || raw.isEmpty() || raw.get(0).isBlank() ? null : raw.get(0).trim();
+                if (text == null) {
+                    if (schema != null && schema.has("default")) {
+                        values.put(name, schema.get("default"));
+                    }
+                    continue;
+                }
+                JsonNode value = typed(text, schema == null ? "string" : schema.path("type").asText("string"));
+                if (value == null) {
+                    out.add(new Violation(name, "has the wrong type; expected " + describe(schema.path("type").asText())
+                            + ", got '" + abbreviate(text) + "'"));
+                    continue;
+                }
+                String schemaPointer = pointer + "/schema";
+                for (Error e : schemas.computeIfAbsent("#query " + schemaPointer,
+                        k -> registry.getSchema(SchemaLocation.of(BASE + "#" + schemaPointer))).validate(value)) {
+                    out.add(new Violation(name, message(e, name)));
+                }
+                values.put(name, value);
+            }
+        }
+        return new Query(values, out);
+    }
+
+    /**
+     * Query parameters read by {@link #query}.
+     *
+     * @param values     parameter → its value as the schema's type (given, or the spec's default)
+     * @param violations every parameter that broke its schema, named
+     */
+    public record Query(Map<String, JsonNode> values, List<Violation> violations) {
+
+        /** The integer value of {@code name}: given, or the spec's default. */
+        public long integer(String name) {
+            JsonNode v = values.get(name);
+            if (v == null) {
+                throw new IllegalStateException("the spec gives the query parameter '" + name + "' no default");
+            }
+            return v.asLong();
+        }
+
+        /** The text of {@code name}, or null when it was not given and has no default. */
+        public String text(String name) {
+            JsonNode v = values.get(name);
+            return v == null ? null : v.asText();
+        }
+    }
+
+    private static JsonNode typed(String text, String type) {
+        var f = com.fasterxml.jackson.databind.node.JsonNodeFactory.instance;
+        try {
+            return switch (type) {
+                case "integer" -> f.numberNode(Long.parseLong(text));
+                case "number" -> {
+                    double d = Double.parseDouble(text);
+                    yield Double.isFinite(d) ? f.numberNode(d) : null;
+                }
+                case "boolean" -> "true".equals(text) ? f.booleanNode(true) : "false".equals(text) ? f.booleanNode(false) : null;
+                default -> f.textNode(text);
+            };
+        } catch (NumberFormatException e) {
+            return null;
+        }
     }
 
     /**
@@ -278,8 +387,7 @@ public final class SpecContract {
                 }
             }
         } else if (node.isFloatingPointNumber() && !Double.isFinite(node.doubleValue())) {
-            out.add(new Violation(path.toString(), "is invalid: the number is beyond the range of a double"
-                    + " (about ±1.8e308)"));
+            out.add(new Violation(path.toString(), BEYOND_DOUBLE));
         }
     }
 
@@ -380,6 +488,10 @@ public final class SpecContract {
                         : String.join(", ", names.subList(0, names.size() - 1)) + " or " + names.get(names.size() - 1);
                 long min = owner == null ? 0 : owner.path("minProperties").asLong(0);
                 long max = owner == null ? Long.MAX_VALUE : owner.path("maxProperties").asLong(Long.MAX_VALUE);
+                if (names.isEmpty()) {
+                    return max == Long.MAX_VALUE ? "must have at least " + min + " members"
+                            : "must have between " + min + " and " + max + " members";
+                }
                 return min == 1 && max == 1 ? "give exactly one of " + choices
                         : "must have between " + min + " and " + max + " of " + choices;
             }

@@ -15,8 +15,10 @@ import java.util.Map;
 import java.util.TreeMap;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
+import org.tectomelt.contract.SpecContract;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.operations.Operation;
+import org.tectomelt.operations.OperationException;
 import org.tectomelt.runs.NewRun;
 import org.tectomelt.runs.PointResult;
 import org.tectomelt.runs.RunRecord;
@@ -40,8 +42,6 @@ final class RunsRoutes {
     static final String NDJSON = "application/x-ndjson";
     /** Rows read from the database per page while streaming results. */
     private static final int PAGE = 500;
-    /** Longest page of {@code GET /v1/runs}. */
-    static final int MAX_LIMIT = 100;
 
     private RunsRoutes() {
     }
@@ -49,7 +49,7 @@ final class RunsRoutes {
     static List<Route> routes(Invoker invoker) {
         return List.of(
                 Route.livePost("/v1/runs", ctx -> submit(ctx, invoker)),
-                Route.liveGet("/v1/runs", RunsRoutes::list),
+                Route.liveGet("/v1/runs", ctx -> list(ctx, invoker)),
                 Route.liveGet("/v1/runs/{id}", ctx -> ctx.contentType(Responses.JSON).result(Json.write(view(ctx, found(ctx))))),
                 Route.liveGet("/v1/runs/{id}/results", ctx -> results(ctx, invoker)),
                 Route.delete("/v1/runs/{id}", RunsRoutes::delete));
@@ -168,20 +168,16 @@ final class RunsRoutes {
         return p;
     }
 
-    private static void list(Context ctx) {
+    private static void list(Context ctx, Invoker invoker) {
         RunService runs = runs(ctx);
-        RunStatus status = null;
-        String s = ctx.queryParam("status");
-        if (s != null && !s.isBlank()) {
-            try {
-                status = RunStatus.fromWire(s.trim());
-            } catch (IllegalArgumentException e) {
-                throw ApiProblem.invalid("status", "must be one of queued, running, succeeded, failed, cancelled, got '"
-                        + s + "'");
-            }
+        // status, limit and offset are read as the spec documents them (its enum, range and defaults)
+        SpecContract.Query q = invoker.spec().query("get", "/v1/runs", ctx.queryParamMap());
+        if (!q.violations().isEmpty()) {
+            throw new OperationException(q.violations());
         }
-        int limit = intParam(ctx, "limit", 20, 1, MAX_LIMIT);
-        int offset = intParam(ctx, "offset", 0, 0, Integer.MAX_VALUE);
+        RunStatus status = q.text("status") == null ? null : RunStatus.fromWire(q.text("status"));
+        int limit = (int) q.integer("limit");
+        int offset = (int) Math.min(q.integer("offset"), Integer.MAX_VALUE); // past the last run: an empty page
         RunStore.Filter f = new RunStore.Filter(status, blankToNull(ctx.queryParam("owner")),
                 blankToNull(ctx.queryParam("operation")));
         ObjectNode o = Json.mapper().createObjectNode();
@@ -442,21 +438,5 @@ final class RunsRoutes {
 
     private static String blankToNull(String s) {
         return s == null || s.isBlank() ? null : s.trim();
-    }
-
-    private static int intParam(Context ctx, String name, int fallback, int min, int max) {
-        String raw = ctx.queryParam(name);
-        if (raw == null || raw.isBlank()) {
-            return fallback;
-        }
-        try {
-            int v = Integer.parseInt(raw.trim());
-            if (v >= min && v <= max) {
-                return v;
-            }
-        } catch (NumberFormatException e) {
-            // reported below
-        }
-        throw ApiProblem.invalid(name, "must be an integer between " + min + " and " + max + ", got '" + raw + "'");
     }
 }

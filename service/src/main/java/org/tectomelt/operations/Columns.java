@@ -2,6 +2,7 @@ package org.tectomelt.operations;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.tectomelt.engine.DeferredList;
 import org.tectomelt.engine.column.ColumnResult;
 import org.tectomelt.engine.column.ColumnState;
 import org.tectomelt.engine.column.LithologyMelting;
@@ -50,13 +51,8 @@ public final class Columns {
         Onset onset = r.onset().map(Columns::onset).orElse(null);
         Top top = r.top().map(Columns::top).orElse(null);
         boolean mixed = r.lithologies().size() > 1;
-        List<Point> profile = new ArrayList<>(r.profile().size());
-        for (ProfilePoint p : r.profile()) {
-            profile.add(new Point(Units.mToKm(p.depth()), Units.paToGpa(p.pressure()),
-                    Units.kelvinToCelsius(p.temperature()), p.meltFraction(),
-                    Units.perPaToPercentPerGpa(p.productivity()), Units.fractionToWtPct(p.waterInMelt()),
-                    Units.fractionToWtPct(p.residueWater()), mixed ? p.meltFractions().get(1) : null));
-        }
+        // the rows are converted when read (an answer reads them, a run's point does not)
+        List<Point> profile = DeferredList.of(() -> profile(r.profile(), mixed));
         List<LithologyShare> shares = new ArrayList<>(r.lithologies().size());
         for (LithologyMelting l : r.lithologies()) {
             shares.add(new LithologyShare(l.lithology().id(), l.massFraction(), l.onset().map(Columns::onset)
@@ -68,6 +64,17 @@ public final class Columns {
                 top, r.maxMeltFraction(), r.meanMeltFraction(), Units.mToKm(r.meltThickness()),
                 Units.mToKm(r.crustalThickness()), meanP, r.mode().apiName(),
                 mixed ? r.lithologies().get(1).meltShare() : null, shares, profile);
+    }
+
+    private static List<Point> profile(List<ProfilePoint> points, boolean mixed) {
+        List<Point> profile = new ArrayList<>(points.size());
+        for (ProfilePoint p : points) {
+            profile.add(new Point(Units.mToKm(p.depth()), Units.paToGpa(p.pressure()),
+                    Units.kelvinToCelsius(p.temperature()), p.meltFraction(),
+                    Units.perPaToPercentPerGpa(p.productivity()), Units.fractionToWtPct(p.waterInMelt()),
+                    Units.fractionToWtPct(p.residueWater()), mixed ? p.meltFractions().get(1) : null));
+        }
+        return profile;
     }
 
     /** Outputs every column offers, read through {@code column} from a result. */

@@ -32,8 +32,6 @@ public final class SamplingInversion {
 
     /** Fewest scan points. */
     public static final int MIN_SCAN_POINTS = 2;
-    /** Scan points unless asked otherwise. */
-    public static final int DEFAULT_SCAN_POINTS = 16;
     /** Root accuracy as a fraction of max − min. */
     public static final double RELATIVE_ACCURACY = 1e-9;
     private static final int MAX_EVALUATIONS = 100;

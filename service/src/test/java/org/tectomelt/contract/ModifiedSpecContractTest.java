@@ -16,7 +16,10 @@ import org.junit.jupiter.api.Test;
 import org.tectomelt.Config;
 import org.tectomelt.http.App;
 
-/** A range changed in a copy of the spec changes what an app built on that copy accepts, with no Java edit. */
+/**
+ * A range changed in a copy of the spec changes what an app built on that copy accepts, with no Java edit:
+ * an operation's request and the body of a run alike.
+ */
 class ModifiedSpecContractTest {
 
     private static final String BODY = "{\"potentialTemperatureC\": 1650, \"fullSpreadingRateMmPerYr\": 40}";
@@ -44,6 +47,33 @@ class ModifiedSpecContractTest {
                     refused.body());
         } finally {
             standard.stop();
+            narrowed.stop();
+        }
+    }
+
+    @Test
+    void anAppOnACopyHoldsARunToTheCopysLimits() throws Exception {
+        ObjectMapper yaml = new ObjectMapper(new YAMLFactory());
+        ObjectNode copy;
+        try (InputStream in = SpecContract.class.getResourceAsStream(SpecContract.SPEC_RESOURCE)) {
+            copy = (ObjectNode) yaml.readTree(in);
+        }
+        ((ObjectNode) copy.at("/components/schemas/Uncertainty/properties/samples")).put("maximum", 300);
+        Javalin narrowed = App.create(Config.defaults().withPort(0), SpecContract.fromYaml(yaml.writeValueAsBytes(copy)))
+                .start("127.0.0.1", 0);
+        try {
+            HttpResponse<String> refused = HttpClient.newHttpClient().send(HttpRequest.newBuilder(URI.create(
+                    "http://127.0.0.1:" + narrowed.port() + "/v1/runs")).header("Content-Type", "application/json")
+                    .POST(HttpRequest.BodyPublishers.ofString("""
+                            {"operation": "mid-ocean-ridge", "request": {"fullSpreadingRateMmPerYr": 40},
+                             "uncertainty": {"samples": 400, "inputs": {"potentialTemperatureC":
+                               {"normal": {"mean": 1350, "sd": 20}}}}}""")).build(),
+                    HttpResponse.BodyHandlers.ofString());
+            assertEquals(400, refused.statusCode(), refused.body());
+            var problem = Json.mapper().readTree(refused.body());
+            assertEquals("uncertainty.samples", problem.at("/errors/0/field").asText(), refused.body());
+            assertTrue(problem.at("/errors/0/message").asText().contains("between 1 and 300, got 400"), refused.body());
+        } finally {
             narrowed.stop();
         }
     }

@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.OptionalDouble;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
+import org.tectomelt.engine.DeferredList;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.column.ColumnResult;
@@ -99,7 +100,7 @@ public record ContinentalRift(MantleSource source, double potentialTemperature, 
         /** Defensive copies. */
         public Result {
             models = List.copyOf(models);
-            assumptions = List.copyOf(assumptions);
+            assumptions = DeferredList.copyOf(assumptions);
             warnings = List.copyOf(warnings);
         }
     }
@@ -154,13 +155,17 @@ public record ContinentalRift(MantleSource source, double potentialTemperature, 
         List<ModelInfo> models = new ArrayList<>(c.models());
         models.add(INFO);
         models.add(RIFT_MELTING_INFO);
-        List<String> assumptions = new ArrayList<>(c.assumptions());
-        assumptions.add(String.format(Locale.ROOT, "rift: instantaneous uniform stretching by β = %.3g (McKenzie 1978) "
-                + "thins the lithosphere to a/β = %.1f km and the crust to c/β = %.1f km; the asthenosphere rises "
-                + "passively and melts up to a/β (White & McKenzie 1989); no conductive cooling during stretching; "
-                + "melt thickness counts only melt made by the stretching (∫F dz between a/β and the old lid base or "
-                + "the onset)", stretchingFactor, lithosphereThickness / stretchingFactor / 1e3,
-                crustThickness / stretchingFactor / 1e3));
+        // the text is built when read (an answer reads it, a run's point does not)
+        List<String> assumptions = DeferredList.of(() -> {
+            List<String> a = new ArrayList<>(c.assumptions());
+            a.add(String.format(Locale.ROOT, "rift: instantaneous uniform stretching by β = %.3g (McKenzie 1978) "
+                    + "thins the lithosphere to a/β = %.1f km and the crust to c/β = %.1f km; the asthenosphere rises "
+                    + "passively and melts up to a/β (White & McKenzie 1989); no conductive cooling during stretching; "
+                    + "melt thickness counts only melt made by the stretching (∫F dz between a/β and the old lid base "
+                    + "or the onset)", stretchingFactor, lithosphereThickness / stretchingFactor / 1e3,
+                    crustThickness / stretchingFactor / 1e3));
+            return a;
+        });
         List<String> warnings = new ArrayList<>(c.warnings());
         if (onsetBeta.isPresent() && onsetBeta.getAsDouble() == 1.0) {
             warnings.add("the unstretched lithosphere is already thinner than the onset depth: the mantle beneath it "

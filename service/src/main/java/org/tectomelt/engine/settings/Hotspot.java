@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.OptionalDouble;
+import org.tectomelt.engine.DeferredList;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.column.ColumnResult;
@@ -85,7 +86,7 @@ public record Hotspot(MantleSource source, double potentialTemperature, double a
         /** Defensive copies. */
         public Result {
             models = List.copyOf(models);
-            assumptions = List.copyOf(assumptions);
+            assumptions = DeferredList.copyOf(assumptions);
             warnings = List.copyOf(warnings);
         }
     }
@@ -104,10 +105,14 @@ public record Hotspot(MantleSource source, double potentialTemperature, double a
         OptionalDouble onset = c.onset().isPresent() ? OptionalDouble.of(c.onset().get().depth()) : OptionalDouble.empty();
         List<ModelInfo> models = new ArrayList<>(c.models());
         models.add(LID_EFFECT_INFO);
-        List<String> assumptions = new ArrayList<>(c.assumptions());
-        assumptions.add(String.format(Locale.ROOT, "hotspot: top-hat plume conduit, melt flux Q = π·R²·w·F_lid·ρs/ρf "
-                + "(ρs = %.0f, ρf = %.0f kg/m³): every parcel melts to the melt fraction it has at the base of the "
-                + "lid; an upper bound for a plume whose temperature and velocity fall off from its axis", rhoS, rhoF));
+        // the text is built when read (an answer reads it, a run's point does not)
+        List<String> assumptions = DeferredList.of(() -> {
+            List<String> a = new ArrayList<>(c.assumptions());
+            a.add(String.format(Locale.ROOT, "hotspot: top-hat plume conduit, melt flux Q = π·R²·w·F_lid·ρs/ρf "
+                    + "(ρs = %.0f, ρf = %.0f kg/m³): every parcel melts to the melt fraction it has at the base of the "
+                    + "lid; an upper bound for a plume whose temperature and velocity fall off from its axis", rhoS, rhoF));
+            return a;
+        });
         List<String> warnings = new ArrayList<>(c.warnings());
         if (excess < TYPICAL_MIN_EXCESS_K || excess > TYPICAL_MAX_EXCESS_K) {
             warnings.add(String.format(Locale.ROOT, "excess temperature %.0f K lies outside the %.0f–%.0f K usually "

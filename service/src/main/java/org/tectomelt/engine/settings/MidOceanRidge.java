@@ -3,6 +3,7 @@ package org.tectomelt.engine.settings;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.tectomelt.engine.DeferredList;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.engine.column.ColumnResult;
@@ -80,7 +81,7 @@ public record MidOceanRidge(MantleSource source, double potentialTemperature, do
         /** Defensive copies. */
         public Result {
             models = List.copyOf(models);
-            assumptions = List.copyOf(assumptions);
+            assumptions = DeferredList.copyOf(assumptions);
             warnings = List.copyOf(warnings);
         }
     }
@@ -91,7 +92,6 @@ public record MidOceanRidge(MantleSource source, double potentialTemperature, do
         ColumnResult c = source.column(potentialTemperature, bulkWater)
                 .withUpwelling(Upwelling.PASSIVE).withLidDepth(lid).withOutputStep(PROFILE_STEP).solve();
         double crust = c.crustalThickness();
-        List<String> assumptions = new ArrayList<>(c.assumptions());
         List<ModelInfo> models = new ArrayList<>(c.models());
         List<String> warnings = new ArrayList<>(c.warnings());
         double mmPerYr = Units.mPerSToMmPerYr(fullSpreadingRate);
@@ -99,18 +99,25 @@ public record MidOceanRidge(MantleSource source, double potentialTemperature, do
         if (lid > 0) {
             model = SlowSpreadingConductiveLid.INFO.id();
             models.add(SlowSpreadingConductiveLid.INFO);
-            assumptions.add("ridge: passive triangular melting region; " + cooling.describe(fullSpreadingRate, lid)
-                    + "; melt production = crustal thickness × full spreading rate");
             warnings.add(String.format(Locale.ROOT, "full spreading rate %.1f mm/yr is below %.0f mm/yr: conductive "
                     + "cooling thins the crust, modelled as a %.1f km lid on the melting column (Bown & White 1994 "
                     + "effect, parameterized here); crust at slow and ultraslow ridges is variable (Dick et al. 2003)",
                     mmPerYr, SLOW_SPREADING_MM_PER_YR, lid / 1e3));
         } else {
             model = "infinite-stretching";
-            assumptions.add("ridge: passive triangular melting region up to the sea floor (the infinite-stretching "
-                    + "limit of White & McKenzie 1989); melt production = crustal thickness × full spreading rate; "
-                    + "at this rate conductive cooling from above does not thin the crust (Bown & White 1994)");
         }
+        // the text is built when read (an answer reads it, a run's point does not)
+        List<String> assumptions = DeferredList.of(() -> {
+            List<String> a = new ArrayList<>(c.assumptions());
+            a.add(lid > 0
+                    ? "ridge: passive triangular melting region; " + cooling.describe(fullSpreadingRate, lid)
+                            + "; melt production = crustal thickness × full spreading rate"
+                    : "ridge: passive triangular melting region up to the sea floor (the infinite-stretching "
+                            + "limit of White & McKenzie 1989); melt production = crustal thickness × full spreading "
+                            + "rate; at this rate conductive cooling from above does not thin the crust (Bown & White "
+                            + "1994)");
+            return a;
+        });
         return new Result(c, crust, crust * fullSpreadingRate, models, assumptions, warnings, lid, model);
     }
 }

@@ -17,12 +17,11 @@ import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
 import org.tectomelt.operations.Output;
 import org.tectomelt.operations.Violation;
+import org.tectomelt.runs.sweep.Sweep;
 import org.tectomelt.studies.Distribution;
 import org.tectomelt.studies.FieldRange;
 import org.tectomelt.studies.InputProblem;
 import org.tectomelt.studies.Observation;
-import org.tectomelt.studies.PosteriorInversion;
-import org.tectomelt.studies.SamplingInversion;
 import org.tectomelt.studies.StudyException;
 import org.tectomelt.studies.UncertainInputs;
 
@@ -54,20 +53,11 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
     /** The run body's fields that carry a study. */
     public static final List<String> FIELDS = List.of("uncertainty", "solve", "observed");
 
-    /** Most samples of one study (per sweep point). */
-    public static final int MAX_SAMPLES = 100_000;
-    /** Samples unless asked otherwise. */
-    public static final int DEFAULT_SAMPLES = 1000;
-    /** Most grid points of a posterior. */
-    public static final int MAX_GRID_POINTS = 2000;
-    /** Grid points of a posterior unless asked otherwise. */
-    public static final int DEFAULT_GRID_POINTS = 200;
-    /** Most scan points of a sampling inversion. */
-    public static final int MAX_SCAN_POINTS = 200;
-    /** Most model evaluations of a posterior (grid points × nuisance samples) per sweep point. */
+    /**
+     * Most model evaluations of a posterior (grid points × nuisance samples) per sweep point: a rule
+     * across two fields, which the spec states in words.
+     */
     public static final long MAX_POSTERIOR_EVALUATIONS = 2_000_000;
-    /** The two inversion methods. */
-    public static final List<String> METHODS = List.of("posterior", "sampling");
 
     private static final Map<String, List<String>> FAMILIES = Map.of(
             "normal", List.of("mean", "sd"),
@@ -136,9 +126,14 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
     }
 
     /**
-     * Reads the study parts of a run body; an absent part is null. With {@code op} null (the run
-     * names no known operation) only the JSON shapes are checked, so that every wrong field is
-     * still named, and the violations are thrown.
+     * Reads the study parts of a run body; an absent part is null. The parts are those the spec's
+     * {@code RunRequest} schema accepted (their fields, types, ranges and the method's name are
+     * its rules); the spec's defaults ({@code samples}, {@code method}, {@code gridPoints},
+     * {@code scanPoints}) are filled into a copy, also for a run stored by an earlier build. What
+     * the spec cannot say is checked here: which inputs take a distribution or may be solved, the
+     * distributions, the solved interval inside the field's range, the observations, and the
+     * posterior's evaluations. With {@code op} null (the run names no known operation) only the
+     * shapes are checked, so that every wrong field is still named, and the violations are thrown.
      */
     public static StudyRequest parse(ObjectNode body, Operation<?, ?> op, Invoker invoker) {
         List<Violation> v = new ArrayList<>();
@@ -149,25 +144,33 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
             sampleable.keySet().forEach(f -> ranges.put(f, range(invoker.spec(), op, f)));
         }
         boolean known = op != null;
+        ObjectNode parts = body.objectNode();
+        for (String f : FIELDS) {
+            if (body.hasNonNull(f)) {
+                parts.set(f, body.get(f).deepCopy());
+            }
+        }
+        if (parts.has("solve") && !parts.has("uncertainty")) {
+            parts.putObject("uncertainty"); // an inversion without uncertain inputs: its draws still need samples and a seed
+        }
+        invoker.spec().fillDefaults(Sweep.SPEC_PATH, parts);
 
+        // a part of the wrong JSON type, or a member missing or of the wrong type, the spec has named
         Uncertainty uncertainty = null;
-        JsonNode u = body.get("uncertainty");
-        if (u != null && !u.isNull()) {
-            uncertainty = uncertainty(u, known ? sampleable : null, ranges, v, body.has("solve"));
+        if (parts.get("uncertainty") instanceof ObjectNode u) {
+            uncertainty = uncertainty(u, known ? sampleable : null, ranges, v, parts.has("solve"));
         }
         Solve solve = null;
-        JsonNode s = body.get("solve");
-        if (s != null && !s.isNull()) {
-            solve = solve(s, known ? sampleable : null, ranges, v);
+        if (parts.get("solve") instanceof ObjectNode so) {
+            solve = solve(so, known ? sampleable : null, ranges, v);
         }
         Map<String, Observation> observed = new LinkedHashMap<>();
-        JsonNode o = body.get("observed");
-        if (o != null && !o.isNull()) {
-            observed(o, op, observed, v);
-            if (s == null || s.isNull()) {
+        if (parts.has("observed")) {
+            observed(parts.get("observed"), op, observed, v);
+            if (!parts.has("solve")) {
                 v.add(new Violation("observed", "goes with solve: name the field to solve for"));
             }
-        } else if (s != null && !s.isNull()) {
+        } else if (parts.has("solve")) {
             v.add(new Violation("observed", "is required with solve: {\"<output>\": {\"value\": ..., \"sd\": ...}}"));
         }
         if (solve != null && "sampling".equals(solve.method()) && observed.size() > 1) {
@@ -192,23 +195,10 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         if (!known) {
             throw new OperationException("operation", "is required to read a study: the name of an operation");
         }
-        ObjectNode definition = body.objectNode();
-        for (String f : FIELDS) {
-            JsonNode part = body.get(f);
-            if (part != null && !part.isNull()) {
-                definition.set(f, part.deepCopy());
-            }
-        }
-        if (uncertainty == null && solve != null) {
-            // an inversion without uncertain inputs: its draws of the observation still need a seed
-            uncertainty = new Uncertainty(DEFAULT_SAMPLES, ThreadLocalRandom.current().nextLong(0, 1L << 53),
-                    UncertainInputs.none());
-            definition.putObject("uncertainty");
-        }
         if (uncertainty != null) {
-            ((ObjectNode) definition.get("uncertainty")).put("seed", uncertainty.seed());
+            ((ObjectNode) parts.get("uncertainty")).put("seed", uncertainty.seed());
         }
-        return new StudyRequest(uncertainty, solve, observed, definition);
+        return new StudyRequest(uncertainty, solve, observed, parts);
     }
 
     /** The spec's range of a request field. */
@@ -217,20 +207,15 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
                 .orElse(FieldRange.unbounded());
     }
 
-    private static Uncertainty uncertainty(JsonNode u, Map<String, Input> sampleable, Map<String, FieldRange> ranges,
+    private static Uncertainty uncertainty(ObjectNode obj, Map<String, Input> sampleable, Map<String, FieldRange> ranges,
                                            List<Violation> v, boolean withSolve) {
-        if (!(u instanceof ObjectNode obj)) {
-            v.add(new Violation("uncertainty", "must be an object {samples, seed, inputs}"));
-            return null;
-        }
-        unknown(obj, "uncertainty", Set.of("samples", "seed", "inputs"), v);
-        int samples = integer(obj.get("samples"), "uncertainty.samples", DEFAULT_SAMPLES, 1, MAX_SAMPLES, v);
+        int samples = obj.path("samples").asInt();
         long seed;
         JsonNode seedNode = obj.get("seed");
         if (seedNode == null || seedNode.isNull()) {
             seed = ThreadLocalRandom.current().nextLong(0, 1L << 53); // exact in JSON numbers; reported
-        } else if (!seedNode.isIntegralNumber() || !seedNode.canConvertToLong()) {
-            v.add(new Violation("uncertainty.seed", "must be an integer"));
+        } else if (!seedNode.canConvertToLong()) {
+            v.add(new Violation("uncertainty.seed", "must be a 64-bit integer, got " + seedNode));
             seed = 0;
         } else {
             seed = seedNode.asLong();
@@ -317,37 +302,19 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
         };
     }
 
-    private static Solve solve(JsonNode s, Map<String, Input> sampleable, Map<String, FieldRange> ranges,
+    private static Solve solve(ObjectNode o, Map<String, Input> sampleable, Map<String, FieldRange> ranges,
                                List<Violation> v) {
-        if (!(s instanceof ObjectNode o)) {
-            v.add(new Violation("solve", "must be an object {field, min, max, method}"));
-            return null;
+        String field = o.path("field").isTextual() ? o.get("field").asText() : null;
+        if (field != null && sampleable != null && !sampleable.containsKey(field)) {
+            v.add(new Violation("solve.field", "must name an input to solve for, one of " + sampleable.keySet()));
+            field = null;
         }
-        unknown(o, "solve", Set.of("field", "min", "max", "method", "gridPoints", "scanPoints"), v);
-        JsonNode f = o.get("field");
-        String field = null;
-        if (f == null || !f.isTextual() || sampleable != null && !sampleable.containsKey(f.asText())) {
-            v.add(new Violation("solve.field", "must name an input to solve for"
-                    + (sampleable == null ? "" : ", one of " + sampleable.keySet())));
-        } else {
-            field = f.asText();
-        }
-        Double min = number(o.get("min"), "solve.min", v);
-        Double max = number(o.get("max"), "solve.max", v);
-        String method = "posterior";
-        JsonNode m = o.get("method");
-        if (m != null && !m.isNull()) {
-            if (!m.isTextual() || !METHODS.contains(m.asText())) {
-                v.add(new Violation("solve.method", "must be one of " + METHODS));
-            } else {
-                method = m.asText();
-            }
-        }
-        int grid = integer(o.get("gridPoints"), "solve.gridPoints", DEFAULT_GRID_POINTS,
-                PosteriorInversion.MIN_GRID_POINTS, MAX_GRID_POINTS, v);
-        int scan = integer(o.get("scanPoints"), "solve.scanPoints", SamplingInversion.DEFAULT_SCAN_POINTS,
-                SamplingInversion.MIN_SCAN_POINTS, MAX_SCAN_POINTS, v);
-        if (field == null || min == null || max == null || sampleable == null) {
+        double min = o.path("min").doubleValue();
+        double max = o.path("max").doubleValue();
+        String method = o.path("method").asText();
+        int grid = o.path("gridPoints").asInt();
+        int scan = o.path("scanPoints").asInt();
+        if (field == null || !o.path("min").isNumber() || !o.path("max").isNumber() || sampleable == null) {
             return null;
         }
         FieldRange range = ranges.get(field);
@@ -418,17 +385,6 @@ public record StudyRequest(Uncertainty uncertainty, Solve solve, Map<String, Obs
             return null;
         }
         return n.doubleValue();
-    }
-
-    private static int integer(JsonNode n, String path, int dflt, int min, int max, List<Violation> v) {
-        if (n == null || n.isNull()) {
-            return dflt;
-        }
-        if (!n.isIntegralNumber() || !n.canConvertToInt() || n.asInt() < min || n.asInt() > max) {
-            v.add(new Violation(path, "must be an integer between " + min + " and " + max + ", got " + n));
-            return dflt;
-        }
-        return n.asInt();
     }
 
     private static void add(List<InputProblem> problems, List<Violation> v) {

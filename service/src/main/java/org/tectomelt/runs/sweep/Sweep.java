@@ -15,6 +15,8 @@ import java.util.Set;
 import java.util.TreeSet;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
+import org.tectomelt.contract.SpecContract;
+import org.tectomelt.operations.Cap;
 import org.tectomelt.operations.Input;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
@@ -44,13 +46,13 @@ import org.tectomelt.runs.study.StudyRun;
 public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<String, List<Double>> axes,
                     List<String> outputs, String label, ObjectNode study, int blocks) {
 
-    /** Longest label. */
-    public static final int MAX_LABEL = 200;
     /** Kind of run this describes. */
     public static final String KIND = "sweep";
+    /** The path whose request schema in the spec ({@code RunRequest}) is the body of a run. */
+    public static final String SPEC_PATH = "/v1/runs";
+    /** The server cap on the points of a run, which also caps each axis. */
+    private static final String CAP_VARIABLE = "TECTOMELT_MAX_RUN_POINTS";
 
-    private static final Set<String> TOP = Set.of("operation", "request", "sweep", "outputs", "label", "uncertainty",
-            "solve", "observed");
     private static final MathContext TWELVE = new MathContext(12);
 
     /** Number of points. */
@@ -139,12 +141,18 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
     }
 
     /**
-     * Reads and checks the body of {@code POST /v1/runs}: the operation, the axes (each a swept,
-     * sweepable field with {@code values} or {@code from}/{@code to}/{@code steps}), the outputs,
-     * the size against {@code maxPoints}, and then every point against the spec, through the same
-     * contract the operation's own route uses. Every problem is reported at once, naming the field
-     * ({@code sweep.potentialTemperatureC}, {@code outputs[1]}) and, for a sweep leaving a field's
-     * range, the offending values.
+     * Reads and checks the body of {@code POST /v1/runs}. The spec's {@code RunRequest} schema is
+     * checked first, through the same contract the operations' routes use: the fields and their
+     * types, the axes' shapes and {@code steps}, the label's length, the study's {@code samples},
+     * {@code gridPoints}, {@code scanPoints} and {@code method}, with the spec's defaults filled in
+     * (the longest axis is the server cap {@code maxPoints} instead of the spec's documented
+     * default). Then what the spec cannot say: the operation and its sweepable fields and outputs,
+     * {@code values} or {@code from}/{@code to}/{@code steps}, {@code from} below {@code to}, the
+     * size against {@code maxPoints}, and every point against the operation's own request schema.
+     * Every problem is reported at once, naming the field ({@code sweep.potentialTemperatureC},
+     * {@code outputs[1]}) and, for a sweep leaving a field's range, the offending values; a part
+     * whose shape the spec refused is not read further, and a field named by the spec is not named
+     * again.
      *
      * @throws OperationException listing every violation
      */
@@ -152,49 +160,32 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         if (!(body instanceof ObjectNode b)) {
             throw new OperationException("(body)", "must be a JSON object with operation, request, sweep and outputs");
         }
-        List<Violation> v = new ArrayList<>();
-        for (Iterator<String> it = b.fieldNames(); it.hasNext(); ) {
-            String f = it.next();
-            if (!TOP.contains(f)) {
-                v.add(new Violation(f, "is not a field of a run; fields: operation, request, sweep, outputs, label"));
-            }
+        List<Violation> v = new ArrayList<>(invoker.spec().check(SPEC_PATH, b, axisCaps(b, maxPoints)));
+        if (v.stream().anyMatch(x -> SpecContract.BEYOND_DOUBLE.equals(x.message()))) {
+            throw new OperationException(v); // the schema was not applied: nothing else can be read safely
         }
-        JsonNode opNode = b.get("operation");
+        Set<String> refused = new java.util.HashSet<>();
+        v.forEach(x -> refused.add(x.field().split("[.\\[]", 2)[0]));
         Operation<?, ?> op = null;
         List<String> known = invoker.operations().list().stream().map(Operation::name).toList();
-        if (opNode == null || !opNode.isTextual()) {
-            v.add(new Violation("operation", "is required: the name of an operation, one of " + known));
-        } else {
-            op = invoker.operations().named(opNode.asText()).orElse(null);
+        if (!refused.contains("operation")) {
+            String name = b.get("operation").asText();
+            op = invoker.operations().named(name).orElse(null);
             if (op == null) {
-                v.add(new Violation("operation", "names no operation: '" + opNode.asText() + "'; known: " + known));
+                v.add(new Violation("operation", "names no operation: '" + name + "'; known: " + known));
             } else if (op.outputs().isEmpty()) {
                 v.add(new Violation("operation", op.name() + " has no scalar output a run could keep; operations with "
                         + "outputs: " + invoker.operations().list().stream().filter(o -> !o.outputs().isEmpty())
                         .map(Operation::name).toList()));
                 op = null;
             }
+        } else if (b.get("operation") == null) {
+            v.removeIf(x -> x.field().equals("operation"));
+            v.add(new Violation("operation", "is required: the name of an operation, one of " + known));
         }
-        JsonNode reqNode = b.get("request");
-        ObjectNode request;
-        if (reqNode == null || reqNode.isNull()) {
-            request = Json.mapper().createObjectNode();
-        } else if (reqNode instanceof ObjectNode o) {
-            request = o;
-        } else {
-            v.add(new Violation("request", "must be a JSON object: the operation's usual request body"));
-            request = Json.mapper().createObjectNode();
-        }
-        String label = null;
-        JsonNode labelNode = b.get("label");
-        if (labelNode != null && !labelNode.isNull()) {
-            if (!labelNode.isTextual() || labelNode.asText().length() > MAX_LABEL) {
-                v.add(new Violation("label", "must be a string of at most " + MAX_LABEL + " characters"));
-            } else {
-                label = labelNode.asText();
-            }
-        }
-        boolean withStudy = StudyRequest.FIELDS.stream().anyMatch(f -> b.get(f) != null && !b.get(f).isNull());
+        ObjectNode request = b.get("request") instanceof ObjectNode o ? o : Json.mapper().createObjectNode();
+        String label = b.hasNonNull("label") && !refused.contains("label") ? b.get("label").asText() : null;
+        boolean withStudy = StudyRequest.FIELDS.stream().anyMatch(b::hasNonNull);
         StudyRequest study = null;
         if (withStudy) {
             try {
@@ -206,16 +197,18 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         }
         JsonNode sweepNode = b.get("sweep");
         Map<String, List<Double>> axes = new LinkedHashMap<>();
-        if (withStudy && (sweepNode == null || sweepNode.isNull())) {
+        if (withStudy && sweepNode == null) {
             sweepNode = Json.mapper().createObjectNode(); // one study at the request itself
-        } else if (!(sweepNode instanceof ObjectNode sweep) || sweepNode.isEmpty()) {
+        } else if (sweepNode == null) {
             v.add(new Violation("sweep", "is required: an object of at least one swept field, each "
                     + "{\"values\": [...]} or {\"from\": a, \"to\": b, \"steps\": n}"));
+            sweepNode = Json.mapper().createObjectNode();
+        } else if (!(sweepNode instanceof ObjectNode) || v.stream().anyMatch(x -> x.field().equals("sweep"))) {
             sweepNode = Json.mapper().createObjectNode();
         } else if (op != null) {
             Set<String> sweepable = new LinkedHashSet<>();
             op.inputs().stream().map(Input::name).forEach(sweepable::add);
-            for (Iterator<Map.Entry<String, JsonNode>> it = sweep.fields(); it.hasNext(); ) {
+            for (Iterator<Map.Entry<String, JsonNode>> it = sweepNode.fields(); it.hasNext(); ) {
                 Map.Entry<String, JsonNode> e = it.next();
                 String field = "sweep." + e.getKey();
                 if (!sweepable.contains(e.getKey())) {
@@ -224,7 +217,10 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
                             : "is not a field of " + op.name()) + "; sweepable fields: " + sweepable));
                     continue;
                 }
-                List<Double> values = axis(field, e.getValue(), maxPoints, v);
+                if (v.stream().anyMatch(x -> x.field().equals(field) || x.field().startsWith(field + "."))) {
+                    continue; // the spec refused this axis's shape
+                }
+                List<Double> values = axis(field, (ObjectNode) e.getValue(), v);
                 if (values != null) {
                     axes.put(e.getKey(), values);
                 }
@@ -240,9 +236,13 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
             }
         }
         List<String> outputs = new ArrayList<>();
-        outputs(op, b.get("outputs"), outputs, v);
+        if (!refused.contains("outputs")) {
+            outputs(op, b.get("outputs"), outputs, v);
+        }
         if (!v.isEmpty()) {
-            throw new OperationException(v);
+            Map<String, Violation> first = new LinkedHashMap<>(); // the spec's word on a field comes first
+            v.forEach(x -> first.putIfAbsent(x.field(), x));
+            throw new OperationException(List.copyOf(first.values()));
         }
         int blocks = study == null ? 1 : new StudyRun(invoker, op, study, outputs).blocks();
         long total = blocks;
@@ -341,7 +341,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
             "dependencies", "dependentRequired", "dependentSchemas", "patternProperties");
 
     /** True when no rule of the request schema of {@code POST path} ties one field to another. */
-    static boolean fieldsIndependent(org.tectomelt.contract.SpecContract spec, String path) {
+    static boolean fieldsIndependent(SpecContract spec, String path) {
         JsonNode doc = spec.document();
         JsonNode root = doc.at("/paths/" + path.replace("~", "~0").replace("/", "~1")
                 + "/post/requestBody/content/application~1json/schema");
@@ -380,70 +380,41 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         return true;
     }
 
-    private static List<Double> axis(String field, JsonNode a, int maxPoints, List<Violation> v) {
-        if (!(a instanceof ObjectNode o)) {
-            v.add(new Violation(field, "must be {\"values\": [...]} or {\"from\": a, \"to\": b, \"steps\": n}"));
-            return null;
+    /** Each axis's {@code values} and {@code steps} are held to the run's cap instead of the spec's default. */
+    private static List<Cap> axisCaps(ObjectNode body, int maxPoints) {
+        List<Cap> caps = new ArrayList<>();
+        if (body.get("sweep") instanceof ObjectNode sweep) {
+            sweep.fieldNames().forEachRemaining(f -> {
+                caps.add(new Cap("sweep." + f + ".values", maxPoints, CAP_VARIABLE));
+                caps.add(new Cap("sweep." + f + ".steps", maxPoints, CAP_VARIABLE));
+            });
         }
-        for (Iterator<String> it = o.fieldNames(); it.hasNext(); ) {
-            String k = it.next();
-            if (!Set.of("values", "from", "to", "steps").contains(k)) {
-                v.add(new Violation(field + "." + k, "is not part of an axis; use values, or from, to and steps"));
-                return null;
-            }
-        }
+        return caps;
+    }
+
+    /** The values of an axis the spec's {@code SweepAxis} accepted: its list, or {@code steps} from {@code from} to {@code to}. */
+    private static List<Double> axis(String field, ObjectNode o, List<Violation> v) {
         if (o.has("values")) {
             if (o.has("from") || o.has("to") || o.has("steps")) {
                 v.add(new Violation(field, "give either values or from, to and steps, not both"));
                 return null;
             }
-            JsonNode vals = o.get("values");
-            if (!vals.isArray() || vals.isEmpty() || vals.size() > maxPoints) {
-                v.add(new Violation(field + ".values", "must be a list of 1 to " + maxPoints
-                        + " numbers (server cap TECTOMELT_MAX_RUN_POINTS)"));
-                return null;
-            }
             List<Double> out = new ArrayList<>();
-            for (int i = 0; i < vals.size(); i++) {
-                JsonNode x = vals.get(i);
-                if (!x.isNumber() || !Double.isFinite(x.doubleValue())) {
-                    v.add(new Violation(field + ".values[" + i + "]", "must be a finite number"));
-                    return null;
-                }
-                out.add(x.doubleValue());
-            }
+            o.get("values").forEach(x -> out.add(x.doubleValue()));
             return List.copyOf(out);
         }
-        JsonNode from = o.get("from");
-        JsonNode to = o.get("to");
-        JsonNode steps = o.get("steps");
-        if (from == null || to == null || steps == null) {
+        if (!(o.has("from") && o.has("to") && o.has("steps"))) {
             v.add(new Violation(field, "needs from, to and steps (or a list of values)"));
             return null;
         }
-        boolean ok = true;
-        for (Map.Entry<String, JsonNode> e : Map.of("from", from, "to", to).entrySet()) {
-            if (!e.getValue().isNumber() || !Double.isFinite(e.getValue().doubleValue())) {
-                v.add(new Violation(field + "." + e.getKey(), "must be a finite number"));
-                ok = false;
-            }
-        }
-        if (!steps.isIntegralNumber() || steps.asLong() < 2 || steps.asLong() > maxPoints) {
-            v.add(new Violation(field + ".steps", "must be an integer between 2 and " + maxPoints
-                    + " (server cap TECTOMELT_MAX_RUN_POINTS), got " + steps));
-            ok = false;
-        }
-        if (!ok) {
-            return null;
-        }
-        double a0 = from.doubleValue();
-        double a1 = to.doubleValue();
+        double a0 = o.get("from").doubleValue();
+        double a1 = o.get("to").doubleValue();
         if (!(a0 < a1)) {
             v.add(new Violation(field, "from must be below to (got from " + format(a0) + ", to " + format(a1)
                     + "); for a descending or uneven axis list the values"));
             return null;
         }
-        int n = steps.asInt();
+        int n = o.get("steps").asInt();
         List<Double> out = new ArrayList<>(n);
         for (int k = 0; k < n; k++) {
             double x = k == n - 1 ? a1 : a0 + (a1 - a0) * k / (n - 1);
@@ -452,31 +423,25 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         return List.copyOf(out);
     }
 
-    /** Checks the output names ({@code op} null: the operation is unknown, only the JSON types are checked). */
+    /** Checks the output names the spec accepted as a list of strings ({@code op} null: the operation is unknown). */
     private static void outputs(Operation<?, ?> op, JsonNode node, List<String> out, List<Violation> v) {
         List<String> names = op == null ? List.of() : op.outputs().stream().map(Output::name).toList();
-        if (node == null || node.isNull()) {
+        if (node == null) {
             out.addAll(names);
             return;
         }
-        if (!node.isArray() || node.isEmpty()) {
-            v.add(new Violation("outputs", "must be a non-empty list of output names"
-                    + (op == null ? "" : "; " + op.name() + " offers " + names)));
+        if (op == null) {
             return;
         }
         for (int i = 0; i < node.size(); i++) {
-            JsonNode x = node.get(i);
-            if (!x.isTextual()) {
-                v.add(new Violation("outputs[" + i + "]", "must be a string: the name of an output"));
-            } else if (op == null) {
-                continue;
-            } else if (!names.contains(x.asText())) {
-                v.add(new Violation("outputs[" + i + "]", "names no output of " + op.name() + ": " + x + "; outputs: "
-                        + names));
-            } else if (out.contains(x.asText())) {
-                v.add(new Violation("outputs[" + i + "]", "repeats " + x));
+            String x = node.get(i).asText();
+            if (!names.contains(x)) {
+                v.add(new Violation("outputs[" + i + "]", "names no output of " + op.name() + ": \"" + x
+                        + "\"; outputs: " + names));
+            } else if (out.contains(x)) {
+                v.add(new Violation("outputs[" + i + "]", "repeats \"" + x + "\""));
             } else {
-                out.add(x.asText());
+                out.add(x);
             }
         }
     }

@@ -1,9 +1,12 @@
 package org.tectomelt.engine.settings;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.tectomelt.engine.DeferredList;
 import org.tectomelt.engine.column.ColumnResult;
 import org.tectomelt.engine.column.DecompressionColumn;
 import org.tectomelt.engine.column.Upwelling;
@@ -30,6 +33,34 @@ class DecompressionSettingsTest {
         assertTrue(r.warnings().isEmpty());
         assertTrue(new MidOceanRidge(katz, 1330 + C, 0.0, Units.mmPerYrToMPerS(12)).solve().warnings().stream()
                 .anyMatch(w -> w.contains("conductive cooling")));
+    }
+
+    @Test
+    void theSettingsBuildTheirAssumptionsWhenReadAndStateTheColumnsAndTheirOwn() {
+        MidOceanRidge.Result slow = new MidOceanRidge(katz, 1330 + C, 0.0, Units.mmPerYrToMPerS(12)).solve();
+        MidOceanRidge.Result fast = new MidOceanRidge(katz, 1330 + C, 0.0, Units.mmPerYrToMPerS(60)).solve();
+        Hotspot.Result plume = new Hotspot(katz, 1550 + C, 1350 + C, 70e3, 60e3, Units.cmPerYrToMPerS(8), 0.0).solve();
+        ContinentalRift.Result rift = new ContinentalRift(katz, 1350 + C, 4.0, 120e3, 35e3, 0.0).solve();
+        for (var text : List.of(slow.assumptions(), fast.assumptions(), plume.assumptions(), rift.assumptions())) {
+            assertFalse(((DeferredList<String>) text).isBuilt(), "a setting's text waits until it is read");
+        }
+        assertEquals(concat(slow.column().assumptions(), "ridge: passive triangular melting region; "
+                + SlowSpreadingConductiveLid.standard().describe(Units.mmPerYrToMPerS(12), slow.conductiveLid())
+                + "; melt production = crustal thickness × full spreading rate"), slow.assumptions());
+        assertEquals(fast.column().assumptions().size() + 1, fast.assumptions().size());
+        assertTrue(fast.assumptions().get(fast.assumptions().size() - 1).startsWith(
+                "ridge: passive triangular melting region up to the sea floor"));
+        assertEquals(plume.column().assumptions(), plume.assumptions().subList(0, plume.assumptions().size() - 1));
+        assertTrue(plume.assumptions().get(plume.assumptions().size() - 1).startsWith("hotspot: top-hat plume conduit"));
+        assertEquals(rift.column().assumptions(), rift.assumptions().subList(0, rift.assumptions().size() - 1));
+        assertTrue(rift.assumptions().get(rift.assumptions().size() - 1).startsWith("rift: instantaneous uniform "
+                + "stretching by β = 4.00 (McKenzie 1978)"));
+    }
+
+    private static List<String> concat(List<String> first, String last) {
+        List<String> all = new java.util.ArrayList<>(first);
+        all.add(last);
+        return all;
     }
 
     @Test

@@ -18,6 +18,7 @@ import org.tectomelt.engine.Deadline;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
 import org.tectomelt.operations.Violation;
+import org.tectomelt.runs.sweep.Sweep;
 import org.tectomelt.studies.MonteCarlo;
 import org.tectomelt.studies.Workers;
 
@@ -45,6 +46,13 @@ class StudyRunTest {
 
     private static StudyRequest parse(String body) {
         return StudyRequest.parse(json(body), RIDGE, INVOKER);
+    }
+
+    /** The study parts read as a run body is: the spec's rules first, then the study's own. */
+    private static void parseRun(String parts) {
+        ObjectNode body = json(parts);
+        body.put("operation", RIDGE.name());
+        Sweep.parse(body, INVOKER, 50_000);
     }
 
     private static ObjectNode assembleShuffled(StudyRun run, ObjectNode request) {
@@ -130,7 +138,8 @@ class StudyRunTest {
     void aSeedIsDrawnAndStoredWhenTheRequestGivesNone() {
         StudyRequest s = parse("{\"uncertainty\": {\"inputs\": {\"potentialTemperatureC\": {\"normal\":"
                 + " {\"mean\": 1350, \"sd\": 25}}}}}");
-        assertEquals(StudyRequest.DEFAULT_SAMPLES, s.samples());
+        assertEquals(INVOKER.spec().range(Sweep.SPEC_PATH, "uncertainty.samples").orElseThrow().defaultValue().asInt(),
+                s.samples(), "the spec's default number of samples");
         assertEquals(s.seed(), s.definition().get("uncertainty").get("seed").asLong());
         StudyRequest again = StudyRequest.parse(s.definition(), RIDGE, INVOKER);
         assertEquals(s.seed(), again.seed(), "the stored definition reads back with its seed");
@@ -140,7 +149,7 @@ class StudyRunTest {
 
     @Test
     void everyProblemIsReportedNamingItsField() {
-        OperationException e = assertThrows(OperationException.class, () -> parse("{\"uncertainty\": {"
+        OperationException e = assertThrows(OperationException.class, () -> parseRun("{\"uncertainty\": {"
                 + "\"samples\": 0, \"inputs\": {"
                 + "\"potentialTemperatureC\": {\"normal\": {\"mean\": 1650, \"sd\": 25}},"
                 + "\"bulkWaterWtPct\": {\"gamma\": {\"k\": 2}},"
@@ -155,11 +164,11 @@ class StudyRunTest {
         assertTrue(tp.contains("[1000, 1700]") && tp.contains("truncatedNormal"),
                 "names the spec's range and the truncated form: " + tp);
 
-        OperationException inv = assertThrows(OperationException.class, () -> parse("{\"solve\": {\"field\":"
+        OperationException inv = assertThrows(OperationException.class, () -> parseRun("{\"solve\": {\"field\":"
                 + " \"potentialTemperatureC\", \"min\": 900, \"max\": 1600, \"method\": \"guess\"},"
                 + " \"uncertainty\": {\"inputs\": {\"potentialTemperatureC\": {\"normal\": {\"mean\": 1350, \"sd\": 25}}}}}"));
         assertTrue(fields(inv).containsAll(List.of("solve.min", "solve.method", "observed")), fields(inv).toString());
-        OperationException obs = assertThrows(OperationException.class, () -> parse("{\"observed\": "
+        OperationException obs = assertThrows(OperationException.class, () -> parseRun("{\"observed\": "
                 + "{\"crustThicknessKm\": {\"value\": 7, \"sd\": 0}}}"));
         assertTrue(fields(obs).containsAll(List.of("observed.crustThicknessKm", "observed")), fields(obs).toString());
     }
