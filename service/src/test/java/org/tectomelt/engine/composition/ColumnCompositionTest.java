@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import java.util.function.DoubleUnaryOperator;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.column.ColumnResult;
@@ -38,7 +39,11 @@ class ColumnCompositionTest {
 
     /** A synthetic path from 95 km to the surface with uneven melt increments, F up to 0.25. */
     private static CompositionResult synthetic(ColumnComposition m) {
-        int n = 60;
+        return path(m, 60, s -> 0.25 * s * s * (1.5 - 0.5 * s));
+    }
+
+    /** n points from 95 km to the surface, F a function of the height fraction s (0 at 95 km, 1 at the top). */
+    private static CompositionResult path(ColumnComposition m, int n, DoubleUnaryOperator meltFraction) {
         double[] z = new double[n];
         double[] p = new double[n];
         double[] f = new double[n];
@@ -46,7 +51,7 @@ class ColumnCompositionTest {
             double s = i / (double) (n - 1);
             z[i] = 95e3 * (1 - s);
             p[i] = 3300 * 9.81 * z[i];
-            f[i] = 0.25 * s * s * (1.5 - 0.5 * s);
+            f[i] = meltFraction.applyAsDouble(s);
         }
         return m.along(z, p, f, null);
     }
@@ -85,21 +90,12 @@ class ColumnCompositionTest {
 
     @Test
     void theFirstDropsOfAFractionalMeltKeepTheirDigits() {
-        // F from 3e-8 to 1e-3 in increments of 3e-8 and up: the accumulated melt at the first steps is the share
-        // of the element extracted over F, and a compatible element (Lu in garnet) has lost only ~F/D of it, so
-        // that Q_a − Q_b would leave ~5 digits; the share leaving is taken by e^y − 1 (Shaw 1970, closed form)
-        int n = 40;
-        double[] z = new double[n];
-        double[] p = new double[n];
-        double[] f = new double[n];
-        for (int i = 0; i < n; i++) {
-            double s = i / (double) (n - 1);
-            z[i] = 95e3 * (1 - s);
-            p[i] = 3300 * 9.81 * z[i];
-            f[i] = 1e-3 * s * s * (0.05 + 0.95 * s);
-        }
+        // F from 5e-8 to 1e-3: the accumulated melt at the first steps is the share of the element extracted over
+        // F, and where only a small share ~F/D has left, Q_a − Q_b keeps only the digits of that share; the share
+        // leaving is taken by e^y − 1, and holds Shaw's (1970) closed form to 1e-13
         for (double[] reaction : List.of(MODE, REACTION)) {
-            CompositionResult r = model(fixed(reaction), MeltingMode.FRACTIONAL, 0).along(z, p, f, null);
+            CompositionResult r = path(model(fixed(reaction), MeltingMode.FRACTIONAL, 0), 40,
+                    s -> 1e-3 * s * s * (0.05 + 0.95 * s));
             for (Element e : ALL) {
                 int j = r.indexOf(e);
                 double c0 = CompositionTables.defaultSource().ppm(e);
