@@ -40,6 +40,18 @@ final class QuickBounds {
                 .build();
     }
 
+    /**
+     * The OpenAPI 3.0 dialect with the two bounds and {@code items} ({@link QuickItems}) replaced,
+     * for schemas in {@code document}.
+     */
+    static Dialect openApi30(JsonNode document) {
+        return Dialect.builder(Dialects.getOpenApi30())
+                .keyword(new Bound("minimum", true))
+                .keyword(new Bound("maximum", false))
+                .keyword(new QuickItems(document))
+                .build();
+    }
+
     /** The keyword: builds the library's validator and puts the quick accept in front of it. */
     private record Bound(String name, boolean lower) implements Keyword {
         @Override

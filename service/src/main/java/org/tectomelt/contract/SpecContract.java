@@ -18,6 +18,7 @@ import java.util.Iterator;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import java.util.TreeSet;
 import java.util.concurrent.ConcurrentHashMap;
 import org.tectomelt.operations.Cap;
@@ -66,7 +67,7 @@ public final class SpecContract {
     private SpecContract(JsonNode spec) {
         this.spec = spec;
         String json = spec.toString();
-        this.registry = SchemaRegistry.withDefaultDialect(QuickBounds.openApi30(),
+        this.registry = SchemaRegistry.withDefaultDialect(QuickBounds.openApi30(spec),
                 b -> b.schemas(Map.of(BASE, json)));
     }
 
@@ -334,8 +335,8 @@ public final class SpecContract {
 
     private void applyDefaults(JsonNode schema, JsonNode value) {
         JsonNode s = resolve(schema);
-        if (s == null) {
-            return;
+        if (s == null || !value.isContainerNode() || !defaultsBelow(s)) {
+            return;   // nothing to fill in under this schema (a batch's points, usually): not walked
         }
         if (value instanceof ObjectNode obj) {
             Iterator<Map.Entry<String, JsonNode>> props = s.path("properties").fields();
@@ -356,6 +357,44 @@ public final class SpecContract {
                 applyDefaults(s.get("items"), item);
             }
         }
+    }
+
+    /** A schema node by identity (the spec tree is not changed after loading). */
+    private record Identity(JsonNode node) {
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Identity i && i.node == node;
+        }
+
+        @Override
+        public int hashCode() {
+            return System.identityHashCode(node);
+        }
+    }
+
+    /** Whether a (resolved) schema has a {@code default} in its properties or items, at any depth. */
+    private final Map<Identity, Boolean> defaultsBelow = new ConcurrentHashMap<>();
+
+    private boolean defaultsBelow(JsonNode resolved) {
+        Boolean known = defaultsBelow.get(new Identity(resolved));
+        if (known == null) {
+            known = findDefaults(resolved, java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>()));
+            defaultsBelow.put(new Identity(resolved), known);
+        }
+        return known;
+    }
+
+    private boolean findDefaults(JsonNode s, Set<JsonNode> seen) {
+        if (s == null || !seen.add(s)) {
+            return false;
+        }
+        for (Iterator<JsonNode> it = s.path("properties").elements(); it.hasNext(); ) {
+            JsonNode p = resolve(it.next());
+            if (p != null && (p.has("default") || findDefaults(p, seen))) {
+                return true;
+            }
+        }
+        return s.has("items") && findDefaults(resolve(s.get("items")), seen);
     }
 
     /**

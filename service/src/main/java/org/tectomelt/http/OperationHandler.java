@@ -109,6 +109,13 @@ final class OperationHandler {
             Responses.bytes(ctx, new Responses.Written(Responses.JSON, Provenance.json(result)));
             return;
         }
+        if (!bibtex && csv && fields != null) {
+            byte[] direct = RecordCsv.write(result, rows, fields);   // the same bytes, without a tree of every row
+            if (direct != null) {
+                Responses.bytes(ctx, new Responses.Written(Responses.CSV, direct));
+                return;
+            }
+        }
         ObjectNode tree = Json.mapper().valueToTree(result);
         if (bibtex) {
             Responses.bytes(ctx, new Responses.Written(MetaRoutes.BIBTEX + "; charset=utf-8",
@@ -116,14 +123,48 @@ final class OperationHandler {
             return;
         }
         Provenance.attach(tree);
-        JsonNode list = tree;
-        for (String part : rows.split("\\.")) {
-            list = list.path(part);
+        if (csv) {
+            byte[] table = treeCsv(tree, rows, fields);
+            if (table != null) {
+                Responses.bytes(ctx, new Responses.Written(Responses.CSV, table));
+                return;
+            }
+            Responses.json(ctx, result);
+            return;
         }
+        JsonNode list = rowList(tree, rows);
         if (!(list instanceof ArrayNode array)) {
             Responses.json(ctx, result);
             return;
         }
+        Table t = table(array, rows, fields);
+        ArrayNode kept = Json.mapper().createArrayNode();
+        for (Map<String, JsonNode> row : t.rows()) {
+            ObjectNode o = kept.addObject();
+            for (String c : t.columns()) {
+                JsonNode v = row.get(c);
+                if (v != null) {
+                    o.set(c, v);
+                }
+            }
+        }
+        replace(tree, rows, kept);
+        Responses.json(ctx, tree);
+    }
+
+    /** The rows of a result's tree, flattened, and the columns kept. */
+    private record Table(Set<String> columns, List<Map<String, JsonNode>> rows) {
+    }
+
+    private static JsonNode rowList(JsonNode tree, String rows) {
+        JsonNode list = tree;
+        for (String part : rows.split("\\.")) {
+            list = list.path(part);
+        }
+        return list;
+    }
+
+    private static Table table(ArrayNode array, String rows, List<String> fields) {
         List<Map<String, JsonNode>> table = new ArrayList<>(array.size());
         Set<String> columns = new LinkedHashSet<>();
         for (JsonNode row : array) {
@@ -138,26 +179,24 @@ final class OperationHandler {
                 throw new OperationException(FIELDS, "names no column of " + rows + ": " + unknown + "; columns: "
                         + columns);
             }
-            columns.retainAll(fields);
             columns.clear();
             columns.addAll(fields);
         }
-        if (csv) {
-            Responses.bytes(ctx, new Responses.Written(Responses.CSV, csv(columns, table)));
-            return;
+        return new Table(columns, table);
+    }
+
+    /**
+     * The CSV of the rows of a result's tree (with the {@code fields} kept, or every column), or
+     * null when the result has no such list: the general way, which {@link RecordCsv} matches byte
+     * for byte where it applies.
+     */
+    static byte[] treeCsv(JsonNode tree, String rows, List<String> fields) {
+        JsonNode list = rowList(tree, rows);
+        if (!(list instanceof ArrayNode array)) {
+            return null;
         }
-        ArrayNode kept = Json.mapper().createArrayNode();
-        for (Map<String, JsonNode> row : table) {
-            ObjectNode o = kept.addObject();
-            for (String c : columns) {
-                JsonNode v = row.get(c);
-                if (v != null) {
-                    o.set(c, v);
-                }
-            }
-        }
-        replace(tree, rows, kept);
-        Responses.json(ctx, tree);
+        Table t = table(array, rows, fields);
+        return csv(t.columns(), t.rows());
     }
 
     /** True when the client asks for {@code text/csv} (and does not prefer JSON). */
@@ -243,7 +282,7 @@ final class OperationHandler {
         return sb.toString().getBytes(StandardCharsets.UTF_8);
     }
 
-    private static void cell(String s, StringBuilder sb) {
+    static void cell(String s, StringBuilder sb) {
         if (s.indexOf(',') < 0 && s.indexOf('"') < 0 && s.indexOf('\n') < 0 && s.indexOf('\r') < 0) {
             sb.append(s);
             return;

@@ -79,7 +79,8 @@ final class RequestKey {
     private String compute(Context ctx) {
         StringBuilder sb = new StringBuilder(256);
         sb.append(seed).append('\n').append(ctx.method().name()).append(' ').append(ctx.path()).append('\n');
-        Map<String, List<String>> given = ctx.queryParamMap();
+        String queryString = ctx.queryString();
+        Map<String, List<String>> given = queryString == null || queryString.isEmpty() ? Map.of() : ctx.queryParamMap();
         Map<String, List<String>> query = given.isEmpty() ? given : new TreeMap<>(given);
         for (Map.Entry<String, List<String>> q : query.entrySet()) {
             List<String> values = new ArrayList<>(q.getValue());

@@ -73,6 +73,12 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
     private static final int CPX = Mineral.CLINOPYROXENE.ordinal();
     private static final int N = Mineral.COUNT;
 
+    static {
+        if (N != 5) {
+            throw new ExceptionInInitializerError("the bulk sums are written out for five minerals, not " + N);
+        }
+    }
+
     /** Validates coverage and the retained fraction. */
     public ColumnComposition {
         elements = List.copyOf(elements);
@@ -132,7 +138,8 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         }
         MantleLithology lith = peridotite(column.column());
         boolean declares = n > 0 && (lith.exhaustionMeltFraction(p[0]) < 1.0 || lith.exhaustionMeltFraction(p[n - 1]) < 1.0);
-        return along(z, p, f, declares ? lith::exhaustionMeltFraction : null);
+        // z and p are this call's own arrays: the result keeps them (the public path below copies its arguments)
+        return new Run(n).integrate(z, p, f, declares ? lith::exhaustionMeltFraction : null);
     }
 
     /** The one peridotite a column melts; trace elements are not modelled for a mixed source. */
@@ -161,7 +168,7 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         if (pressure.length != n || meltFraction.length != n) {
             throw new IllegalArgumentException("depth, pressure and melt fraction need the same length");
         }
-        return new Run(n).integrate(depth, pressure, meltFraction, cpxExhaustion);
+        return new Run(n).integrate(depth.clone(), pressure.clone(), meltFraction, cpxExhaustion);
     }
 
     /** Every published model the composition rests on. */
@@ -194,15 +201,13 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
     }
 
     /**
-     * One integration; mutable scratch state. The partition coefficients are held mineral by mineral
-     * ({@code kT[j·ne + e]}), so that the bulk sums Σ xⱼKⱼ of all elements are built one mineral at a
-     * time in short loops over the elements (one weight in a register, no reloads; the order of the
-     * sum per element, and so every result, is that of the plain loop).
+     * One integration; mutable scratch state. The partition coefficients are held element by element
+     * ({@code kE[e·N + j]}), so that a bulk sum Σ xⱼKⱼ is five products in a row per element.
      */
     private final class Run {
         private final int n;
         private final int ne;
-        private final double[] kT;
+        private final double[] kE;
         private final double[] c0;
         /** Mineral masses of the spinel-field [0] and garnet-field [1] residues. */
         private final double[][] m = new double[2][];
@@ -227,12 +232,12 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
         Run(int n) {
             this.n = n;
             this.ne = elements.size();
-            this.kT = new double[N * ne];
+            this.kE = new double[N * ne];
             this.c0 = new double[ne];
             for (int e = 0; e < ne; e++) {
                 double[] row = coefficients.row(elements.get(e));
                 for (int j = 0; j < N; j++) {
-                    kT[j * ne + e] = row[j];
+                    kE[e * N + j] = row[j];
                 }
                 c0[e] = source.ppm(elements.get(e));
             }
@@ -244,11 +249,12 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             extracted = new double[ne];
         }
 
+        /** Integrates along the points; z and p are kept by the result, not copied. */
         CompositionResult integrate(double[] z, double[] p, double[] fCol, DoubleUnaryOperator cpxExhaustion) {
-            double[] values = new double[3 * n * ne];
+            double[] values = new double[2 * n * ne];
+            double[] mixes = new double[n * N];
             double[] fOut = new double[n];
             double[] w = new double[n];
-            double[] cpx = new double[n];
             // past the last point (or step) with any garnet share, the garnet-field residue has weight 0 in every
             // blend: it is no longer melted (the blends, and so the results, are the same)
             int lastGarnet = -1;
@@ -269,10 +275,10 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 }
                 fOut[i] = f;
                 w[i] = mineralogy.garnetFraction(p[i]);
-                cpx[i] = (1 - w[i]) * m[0][CPX] + w[i] * m[1][CPX];
-                output(w[i], values, 3 * i * ne);
+                output(w[i], values, 2 * i * ne);
+                System.arraycopy(mix, 0, mixes, i * N, N);
             }
-            return new CompositionResult(ColumnComposition.this, ne, z.clone(), p.clone(), fOut, w, cpx, values);
+            return new CompositionResult(ColumnComposition.this, ne, kE, z, p, fOut, w, mixes, values);
         }
 
         private double clampFraction(double x) {
@@ -323,27 +329,25 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
         }
 
-        /** Σ weightⱼ·Kⱼ for every element into {@code out}, mineral by mineral (a zero weight adds nothing). */
+        /**
+         * Σ weightⱼ·Kⱼ for every element into {@code out}, the five minerals written out in their order (a sum
+         * of five products per element in one pass; a zero weight adds an exact zero, so each sum is the same as
+         * that of the minerals present alone).
+         */
         private void bulk(double[] weight, double[] out) {
-            boolean first = true;
-            for (int j = 0; j < N; j++) {
-                double wj = weight[j];
-                if (wj != 0.0) {
-                    int o = j * ne;
-                    if (first) {
-                        for (int e = 0; e < ne; e++) {
-                            out[e] = wj * kT[o + e];
-                        }
-                        first = false;
-                    } else {
-                        for (int e = 0; e < ne; e++) {
-                            out[e] += wj * kT[o + e];
-                        }
-                    }
-                }
-            }
-            if (first) {
-                java.util.Arrays.fill(out, 0.0);
+            double w0 = weight[0];
+            double w1 = weight[1];
+            double w2 = weight[2];
+            double w3 = weight[3];
+            double w4 = weight[4];
+            double[] k = kE;
+            for (int e = 0, o = 0; e < ne; e++, o += N) {
+                double s = w0 * k[o];
+                s += w1 * k[o + 1];
+                s += w2 * k[o + 2];
+                s += w3 * k[o + 3];
+                s += w4 * k[o + 4];
+                out[e] = s;
             }
         }
 
@@ -361,9 +365,21 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
                 double pb = bulkP[e];
                 double hb = h / (bulkS[e] + retained);
                 double qa = q[e];
-                double qb = qa * Shaw1970.exp(-hb * scale * Shaw1970.log1pOverX(-(pb + r) * hb));
+                double y = -hb * scale * Shaw1970.log1pOverX(-(pb + r) * hb); // ln(Q_b/Q_a)
+                double qb;
+                double leaving;
+                if (y > -0.5) {
+                    // a small share leaves: by e^y − 1 directly, as Q_a − Q_b would lose its digits (all but about
+                    // five of them at the first steps of a compatible element)
+                    leaving = -qa * Shaw1970.expm1(y);
+                    qb = qa - leaving;
+                } else {
+                    // most of it leaves: Q_b by e^y, so that a nearly stripped residue keeps its digits
+                    qb = qa * Shaw1970.exp(y);
+                    leaving = qa - qb;
+                }
                 q[e] = qb;
-                extracted[e] += qa - qb;
+                extracted[e] += leaving;
             }
         }
 
@@ -431,7 +447,11 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             }
         }
 
-        /** Concentrations at the current state for garnet share {@code w}: instantaneous, accumulated, residue from {@code at}. */
+        /**
+         * Concentrations at the current state for garnet share {@code w}, from {@code at}: the accumulated melt and
+         * the residue of every element. The residue's mineral mix is left in {@code mix}: with it the result
+         * derives the instantaneous melt from the residue (C_L = C_s·(1 − F)/S), so that it need not be stored.
+         */
         private void output(double w, double[] values, int at) {
             solidCapacities(w);
             boolean open = f > phi;
@@ -441,9 +461,8 @@ public record ColumnComposition(List<Element> elements, ElementAbundances source
             for (int e = 0; e < ne; e++) {
                 double s = bulkS[e];
                 double cl = q[e] / (s + retained);
-                values[at + e] = cl;
-                values[at + ne + e] = f > 0 ? (extracted[e] + cl * retained) * perMelt : cl;
-                values[at + 2 * ne + e] = cl * s * perSolid;
+                values[at + e] = f > 0 ? (extracted[e] + cl * retained) * perMelt : cl;
+                values[at + ne + e] = cl * s * perSolid;
             }
         }
     }

@@ -16,23 +16,29 @@ public final class CompositionResult {
     private final double[] pressure;
     private final double[] meltFraction;
     private final double[] garnetFraction;
-    private final double[] cpx;
     private final int ne;
+    /** Partition coefficients element by element, {@code kE[e·N + j]} (as the integration holds them). */
+    private final double[] kE;
+    /** Point by point, the mass of each mineral in the residue per unit source mass, {@code mix[i·N + j]}. */
+    private final double[] mix;
     /**
-     * Point by point, the instantaneous melt, the accumulated melt and the residue of every element:
-     * {@code values[(3i + k)·ne + e]}, k = 0, 1, 2 (one array, written and read in order).
+     * Point by point, the accumulated melt and the residue of every element: {@code values[(2i + k)·ne + e]},
+     * k = 0, 1 (one array, written and read in order). The instantaneous melt is not stored: it is the melt in
+     * equilibrium with the residue, C_L = C_s·(1 − F)/S with the solid's capacity S = Σ mⱼKⱼ of the point's
+     * mix, derived on access (a third less memory written per column).
      */
     private final double[] values;
 
-    CompositionResult(ColumnComposition model, int ne, double[] depth, double[] pressure, double[] meltFraction,
-                      double[] garnetFraction, double[] cpx, double[] values) {
+    CompositionResult(ColumnComposition model, int ne, double[] kE, double[] depth, double[] pressure,
+                      double[] meltFraction, double[] garnetFraction, double[] mix, double[] values) {
         this.model = model;
         this.ne = ne;
+        this.kE = kE;
         this.depth = depth;
         this.pressure = pressure;
         this.meltFraction = meltFraction;
         this.garnetFraction = garnetFraction;
-        this.cpx = cpx;
+        this.mix = mix;
         this.values = values;
     }
 
@@ -74,22 +80,27 @@ public final class CompositionResult {
     /** Mass fraction of clinopyroxene in the solid residue at point {@code i} (0 once exhausted). */
     public double cpxInResidue(int i) {
         double solid = 1 - meltFraction[i];
-        return cpx[i] / solid;
+        return mix[i * Mineral.COUNT + Mineral.CLINOPYROXENE.ordinal()] / solid;
     }
 
     /** Instantaneous melt leaving (or in equilibrium with) the residue at point {@code i} (ppm). */
     public double instantaneousMelt(int i, int element) {
-        return values[3 * i * ne + element];
+        // S = Σ mⱼKⱼ summed as the integration sums it (in mineral order)
+        double s = 0;
+        for (int j = 0, o = i * Mineral.COUNT, k = element * Mineral.COUNT; j < Mineral.COUNT; j++) {
+            s += mix[o + j] * kE[k + j];
+        }
+        return residue(i, element) * (1 - meltFraction[i]) / s;
     }
 
     /** All melt made up to point {@code i}, extracted and retained (ppm); the first drop at F = 0. */
     public double accumulatedMelt(int i, int element) {
-        return values[(3 * i + 1) * ne + element];
+        return values[2 * i * ne + element];
     }
 
     /** Solid residue at point {@code i} (ppm). */
     public double residue(int i, int element) {
-        return values[(3 * i + 2) * ne + element];
+        return values[(2 * i + 1) * ne + element];
     }
 
     /** Index of {@code e} among the elements. */
@@ -120,8 +131,8 @@ public final class CompositionResult {
         int top = size() - 1;
         double[] melt = new double[ne];
         double[] res = new double[ne];
-        System.arraycopy(values, (3 * top + 1) * ne, melt, 0, ne);
-        System.arraycopy(values, (3 * top + 2) * ne, res, 0, ne);
+        System.arraycopy(values, 2 * top * ne, melt, 0, ne);
+        System.arraycopy(values, (2 * top + 1) * ne, res, 0, ne);
         return new Pooled(meltFraction[top], melt, res);
     }
 
@@ -176,7 +187,7 @@ public final class CompositionResult {
             if (a == 0.0 && b == 0.0) {
                 continue;
             }
-            int at = (3 * i + 1) * ne; // accumulated melt of point i; its residue follows
+            int at = 2 * i * ne; // accumulated melt of point i; its residue follows
             for (int e = 0; e < ne; e++) {
                 fc[e] += a * values[at + e];
                 rc[e] += b * values[at + ne + e];

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import java.util.function.DoubleUnaryOperator;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.engine.EngineException;
 import org.tectomelt.engine.column.ColumnResult;
@@ -38,7 +39,11 @@ class ColumnCompositionTest {
 
     /** A synthetic path from 95 km to the surface with uneven melt increments, F up to 0.25. */
     private static CompositionResult synthetic(ColumnComposition m) {
-        int n = 60;
+        return path(m, 60, s -> 0.25 * s * s * (1.5 - 0.5 * s));
+    }
+
+    /** n points from 95 km to the surface, F a function of the height fraction s (0 at 95 km, 1 at the top). */
+    private static CompositionResult path(ColumnComposition m, int n, DoubleUnaryOperator meltFraction) {
         double[] z = new double[n];
         double[] p = new double[n];
         double[] f = new double[n];
@@ -46,7 +51,7 @@ class ColumnCompositionTest {
             double s = i / (double) (n - 1);
             z[i] = 95e3 * (1 - s);
             p[i] = 3300 * 9.81 * z[i];
-            f[i] = 0.25 * s * s * (1.5 - 0.5 * s);
+            f[i] = meltFraction.applyAsDouble(s);
         }
         return m.along(z, p, f, null);
     }
@@ -79,6 +84,28 @@ class ColumnCompositionTest {
                         1e-11 * Shaw1970.accumulatedFractionalMelt(d, f), e + " at F=" + f);
                 assertEquals(Shaw1970.fractionalResidue(d, f), r.residue(i, j) / c0,
                         1e-11 * Shaw1970.fractionalResidue(d, f) + 1e-300, e + " at F=" + f);
+            }
+        }
+    }
+
+    @Test
+    void theFirstDropsOfAFractionalMeltKeepTheirDigits() {
+        // F from 5e-8 to 1e-3: the accumulated melt at the first steps is the share of the element extracted over
+        // F, and where only a small share ~F/D has left, Q_a − Q_b keeps only the digits of that share; the share
+        // leaving is taken by e^y − 1, and holds Shaw's (1970) closed form to 1e-13
+        for (double[] reaction : List.of(MODE, REACTION)) {
+            CompositionResult r = path(model(fixed(reaction), MeltingMode.FRACTIONAL, 0), 40,
+                    s -> 1e-3 * s * s * (0.05 + 0.95 * s));
+            for (Element e : ALL) {
+                int j = r.indexOf(e);
+                double c0 = CompositionTables.defaultSource().ppm(e);
+                double d = d0(e);
+                double pe = sum(reaction, e);
+                for (int i = 1; i < r.size(); i++) {
+                    double fi = r.meltFraction(i);
+                    double acc = Shaw1970.accumulatedFractionalMelt(d, pe, fi);
+                    assertEquals(acc, r.accumulatedMelt(i, j) / c0, 1e-13 * acc, e + " at F=" + fi);
+                }
             }
         }
     }

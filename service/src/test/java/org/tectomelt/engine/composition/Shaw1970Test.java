@@ -111,4 +111,26 @@ class Shaw1970Test {
         }
         assertEquals(Math.exp(-30.0), Shaw1970.exp(-30.0), 0.0);
     }
+
+    @Test
+    void theTableDrivenExponentialHoldsToRoundingAcrossItsTableAndAtTheEdgesOfItsIntervals() {
+        // e^y and e^y − 1 over every interval of the table (k/16 ± 1/32) to |y| = 4.5 and beyond it, within
+        // 2 ulp of Math.exp and Math.expm1; e^y − 1 keeps all its digits for tiny arguments
+        for (int i = -9000; i <= 9000; i++) {
+            double y = i * 5e-4;
+            assertEquals(Math.exp(y), Shaw1970.exp(y), 2 * Math.ulp(Math.exp(y)), "e^" + y);
+            assertEquals(Math.expm1(y), Shaw1970.expm1(y), 2 * Math.ulp(Math.expm1(y)), "e^" + y + " − 1");
+        }
+        for (int k = -64; k <= 64; k++) {
+            for (double y : new double[] {k / 16.0, Math.nextDown(k / 16.0 + 1 / 32.0), k / 16.0 - 1 / 32.0}) {
+                assertEquals(Math.exp(y), Shaw1970.exp(y), 2 * Math.ulp(Math.exp(y)), "e^" + y);
+                assertEquals(Math.expm1(y), Shaw1970.expm1(y), 2 * Math.ulp(Math.expm1(y)), "e^" + y + " − 1");
+            }
+        }
+        for (double y : new double[] {1e-300, -1e-17, 3e-9, -2.5e-6, 1e-3}) {
+            assertEquals(Math.expm1(y), Shaw1970.expm1(y), 2 * Math.ulp(Math.expm1(y)), "e^" + y + " − 1");
+        }
+        assertEquals(0.0, Shaw1970.expm1(0.0), 0.0);
+        assertEquals(Math.expm1(-30.0), Shaw1970.expm1(-30.0), 0.0);
+    }
 }

@@ -1,0 +1,214 @@
+package org.tectomelt.http;
+
+import com.fasterxml.jackson.core.io.NumberOutput;
+import java.lang.invoke.MethodHandle;
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.MethodType;
+import java.lang.reflect.RecordComponent;
+import java.nio.charset.StandardCharsets;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+
+/**
+ * The CSV of a result's rows for the columns a request names ({@code ?fields=}), written straight
+ * from the row records instead of through a JSON tree of every row: the same bytes the tree way
+ * writes ({@link OperationHandler}), at a fraction of its cost for a 10,000-row batch.
+ *
+ * <p>It serves only what it can write exactly as the tree way does, and answers null for the rest,
+ * which then takes the tree way: rows that are plain records (no annotation on the record or its
+ * components, which could rename, hide or keep a null) of numbers, booleans, strings, lists of
+ * strings and nested plain records (flattened with {@code .}, as the tree way does); every named
+ * column a leaf of that record that is not null in at least one row (the tree way words the error
+ * for an unknown column); every double finite. A number is written as the shortest decimal that
+ * reads back as the same double, a list of strings joined with {@code "; "}, cells quoted as RFC
+ * 4180 asks.
+ */
+final class RecordCsv {
+
+    private RecordCsv() {
+    }
+
+    /** A leaf column: the accessors from the row to the value. */
+    private record Leaf(MethodHandle[] chain) {
+    }
+
+    private static final MethodHandles.Lookup LOOKUP = MethodHandles.publicLookup();
+    private static final MethodType OBJECT_TO_OBJECT = MethodType.methodType(Object.class, Object.class);
+
+    /** The leaves of a plain row record by column name, or empty when the record is not plain. */
+    private static final ClassValue<Optional<Map<String, Leaf>>> PLANS = new ClassValue<>() {
+        @Override
+        protected Optional<Map<String, Leaf>> computeValue(Class<?> type) {
+            Map<String, Leaf> leaves = new HashMap<>();
+            return plan(type, "", new MethodHandle[0], leaves, 0) ? Optional.of(leaves) : Optional.empty();
+        }
+    };
+
+    /**
+     * The CSV bytes, or null when this result is not one the direct way writes exactly.
+     *
+     * @param result  the operation's result record
+     * @param rows    the dotted path of its row list ({@code results}, {@code column.profile})
+     * @param columns the column names asked for, in order
+     */
+    static byte[] write(Object result, String rows, List<String> columns) {
+        Object list = result;
+        for (String part : rows.split("\\.")) {
+            list = component(list, part);
+            if (list == null) {
+                return null;
+            }
+        }
+        if (!(list instanceof List<?> table) || table.isEmpty()) {
+            return null;
+        }
+        Class<?> type = table.get(0).getClass();
+        Map<String, Leaf> plan = PLANS.get(type).orElse(null);
+        if (plan == null) {
+            return null;
+        }
+        Leaf[] leaves = new Leaf[columns.size()];
+        for (int c = 0; c < leaves.length; c++) {
+            leaves[c] = plan.get(columns.get(c));
+            if (leaves[c] == null) {
+                return null;
+            }
+        }
+        boolean[] seen = new boolean[leaves.length];
+        StringBuilder sb = new StringBuilder(24 * (table.size() + 1) * Math.max(1, leaves.length));
+        for (int c = 0; c < leaves.length; c++) {
+            sb.append(c == 0 ? "" : ",");
+            OperationHandler.cell(columns.get(c), sb);
+        }
+        sb.append("\r\n");
+        try {
+            for (Object row : table) {
+                if (row == null || row.getClass() != type) {
+                    return null;
+                }
+                for (int c = 0; c < leaves.length; c++) {
+                    if (c > 0) {
+                        sb.append(',');
+                    }
+                    Object v = row;
+                    for (MethodHandle h : leaves[c].chain()) {
+                        v = h.invokeExact(v);
+                        if (v == null) {
+                            break;
+                        }
+                    }
+                    if (v == null) {
+                        continue;
+                    }
+                    seen[c] = true;
+                    if (!append(v, sb)) {
+                        return null;
+                    }
+                }
+                sb.append("\r\n");
+            }
+        } catch (RuntimeException | Error e) {
+            throw e;
+        } catch (Throwable t) {
+            throw new IllegalStateException("reading a row of " + type.getSimpleName(), t);
+        }
+        for (boolean s : seen) {
+            if (!s) {
+                return null;   // a column no row has: the tree way names it as unknown
+            }
+        }
+        return sb.toString().getBytes(StandardCharsets.UTF_8);
+    }
+
+    /** Writes one cell as the tree way does; false for a value it does not write (a non-finite double…). */
+    private static boolean append(Object v, StringBuilder sb) {
+        if (v instanceof Double d) {
+            if (!Double.isFinite(d)) {
+                return false;
+            }
+            sb.append(NumberOutput.toString(d == 0.0 ? 0.0 : d, true));   // -0.0 as 0.0, as every answer writes it
+        } else if (v instanceof Integer || v instanceof Long || v instanceof Boolean) {
+            sb.append(v);
+        } else if (v instanceof String s) {
+            OperationHandler.cell(s, sb);
+        } else if (v instanceof List<?> items) {
+            StringBuilder joined = new StringBuilder();
+            for (Object item : items) {
+                if (!(item instanceof String s)) {
+                    return false;
+                }
+                joined.append(joined.length() == 0 ? "" : "; ").append(s);
+            }
+            OperationHandler.cell(joined.toString(), sb);
+        } else {
+            return false;
+        }
+        return true;
+    }
+
+    /** The value of component {@code name} of a plain record, or null when absent or not a record. */
+    private static Object component(Object o, String name) {
+        if (o == null || !o.getClass().isRecord()) {
+            return null;
+        }
+        for (RecordComponent rc : o.getClass().getRecordComponents()) {
+            if (rc.getName().equals(name)) {
+                if (annotated(o.getClass(), rc)) {
+                    return null;
+                }
+                try {
+                    return rc.getAccessor().invoke(o);
+                } catch (ReflectiveOperationException e) {
+                    return null;
+                }
+            }
+        }
+        return null;
+    }
+
+    /** True when the component, its accessor or its field carries an annotation (Jackson's or the project's). */
+    private static boolean annotated(Class<?> type, RecordComponent rc) {
+        try {
+            return rc.getAnnotations().length > 0 || rc.getAccessor().getAnnotations().length > 0
+                    || type.getDeclaredField(rc.getName()).getAnnotations().length > 0;
+        } catch (NoSuchFieldException e) {
+            return true;
+        }
+    }
+
+    private static boolean plan(Class<?> type, String prefix, MethodHandle[] chain, Map<String, Leaf> out, int depth) {
+        if (!type.isRecord() || type.getAnnotations().length > 0 || depth > 4
+                || !java.lang.reflect.Modifier.isPublic(type.getModifiers())) {
+            return false;
+        }
+        for (RecordComponent rc : type.getRecordComponents()) {
+            if (annotated(type, rc)) {
+                return false;
+            }
+            MethodHandle h;
+            try {
+                h = LOOKUP.unreflect(rc.getAccessor()).asType(OBJECT_TO_OBJECT);
+            } catch (IllegalAccessException e) {
+                return false;
+            }
+            MethodHandle[] next = java.util.Arrays.copyOf(chain, chain.length + 1);
+            next[chain.length] = h;
+            String name = prefix.isEmpty() ? rc.getName() : prefix + "." + rc.getName();
+            Class<?> t = rc.getType();
+            if (t == double.class || t == Double.class || t == int.class || t == Integer.class || t == long.class
+                    || t == Long.class || t == boolean.class || t == Boolean.class || t == String.class
+                    || t == List.class) {
+                out.put(name, new Leaf(next));
+            } else if (t.isRecord()) {
+                if (!plan(t, name, next, out, depth + 1)) {
+                    return false;
+                }
+            } else {
+                return false;
+            }
+        }
+        return true;
+    }
+}
