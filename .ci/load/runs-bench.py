@@ -11,7 +11,9 @@
    it, for reference: each point computed as a run computes it (sweepOf2000Points: the request,
    the operation, the chosen outputs as text; no database), the operation alone on requests bound
    beforehand (columnsOf2000Points), and the engine columns with one thread per core at once (the
-   cores' real joint rate on this machine).
+   cores' real joint rate on this machine). RunSweepCpuTime gives the thread CPU time of the engine's
+   columns (and of a run's per-point path), set beside the service's CPU time per run: the columns'
+   share of the service's CPU is the most a run can reach of the engine rate x cores.
 2. The jar (and, with --compare, a second jar: both on loopback ports, each with a fresh
    embedded database) warmed up for --warmup-s seconds each (default 120; 2,000 individual
    requests, then four runs, and again: a lab server runs warm, and a cold JVM spent as much CPU
@@ -51,13 +53,26 @@ SWEEP = {"operation": "mid-ocean-ridge", "request": {},
 POINTS = [(tp, r) for tp in TPS for r in RATES]
 
 
-def jmh(threads, only=None):
-    """{benchmark method: ms per 2,000-point sweep per thread} with `threads` threads at once."""
+def bench_classpath():
+    """The compiled benchmarks and their dependencies."""
     cp_file = os.path.join(ROOT, "service", "target", "bench-classpath.txt")
     subprocess.run(["mvn", "-B", "-q", "-Pbench", "-pl", "service", "test-compile", "dependency:build-classpath",
                     "-Dmdep.outputFile=" + cp_file, "-Dmdep.includeScope=test"], cwd=ROOT, check=True)
-    cp = ":".join([os.path.join(ROOT, "service", "target", "test-classes"),
-                   os.path.join(ROOT, "service", "target", "classes"), open(cp_file).read().strip()])
+    return ":".join([os.path.join(ROOT, "service", "target", "test-classes"),
+                     os.path.join(ROOT, "service", "target", "classes"), open(cp_file).read().strip()])
+
+
+def cpu_time():
+    """RunSweepCpuTime: (engine columns, run path) thread CPU ms per 2,000 points, medians of the late rounds."""
+    out = subprocess.run(["java", "-cp", bench_classpath(), "org.tectomelt.bench.RunSweepCpuTime", "12"], cwd=ROOT,
+                         check=True, capture_output=True, text=True).stdout
+    m = re.search(r"median of rounds \S+: engine columns ([\d.]+) ms, run path ([\d.]+) ms", out)
+    return float(m.group(1)), float(m.group(2))
+
+
+def jmh(threads, only=None):
+    """{benchmark method: ms per 2,000-point sweep per thread} with `threads` threads at once."""
+    cp = bench_classpath()
     out = os.path.join(ROOT, "service", "target", f"jmh-runsweep-t{threads}.json")
     subprocess.run(["java", "-Djmh.ignoreLock=true", "-cp", cp, "org.openjdk.jmh.Main",
                     "RunSweepBenchmark" + ("." + only if only else ""),
@@ -202,6 +217,7 @@ def main():
             proc.wait(30)
     # the machine's load drifts: the single-core time again after the services, the mean of both used
     jmh1_after = None if a.no_jmh else jmh(1, "engineColumnsOf2000Points")
+    cpu_engine, cpu_path = (None, None) if a.no_jmh else cpu_time()
     n = len(POINTS)
     print(f"machine: {cores} cores, load average {load0:.1f} at the start, {os.getloadavg()[0]:.1f} at the end "
           f"(shared with other work); warm-up {a.warmup_s:.0f} s per jar, {a.rounds} rounds, poll {a.poll_ms:.0f} ms")
@@ -226,6 +242,8 @@ def main():
         col = jmh1["columnsOf2000Points"]
         print(f"  the operation alone on requests bound beforehand, 1 thread: {col:.0f} ms per sweep"
               f" -> {n / (col / 1000):.0f} points/s")
+        print(f"thread CPU time (RunSweepCpuTime, less sensitive to the load): {cpu_engine:.0f} ms per {n} engine "
+              f"columns, {cpu_path:.0f} ms per {n} points on a run's per-point path")
     for name, jar in jars:
         r = res[name]
         s, c, o = statistics.median(r["singles"]), statistics.median(r["client"]), statistics.median(r["own"])
@@ -242,6 +260,10 @@ def main():
         if engine is not None:
             print(f"  run rate / engine rate x cores: {100 * (n / c) / engine:.0f} % end to end, "
                   f"{100 * (n / o) / engine:.0f} % by the run's timestamps (target >= 70 %)")
+        if cpu_engine is not None:
+            share = 100 * cpu_engine / statistics.median(r["cpu"])
+            print(f"  the engine's columns' share of the service's CPU per run: {share:.0f} % (a run cannot reach more "
+                  f"of the engine rate x cores, even on free cores)")
         h = r["health"]
         print(f"  GET /v1/health while runs computed: {len(h)} calls, p50 {1000 * quantile(h, 0.5):.1f} ms, "
               f"p99 {1000 * quantile(h, 0.99):.1f} ms (target < 50 ms)")

@@ -100,11 +100,21 @@ public class RunSweepBenchmark {
     }
 
     /** Point {@code i}'s ridge column, as {@code MidOceanRidge.solve} computes it. */
-    private ColumnResult engineColumn(int i) {
+    ColumnResult engineColumn(int i) {
         MidOceanRidge r = ridges.get(i);
         double lid = r.cooling().lidDepth(r.fullSpreadingRate(), r.potentialTemperature());
         return r.source().column(r.potentialTemperature(), r.bulkWater()).withUpwelling(Upwelling.PASSIVE)
                 .withLidDepth(lid).withOutputStep(MidOceanRidge.PROFILE_STEP).solve();
+    }
+
+    /** Points in the sweep. */
+    int size() {
+        return size;
+    }
+
+    /** Point {@code i} as a run's chunk computes it. */
+    Object runPoint(int i) {
+        return points.evaluate(i);
     }
 
     /** All 2,000 points, one after the other, as a run's chunk computes them. */

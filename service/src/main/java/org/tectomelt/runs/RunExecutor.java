@@ -19,7 +19,6 @@ import java.time.Instant;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.BitSet;
-import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -78,6 +77,11 @@ final class RunExecutor implements AutoCloseable {
     /** What a point cost here (wall time computing it, giving way excluded), per {@link Evaluator#costKey}. */
     private final Map<String, Long> nanosPerPoint = new ConcurrentHashMap<>();
     private volatile String storageProblem;
+    /**
+     * Per active run, the models stored for it already (by this instance's chunks or found stored),
+     * so that a chunk does not record them again: a run's points list the same few models.
+     */
+    private final Map<String, Set<String>> modelsRecorded = new ConcurrentHashMap<>();
 
     RunExecutor(Database db, RunStore store, Evaluator evaluator, RunsConfig config, InteractiveLoad load) {
         this.db = db;
@@ -254,7 +258,7 @@ final class RunExecutor implements AutoCloseable {
         int to = Math.min(from + run.chunkSize(), run.totalPoints());
         BitSet have = store.computed(runId, from, to);
         List<PointResult> batch = new ArrayList<>();
-        Set<String> modelsRecorded = new HashSet<>();
+        Set<String> modelsRecorded = modelsRecordedFor(runId);
         long computing = System.nanoTime();
         long lastSave = computing;
         long saving = 0;
@@ -296,13 +300,21 @@ final class RunExecutor implements AutoCloseable {
         }
     }
 
+    /** The models recorded for {@code runId} as far as this instance knows (shared by its chunks). */
+    private Set<String> modelsRecordedFor(String runId) {
+        if (modelsRecorded.size() > 1_000) {
+            modelsRecorded.clear(); // runs dropped without finishing here (cancelled, taken over): start again
+        }
+        return modelsRecorded.computeIfAbsent(runId, k -> ConcurrentHashMap.newKeySet());
+    }
+
     private static String millis(long nanos) {
         return String.format(java.util.Locale.ROOT, "%.1f", nanos / 1e6);
     }
 
     /**
-     * Records the models of {@code batch} the run lacks ({@code modelsRecorded}: those this chunk
-     * recorded already), then saves and clears the batch; false when the run is no longer active.
+     * Records the models of {@code batch} the run lacks ({@code modelsRecorded}: those this instance
+     * knows are stored), then saves and clears the batch; false when the run is no longer active.
      */
     private boolean save(String runId, List<PointResult> batch, Set<String> modelsRecorded) {
         store.recordModels(runId, batch, modelsRecorded);
@@ -310,6 +322,7 @@ final class RunExecutor implements AutoCloseable {
         long n = batch.size();
         batch.clear();
         if (saved == RunStore.Saved.GONE) {
+            modelsRecorded.remove(runId);
             return false;
         }
         pointsComputed.addAndGet(n);
@@ -317,6 +330,7 @@ final class RunExecutor implements AutoCloseable {
             recent.addLast(new long[] {System.nanoTime(), n});
         }
         if (saved == RunStore.Saved.FINISHED) {
+            modelsRecorded.remove(runId);
             LOG.info("runs: run {} finished", runId);
         }
         return true;

@@ -410,40 +410,49 @@ public final class RunStore {
 
     /**
      * Records the models {@code points} list that this run does not have yet ({@code known}: the
-     * ids this caller already recorded for it, updated). Each model is its own statement outside
-     * any transaction, so a second instance recording the same model at the same moment (the
-     * primary key refuses one of the two) changes nothing and fails nothing. Called before the
-     * points are saved: a stored point's models are always stored.
+     * ids recorded for it already, by this caller or by others sharing the set; an id is added
+     * once its insert has been committed, so a caller skipping it knows it is stored). Each model
+     * is its own statement outside any transaction, so a second writer recording the same model at
+     * the same moment (the primary key refuses one of the two) changes nothing and fails nothing.
+     * Called before the points are saved: a stored point's models are always stored. When every
+     * model is known, no connection is taken.
      */
     void recordModels(String runId, List<PointResult> points, Set<String> known) {
+        Map<String, Object[]> missing = new LinkedHashMap<>();
+        for (PointResult p : points) {
+            for (int k = 0; k < p.models().size(); k++) {
+                ModelInfo m = p.models().get(k);
+                if (!known.contains(m.id())) {
+                    missing.putIfAbsent(m.id(), new Object[] {m, p.index(), k});
+                }
+            }
+        }
+        if (missing.isEmpty()) {
+            return;
+        }
         run(c -> {
             try (PreparedStatement ps = c.prepareStatement("insert into run_models "
                     + "(run_id, model_id, citation, doi, first_point, list_order) select ?, ?, ?, ?, ?, ? "
                     + "where not exists (select 1 from run_models where run_id = ? and model_id = ?)")) {
-                for (PointResult p : points) {
-                    for (int k = 0; k < p.models().size(); k++) {
-                        ModelInfo m = p.models().get(k);
-                        if (!known.add(m.id())) {
-                            continue;
+                for (Object[] first : missing.values()) {
+                    ModelInfo m = (ModelInfo) first[0];
+                    ps.setString(1, runId);
+                    ps.setString(2, m.id());
+                    ps.setString(3, m.citation());
+                    ps.setString(4, m.doi() == null ? "" : m.doi());
+                    ps.setInt(5, (Integer) first[1]);
+                    ps.setInt(6, (Integer) first[2]);
+                    ps.setString(7, runId);
+                    ps.setString(8, m.id());
+                    try {
+                        ps.executeUpdate();
+                    } catch (SQLException e) {
+                        if (!UNIQUE_VIOLATION.equals(e.getSQLState())) {
+                            throw e;
                         }
-                        ps.setString(1, runId);
-                        ps.setString(2, m.id());
-                        ps.setString(3, m.citation());
-                        ps.setString(4, m.doi() == null ? "" : m.doi());
-                        ps.setInt(5, p.index());
-                        ps.setInt(6, k);
-                        ps.setString(7, runId);
-                        ps.setString(8, m.id());
-                        try {
-                            ps.executeUpdate();
-                        } catch (SQLException e) {
-                            if (!UNIQUE_VIOLATION.equals(e.getSQLState())) {
-                                known.remove(m.id());
-                                throw e;
-                            }
-                            // recorded by another instance between the check and the insert
-                        }
+                        // recorded by another instance between the check and the insert
                     }
+                    known.add(m.id());
                 }
             }
             return null;

@@ -307,6 +307,42 @@ class RunServiceTest {
 
     @ParameterizedTest(name = "[{0}]")
     @MethodSource("backends")
+    void modelsTheCallerKnowsAreStoredTakeNoStatementAndTheSetHoldsOnlyStoredOnes(String backend) throws Exception {
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0));
+             Database db = Database.open(Backends.sameDatabase(s.config(), "writers"), 4)) {
+            java.util.concurrent.atomic.AtomicInteger connections = new java.util.concurrent.atomic.AtomicInteger();
+            javax.sql.DataSource counting = (javax.sql.DataSource) java.lang.reflect.Proxy.newProxyInstance(
+                    getClass().getClassLoader(), new Class<?>[] {javax.sql.DataSource.class}, (proxy, m, args) -> {
+                        if (m.getName().equals("getConnection")) {
+                            connections.incrementAndGet();
+                        }
+                        try {
+                            return m.invoke(db.dataSource(), args);
+                        } catch (java.lang.reflect.InvocationTargetException e) {
+                            throw e.getCause();
+                        }
+                    });
+            RunStore store = new RunStore(counting, "test");
+            String id = s.submit(run("ana", 1)).id();
+            List<PointResult> points = List.of(new PointResult(0, "{}", "{}", null, "w", List.of(Shaw1970.INFO)),
+                    new PointResult(1, "{}", "{}", null, "w", List.of(Zou1998DynamicMelting.INFO, Shaw1970.INFO)));
+            java.util.Set<String> known = new java.util.HashSet<>();
+            store.recordModels(id, points, known);
+            assertEquals(1, connections.get(), "one connection for the two new models");
+            assertEquals(java.util.Set.of(Shaw1970.INFO.id(), Zou1998DynamicMelting.INFO.id()), known);
+            store.recordModels(id, points, known);
+            store.recordModels(id, points.subList(1, 2), known);
+            assertEquals(1, connections.get(), "known models: no connection, no statement");
+            assertEquals(List.of(Shaw1970.INFO, Zou1998DynamicMelting.INFO), store.models(List.of(id)).get(id));
+            // a failing insert (no such run: the foreign key refuses it) leaves the id out of the set
+            java.util.Set<String> other = new java.util.HashSet<>();
+            assertThrows(RuntimeException.class, () -> store.recordModels("no-such-run", points, other));
+            assertEquals(java.util.Set.of(), other);
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
     void twoInstancesOnOneDatabaseShareTheChunksOfOneRunAndBothRecordItsModels(String backend) {
         // the embedded file cannot be shared by two processes, but two pools in one JVM can share it
         RunsConfig a = Backends.fresh(backend, dir, "instance-a");
