@@ -17,7 +17,9 @@ import java.util.Set;
 
 /**
  * networknt's {@code items} keyword (OpenAPI 3.0: one schema for every item) with a quick accept in
- * front for a batch of plain points: when the item schema is an object of number fields with bounds
+ * front for a batch of plain points or numbers. A list of numbers whose item schema is a number with
+ * bounds and nothing else (the field keys below) is passed at once when every item is a double or an
+ * int strictly inside the bounds. For points: when the item schema is an object of number fields with bounds
  * and nothing else (its keys among {@code type}, {@code additionalProperties: false},
  * {@code required}, {@code properties}, {@code description}, {@code example}; each field's among
  * {@code type: number}, {@code format}, {@code minimum}, {@code maximum}, OpenAPI 3.0's boolean
@@ -74,6 +76,10 @@ final class QuickItems implements Keyword {
             }
             s = document.at(ref.substring(1));
         }
+        if (s != null && s.isObject() && "number".equals(s.path("type").asText())) {
+            double[] b = bounds(s);
+            return b == null ? null : new Plain(null, null, b);
+        }
         if (s == null || !s.isObject() || !"object".equals(s.path("type").asText())
                 || !s.path("additionalProperties").isBoolean() || s.path("additionalProperties").booleanValue()
                 || !s.path("properties").isObject()) {
@@ -87,22 +93,11 @@ final class QuickItems implements Keyword {
         Map<String, double[]> fields = new HashMap<>();
         for (Iterator<Map.Entry<String, JsonNode>> it = s.get("properties").fields(); it.hasNext(); ) {
             Map.Entry<String, JsonNode> f = it.next();
-            JsonNode p = f.getValue();
-            if (!p.isObject() || !"number".equals(p.path("type").asText())) {
+            double[] b = bounds(f.getValue());
+            if (b == null) {
                 return null;
             }
-            for (Iterator<String> k = p.fieldNames(); k.hasNext(); ) {
-                if (!FIELD_KEYS.contains(k.next())) {
-                    return null;
-                }
-            }
-            if (p.has("minimum") && !p.get("minimum").isNumber() || p.has("maximum") && !p.get("maximum").isNumber()
-                    || p.has("exclusiveMinimum") && !p.get("exclusiveMinimum").isBoolean()
-                    || p.has("exclusiveMaximum") && !p.get("exclusiveMaximum").isBoolean()) {
-                return null;
-            }
-            fields.put(f.getKey(), new double[] {p.has("minimum") ? p.get("minimum").doubleValue() : Double.NaN,
-                    p.has("maximum") ? p.get("maximum").doubleValue() : Double.NaN});
+            fields.put(f.getKey(), b);
         }
         JsonNode required = s.path("required");
         if (!required.isMissingNode() && !required.isArray()) {
@@ -115,19 +110,56 @@ final class QuickItems implements Keyword {
             }
             req.add(r.asText());
         }
-        return new Plain(fields, req);
+        return new Plain(fields, req, null);
+    }
+
+    /** {lower, upper} (NaN: none) of a plain bounded number schema, or null when it is not one. */
+    private static double[] bounds(JsonNode p) {
+        if (!p.isObject() || !"number".equals(p.path("type").asText())) {
+            return null;
+        }
+        for (Iterator<String> k = p.fieldNames(); k.hasNext(); ) {
+            if (!FIELD_KEYS.contains(k.next())) {
+                return null;
+            }
+        }
+        if (p.has("minimum") && !p.get("minimum").isNumber() || p.has("maximum") && !p.get("maximum").isNumber()
+                || p.has("exclusiveMinimum") && !p.get("exclusiveMinimum").isBoolean()
+                || p.has("exclusiveMaximum") && !p.get("exclusiveMaximum").isBoolean()) {
+            return null;
+        }
+        return new double[] {p.has("minimum") ? p.get("minimum").doubleValue() : Double.NaN,
+                p.has("maximum") ? p.get("maximum").doubleValue() : Double.NaN};
+    }
+
+    /** True when {@code v} is a double or an int strictly inside {@code b} (see {@link QuickBounds}). */
+    private static boolean inside(JsonNode v, double[] b) {
+        if (!(v.isDouble() || v.isInt())) {
+            return false;
+        }
+        double x = v.doubleValue();
+        return (Double.isNaN(b[0]) || x > b[0]) && (Double.isNaN(b[1]) || x < b[1]);
     }
 
     /**
-     * A plain point schema.
+     * A plain point schema, or a plain bounded number.
      *
-     * @param fields   name → {lower, upper} bound (NaN: none)
-     * @param required the required names
+     * @param fields   name → {lower, upper} bound (NaN: none); null for numbers
+     * @param required the required names; null for numbers
+     * @param number   {lower, upper} of a number item; null for points
      */
-    private record Plain(Map<String, double[]> fields, Set<String> required) {
+    private record Plain(Map<String, double[]> fields, Set<String> required, double[] number) {
 
         /** True when every item passes every check of the schema (see the class comment). */
         boolean accepts(JsonNode array) {
+            if (number != null) {
+                for (int i = 0; i < array.size(); i++) {
+                    if (!inside(array.get(i), number)) {
+                        return false;
+                    }
+                }
+                return true;
+            }
             for (int i = 0; i < array.size(); i++) {
                 JsonNode item = array.get(i);
                 if (!item.isObject() || item.size() > fields.size()) {
@@ -137,12 +169,7 @@ final class QuickItems implements Keyword {
                 for (Iterator<Map.Entry<String, JsonNode>> it = item.fields(); it.hasNext(); ) {
                     Map.Entry<String, JsonNode> e = it.next();
                     double[] b = fields.get(e.getKey());
-                    JsonNode v = e.getValue();
-                    if (b == null || !(v.isDouble() || v.isInt())) {
-                        return false;
-                    }
-                    double x = v.doubleValue();
-                    if (!(Double.isNaN(b[0]) || x > b[0]) || !(Double.isNaN(b[1]) || x < b[1])) {
+                    if (b == null || !inside(e.getValue(), b)) {
                         return false;
                     }
                     if (required.contains(e.getKey())) {

@@ -10,7 +10,8 @@ import org.tectomelt.engine.melting.MeltState;
 import org.tectomelt.engine.units.Units;
 
 /**
- * {@code melt-fraction}: the melt state at one pressure and temperature, or at a batch of points.
+ * {@code melt-fraction}: the melt state at one pressure and temperature, or at a batch of points
+ * (given as {@code points} or as {@code columns}).
  * Cheap; a batch of more than {@code TECTOMELT_HEAVY_BATCH_POINTS} (default
  * {@value #HEAVY_BATCH_POINTS}) points is served as heavy: limiter and budget.
  */
@@ -27,9 +28,19 @@ public final class MeltFractionOperation
     public record PressureTemperature(Double pressureGPa, Double temperatureC) {
     }
 
-    /** Request: {@code pressureGPa} and {@code temperatureC}, or {@code points}. */
+    /** A batch as two equally long lists: point i is ({@code pressureGPa[i]}, {@code temperatureC[i]}). */
+    public record Columns(List<Double> pressureGPa, List<Double> temperatureC) {
+    }
+
+    /** Request: {@code pressureGPa} and {@code temperatureC}, or {@code points}, or {@code columns}. */
     public record Request(String lithology, Double pressureGPa, Double temperatureC, Double bulkWaterWtPct,
-                          List<PressureTemperature> points, List<Choices.MeltCurvePoint> meltCurve) {
+                          List<PressureTemperature> points, Columns columns, List<Choices.MeltCurvePoint> meltCurve) {
+
+        /** Points in the batch (either form), 0 for a single point. */
+        int batchSize() {
+            return points != null ? points.size() : columns != null && columns.pressureGPa() != null
+                    ? columns.pressureGPa().size() : 0;
+        }
     }
 
     /** The melt state at one point. */
@@ -77,12 +88,14 @@ public final class MeltFractionOperation
 
     @Override
     public Cost cost(Request q) {
-        return q.points() != null && q.points().size() > heavyPoints ? Cost.HEAVY : Cost.CHEAP;
+        return q.batchSize() > heavyPoints ? Cost.HEAVY : Cost.CHEAP;
     }
 
     @Override
     public List<Cap> caps() {
-        return List.of(new Cap("points", maxPoints, "TECTOMELT_MAX_BATCH_POINTS"));
+        return List.of(new Cap("points", maxPoints, "TECTOMELT_MAX_BATCH_POINTS"),
+                new Cap("columns.pressureGPa", maxPoints, "TECTOMELT_MAX_BATCH_POINTS"),
+                new Cap("columns.temperatureC", maxPoints, "TECTOMELT_MAX_BATCH_POINTS"));
     }
 
     @Override
@@ -118,10 +131,18 @@ public final class MeltFractionOperation
         Rules rules = new Rules();
         Lithology lithology = Choices.lithology(rules, q.lithology(), q.meltCurve());
         double water = Choices.water(rules, lithology, q.bulkWaterWtPct());
-        boolean batch = q.points() != null;
+        boolean columns = q.columns() != null;
+        boolean batch = q.points() != null || columns;
         boolean single = q.pressureGPa() != null || q.temperatureC() != null;
-        if (batch && single) {
-            rules.error("points", "give either pressureGPa and temperatureC, or points, not both");
+        if (q.points() != null && columns) {
+            rules.error("columns", "give the batch as points or as columns, not both");
+        } else if (batch && single) {
+            rules.error(columns ? "columns" : "points", "give either pressureGPa and temperatureC, or "
+                    + (columns ? "columns" : "points") + ", not both");
+        }
+        if (columns && q.columns().pressureGPa().size() != q.columns().temperatureC().size()) {
+            rules.error("columns.temperatureC", "must be as long as columns.pressureGPa ("
+                    + q.columns().pressureGPa().size() + " values), got " + q.columns().temperatureC().size());
         }
         rules.throwIfBroken();
         double maxGpa = Units.paToGpa(lithology.hardMaxPressure());
@@ -138,9 +159,21 @@ public final class MeltFractionOperation
                     r.waterInMeltWtPct(), r.waterSaturated(), r.cpxExhausted(), r.warnings(), null,
                     lithology.citations());
         }
-        List<PressureTemperature> points = q.points();
-        for (int i = 0; i < points.size(); i++) {
-            rules.at("points", i).within("pressureGPa", points.get(i).pressureGPa(), 0, maxGpa);
+        List<PressureTemperature> points;
+        if (columns) {
+            List<Double> p = q.columns().pressureGPa();
+            List<Double> t = q.columns().temperatureC();
+            points = new ArrayList<>(p.size());
+            Rules column = rules.at("columns");
+            for (int i = 0; i < p.size(); i++) {
+                column.within("pressureGPa[" + i + "]", p.get(i), 0, maxGpa);
+                points.add(new PressureTemperature(p.get(i), t.get(i)));
+            }
+        } else {
+            points = q.points();
+            for (int i = 0; i < points.size(); i++) {
+                rules.at("points", i).within("pressureGPa", points.get(i).pressureGPa(), 0, maxGpa);
+            }
         }
         rules.throwIfBroken();
         List<MeltResult> results = new ArrayList<>(points.size());

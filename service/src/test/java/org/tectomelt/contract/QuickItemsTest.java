@@ -40,7 +40,8 @@ class QuickItemsTest {
               "notPlain": {"type": "array", "items": {"type": "object", "additionalProperties": false,
                            "properties": {"p": {"type": "number", "enum": [1, 2]}}}},
               "open": {"type": "array", "items": {"type": "object",
-                       "properties": {"p": {"type": "number", "maximum": 1}}}}
+                       "properties": {"p": {"type": "number", "maximum": 1}}}},
+              "numbers": {"type": "array", "items": {"$ref": "#/components/schemas/point/properties/t"}}
             }}}""";
 
     private static List<String> errors(Dialect dialect, String name, JsonNode instance) {
@@ -77,13 +78,29 @@ class QuickItemsTest {
                 sb.append(i == 0 ? "" : ",").append(item);
             }
             JsonNode batch = JSON.readTree(sb.append("]").toString());
-            for (String schema : List.of("batch", "inline", "notPlain", "open")) {
-                List<String> expected = errors(library, schema, batch);
-                assertEquals(expected, errors(quick, schema, batch), schema + " " + batch);
-                refused += expected.isEmpty() ? 0 : 1;
+            for (String schema : List.of("inline", "notPlain", "open")) {
+                check(quick, library, schema, batch);
             }
+            StringBuilder nums = new StringBuilder("[");
+            for (int i = 0; i < n; i++) {
+                String item = random.nextInt(3) > 0 ? "1200.5" : NUMBERS[random.nextInt(NUMBERS.length)];
+                nums.append(i == 0 ? "" : ",").append(item);
+            }
+            JsonNode numbers = JSON.readTree(nums.append("]").toString());
+            refused += check(quick, library, "numbers", numbers);
+            refused += check(quick, library, "batch", batch);
         }
         assertTrue(refused > 100, "the trials include many refused batches: " + refused);
+    }
+
+    private static final String[] NUMBERS = {"-50", "-49.99999999999999", "3000", "2999.9999999999995", "0", "1e3",
+        "\"7\"", "null", "true", "[1]", "{}", "9223372036854775807", "123456789012345678901234567890", "-1e300"};
+
+    /** The same errors both ways; 1 when the batch was refused. */
+    private static int check(Dialect quick, Dialect library, String schema, JsonNode batch) {
+        List<String> expected = errors(library, schema, batch);
+        assertEquals(expected, errors(quick, schema, batch), schema + " " + batch);
+        return expected.isEmpty() ? 0 : 1;
     }
 
     @Test
@@ -94,11 +111,16 @@ class QuickItemsTest {
         assertTrue(items.quickFor(doc.at("/components/schemas/inline/items")));
         assertFalse(items.quickFor(doc.at("/components/schemas/notPlain/items")), "an enum is not a bound");
         assertFalse(items.quickFor(doc.at("/components/schemas/open/items")), "unknown fields allowed");
+        assertTrue(items.quickFor(doc.at("/components/schemas/numbers/items")), "bounded numbers");
     }
 
     @Test
     void theSpecsMeltFractionBatchIsAPlainPointBatch() {
         JsonNode spec = SpecContract.standard().document();
         assertTrue(new QuickItems(spec).quickFor(spec.at("/components/schemas/MeltFractionRequest/properties/points/items")));
+        for (String column : List.of("pressureGPa", "temperatureC")) {
+            assertTrue(new QuickItems(spec).quickFor(spec.at("/components/schemas/MeltFractionRequest/properties/columns"
+                    + "/properties/" + column + "/items")), column);
+        }
     }
 }

@@ -121,6 +121,58 @@ class MeltingContractTest {
     }
 
     @Test
+    void aBatchAsColumnsIsAnsweredExactlyAsTheSamePoints() {
+        StringBuilder points = new StringBuilder("[");
+        StringBuilder p = new StringBuilder("[");
+        StringBuilder t = new StringBuilder("[");
+        for (int i = 0; i < 40; i++) {
+            String sep = i == 0 ? "" : ",";
+            double gpa = 0.15 * i;
+            double c = 1000 + 12.5 * i;
+            points.append(sep).append(String.format(Locale.ROOT, "{\"pressureGPa\": %s, \"temperatureC\": %s}", gpa, c));
+            p.append(sep).append(gpa);
+            t.append(sep).append(c);
+        }
+        String head = "{\"lithology\": \"peridotite-katz2003\", \"bulkWaterWtPct\": 0.1, ";
+        String asPoints = TestServer.json(head + "\"points\": " + points + "]}").post(MELT).then().statusCode(200)
+                .extract().asString();
+        String asColumns = TestServer.json(head + "\"columns\": {\"pressureGPa\": " + p + "], \"temperatureC\": " + t
+                + "]}}").post(MELT).then().statusCode(200).body("results", hasSize(40)).extract().asString();
+        assertEquals(asPoints, asColumns, "the same answer, byte for byte");
+        String csvPoints = TestServer.json(head + "\"points\": " + points + "]}").accept("text/csv")
+                .queryParam("fields", "meltFraction,solidusC,waterInMeltWtPct").post(MELT).then().statusCode(200)
+                .extract().asString();
+        String csvColumns = TestServer.json(head + "\"columns\": {\"pressureGPa\": " + p + "], \"temperatureC\": "
+                + t + "]}}").accept("text/csv").queryParam("fields", "meltFraction,solidusC,waterInMeltWtPct")
+                .post(MELT).then().statusCode(200).extract().asString();
+        assertEquals(csvPoints, csvColumns);
+        assertEquals(41, csvColumns.split("\r\n").length, "a header and a line per point");
+    }
+
+    @Test
+    void badColumnsAreRefusedNamingTheField() {
+        String head = "{\"lithology\": \"peridotite-katz2003\", ";
+        assertInvalidField(TestServer.json(head + "\"columns\": {\"pressureGPa\": [1, 2], \"temperatureC\": [1300]}}")
+                .post(MELT), "columns.temperatureC");
+        assertInvalidField(TestServer.json(head + "\"columns\": {\"pressureGPa\": [1, 12], \"temperatureC\": [1300, 1400]}}")
+                .post(MELT), "columns.pressureGPa[1]");
+        assertInvalidField(TestServer.json(head + "\"columns\": {\"pressureGPa\": [1], \"temperatureC\": [3100]}}")
+                .post(MELT), "columns.temperatureC[0]");
+        assertInvalidField(TestServer.json(head + "\"columns\": {\"pressureGPa\": [1]}}").post(MELT),
+                "columns.temperatureC");
+        assertInvalidField(TestServer.json(head + "\"columns\": {\"pressureGPa\": [1], \"temperatureC\": [1300]},"
+                + " \"points\": [{\"pressureGPa\": 1, \"temperatureC\": 1300}]}").post(MELT), "columns");
+        assertInvalidField(TestServer.json(head + "\"columns\": {\"pressureGPa\": [1], \"temperatureC\": [1300]},"
+                + " \"pressureGPa\": 1}").post(MELT), "columns");
+        StringBuilder many = new StringBuilder();
+        for (int i = 0; i <= 10_000; i++) {
+            many.append(i == 0 ? "" : ",").append("2");
+        }
+        assertInvalidField(TestServer.json(head + "\"columns\": {\"pressureGPa\": [" + many + "], \"temperatureC\": ["
+                + many.toString().replace("2", "1400") + "]}}").post(MELT), "columns.pressureGPa");
+    }
+
+    @Test
     void aBatchOfTenThousandPointsIsAcceptedAndOneMoreIsRefused() {
         StringBuilder ok = new StringBuilder("{\"lithology\": \"peridotite-katz2003\", \"points\": [");
         for (int i = 0; i < 10_000; i++) {
