@@ -10,6 +10,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.stream.IntStream;
 
 /**
  * The CSV of a result's rows for the columns a request names ({@code ?fields=}), written straight
@@ -76,17 +77,61 @@ final class RecordCsv {
                 return null;
             }
         }
-        boolean[] seen = new boolean[leaves.length];
-        StringBuilder sb = new StringBuilder(24 * (table.size() + 1) * Math.max(1, leaves.length));
+        StringBuilder head = new StringBuilder();
         for (int c = 0; c < leaves.length; c++) {
-            sb.append(c == 0 ? "" : ",");
-            OperationHandler.cell(columns.get(c), sb);
+            head.append(c == 0 ? "" : ",");
+            OperationHandler.cell(columns.get(c), head);
         }
-        sb.append("\r\n");
+        head.append("\r\n");
+        // a long table is written in blocks on every core, then joined in order
+        int blocks = (table.size() + BLOCK - 1) / BLOCK;
+        StringBuilder[] parts = new StringBuilder[blocks];
+        boolean[][] seen = new boolean[blocks][leaves.length];
+        IntStream range = IntStream.range(0, blocks);
+        boolean written = (table.size() >= PARALLEL_ROWS ? range.parallel() : range).allMatch(b -> {
+            parts[b] = new StringBuilder(24 * BLOCK * Math.max(1, leaves.length));
+            return rows(table, b * BLOCK, Math.min(table.size(), (b + 1) * BLOCK), type, leaves, parts[b], seen[b]);
+        });
+        if (!written) {
+            return null;
+        }
+        for (int c = 0; c < leaves.length; c++) {
+            boolean any = false;
+            for (boolean[] block : seen) {
+                any |= block[c];
+            }
+            if (!any) {
+                return null;   // a column no row has: the tree way names it as unknown
+            }
+        }
+        int length = head.length();
+        for (StringBuilder part : parts) {
+            length += part.length();
+        }
+        byte[] out = new byte[length];
+        int at = ascii(head, out, 0);
+        for (StringBuilder part : parts) {
+            at = ascii(part, out, at);
+            if (at < 0) {
+                return utf8(head, parts);
+            }
+        }
+        return at < 0 ? utf8(head, parts) : out;
+    }
+
+    /** Rows per block. */
+    private static final int BLOCK = 2048;
+    /** From this many rows the blocks are written on every core. */
+    private static final int PARALLEL_ROWS = 2 * BLOCK;
+
+    /** Writes rows {@code [from, to)}; false when one of them is not written the tree way's. */
+    private static boolean rows(List<?> table, int from, int to, Class<?> type, Leaf[] leaves, StringBuilder sb,
+                                boolean[] seen) {
         try {
-            for (Object row : table) {
+            for (int r = from; r < to; r++) {
+                Object row = table.get(r);
                 if (row == null || row.getClass() != type) {
-                    return null;
+                    return false;
                 }
                 for (int c = 0; c < leaves.length; c++) {
                     if (c > 0) {
@@ -104,22 +149,37 @@ final class RecordCsv {
                     }
                     seen[c] = true;
                     if (!append(v, sb)) {
-                        return null;
+                        return false;
                     }
                 }
                 sb.append("\r\n");
             }
+            return true;
         } catch (RuntimeException | Error e) {
             throw e;
         } catch (Throwable t) {
             throw new IllegalStateException("reading a row of " + type.getSimpleName(), t);
         }
-        for (boolean s : seen) {
-            if (!s) {
-                return null;   // a column no row has: the tree way names it as unknown
+    }
+
+    /** Copies ASCII text into {@code out} at {@code at}; the next position, or -1 at a character beyond ASCII. */
+    private static int ascii(CharSequence text, byte[] out, int at) {
+        for (int i = 0; i < text.length(); i++) {
+            char ch = text.charAt(i);
+            if (ch >= 0x80) {
+                return -1;
             }
+            out[at++] = (byte) ch;
         }
-        return sb.toString().getBytes(StandardCharsets.UTF_8);
+        return at;
+    }
+
+    private static byte[] utf8(StringBuilder head, StringBuilder[] parts) {
+        StringBuilder all = new StringBuilder(head);
+        for (StringBuilder part : parts) {
+            all.append(part);
+        }
+        return all.toString().getBytes(StandardCharsets.UTF_8);
     }
 
     /** Writes one cell as the tree way does; false for a value it does not write (a non-finite double…). */

@@ -2,6 +2,7 @@ package org.tectomelt.operations;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.stream.IntStream;
 import org.tectomelt.Config;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.engine.ModelInfo;
@@ -57,6 +58,11 @@ public final class MeltFractionOperation
                          Double liquidusC, Double waterInMeltWtPct, Boolean waterSaturated, Boolean cpxExhausted,
                          List<String> warnings, List<MeltResult> results, List<ModelInfo> models) {
     }
+
+    /** Points per block of a batch (the deadline is checked before each). */
+    private static final int BLOCK = 1024;
+    /** From this many points a batch's blocks are computed on every core. */
+    static final int PARALLEL_POINTS = 2 * BLOCK;
 
     private final int maxPoints;
     private final int heavyPoints;
@@ -176,16 +182,20 @@ public final class MeltFractionOperation
             }
         }
         rules.throwIfBroken();
-        List<MeltResult> results = new ArrayList<>(points.size());
-        for (int i = 0; i < points.size(); i++) {
-            if ((i & 1023) == 0) {
-                deadline.check();
+        // a large batch is computed in blocks on every core (the lithology is immutable); each block
+        // checks the deadline first, and results keep the request's order
+        MeltResult[] results = new MeltResult[points.size()];
+        int blocks = (points.size() + BLOCK - 1) / BLOCK;
+        IntStream range = IntStream.range(0, blocks);
+        (points.size() >= PARALLEL_POINTS ? range.parallel() : range).forEach(b -> {
+            deadline.check();
+            for (int i = b * BLOCK; i < Math.min(points.size(), (b + 1) * BLOCK); i++) {
+                PressureTemperature pt = points.get(i);
+                results[i] = result(lithology.melt(Units.gpaToPa(pt.pressureGPa()),
+                        Units.celsiusToKelvin(pt.temperatureC()), water));
             }
-            PressureTemperature pt = points.get(i);
-            results.add(result(lithology.melt(Units.gpaToPa(pt.pressureGPa()),
-                    Units.celsiusToKelvin(pt.temperatureC()), water)));
-        }
-        return new Result(lithology.id(), null, null, null, null, null, null, null, null, results,
+        });
+        return new Result(lithology.id(), null, null, null, null, null, null, null, null, List.of(results),
                 lithology.citations());
     }
 

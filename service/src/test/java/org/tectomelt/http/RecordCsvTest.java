@@ -93,6 +93,26 @@ class RecordCsvTest {
                 List.of("meltFraction", "colourIndex")));
     }
 
+    @Test
+    void aLongBatchWrittenInBlocksOnEveryCoreIsTheTreeWaysToo() {
+        StringBuilder body = new StringBuilder("{\"lithology\": \"peridotite-katz2003\", \"bulkWaterWtPct\": 0.05,"
+                + " \"points\": [");
+        for (int i = 0; i < 9_001; i++) {
+            body.append(i == 0 ? "" : ",").append("{\"pressureGPa\": ").append(0.5 + (i % 97) * 0.05)
+                    .append(", \"temperatureC\": ").append(1000 + (i % 89) * 5.5).append('}');
+        }
+        Operation<?, ?> op = INVOKER.operation("melt-fraction");
+        Record result = INVOKER.run(op, Json.readTree(body.append("]}").toString().getBytes(StandardCharsets.UTF_8)),
+                Deadline.none());
+        JsonNode tree = Provenance.attach(Json.mapper().valueToTree(result));
+        for (List<String> ask : List.of(List.of("meltFraction", "solidusC", "waterInMeltWtPct"),
+                List.of("warnings", "liquidusC", "cpxExhausted", "drySolidusC"))) {
+            byte[] fast = RecordCsv.write(result, "results", ask);
+            assertNotNull(fast);
+            assertArrayEquals(OperationHandler.treeCsv(tree, "results", ask), fast, ask.toString());
+        }
+    }
+
     @SuppressWarnings("unchecked")
     private static <R extends Record> String rows(Operation<?, R> op, Record result) {
         return op.rows((R) result);
