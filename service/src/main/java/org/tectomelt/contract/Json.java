@@ -27,6 +27,7 @@ import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.introspect.Annotated;
 import com.fasterxml.jackson.databind.introspect.JacksonAnnotationIntrospector;
+import org.tectomelt.engine.ModelInfo;
 import org.tectomelt.operations.ExplicitNull;
 import org.tectomelt.operations.OperationException;
 import java.io.IOException;
@@ -62,6 +63,7 @@ public final class Json {
         SimpleModule finiteOnly = new SimpleModule("finite-numbers");
         finiteOnly.addSerializer(Double.class, new FiniteDoubleSerializer());
         finiteOnly.addSerializer(double.class, new FiniteDoubleSerializer());
+        finiteOnly.addSerializer(ModelInfo.class, new ModelInfoSerializer());
         finiteOnly.addDeserializer(Double.class, new StrictDoubleDeserializer(Double.class));
         finiteOnly.addDeserializer(double.class, new StrictDoubleDeserializer(double.class));
         JsonMapper mapper = JsonMapper.builder()
@@ -330,6 +332,57 @@ public final class Json {
             }
             // -0.0 (from a negated or rounded zero, or echoed from the request) is written as 0.0
             gen.writeNumber(value == 0.0 ? 0.0 : value);
+        }
+    }
+
+    /**
+     * A published model as every answer lists it ({@code {"id", "citation", "doi"}}, an absent
+     * member left out as everywhere): written as the same bytes encoded once per model when the
+     * answer is written straight to bytes (each answer lists its models twice, in the result and in
+     * its provenance, and their long citations were a twentieth of a one-point answer's time), and
+     * member by member into anything else (a tree, a token buffer), so trees read as before.
+     */
+    private static final class ModelInfoSerializer extends StdSerializer<ModelInfo> {
+        private static final long serialVersionUID = 1L;
+        private static final Map<ModelInfo, com.fasterxml.jackson.core.io.SerializedString> ENCODED =
+                new java.util.concurrent.ConcurrentHashMap<>();
+
+        ModelInfoSerializer() {
+            super(ModelInfo.class);
+        }
+
+        @Override
+        public void serialize(ModelInfo m, JsonGenerator gen, SerializerProvider provider) throws IOException {
+            if (gen instanceof com.fasterxml.jackson.core.json.UTF8JsonGenerator) {
+                com.fasterxml.jackson.core.io.SerializedString raw = ENCODED.get(m);
+                if (raw == null) {
+                    java.io.StringWriter text = new java.io.StringWriter();
+                    try (JsonGenerator g = MAPPER.getFactory().createGenerator(text)) {
+                        members(m, g);
+                    }
+                    raw = new com.fasterxml.jackson.core.io.SerializedString(text.toString());
+                    if (ENCODED.size() < 10_000) {   // the catalogue's models, and the few a request names
+                        ENCODED.put(m, raw);
+                    }
+                }
+                gen.writeRawValue(raw);
+                return;
+            }
+            members(m, gen);
+        }
+
+        private static void members(ModelInfo m, JsonGenerator g) throws IOException {
+            g.writeStartObject(m);
+            if (m.id() != null) {
+                g.writeStringField("id", m.id());
+            }
+            if (m.citation() != null) {
+                g.writeStringField("citation", m.citation());
+            }
+            if (m.doi() != null) {
+                g.writeStringField("doi", m.doi());
+            }
+            g.writeEndObject();
         }
     }
 }
