@@ -25,7 +25,7 @@ public final class CompositionResult {
      * Point by point, the accumulated melt and the residue of every element: {@code values[(2i + k)·ne + e]},
      * k = 0, 1 (one array, written and read in order). The instantaneous melt is not stored: it is the melt in
      * equilibrium with the residue, C_L = C_s·(1 − F)/S with the solid's capacity S = Σ mⱼKⱼ of the point's
-     * mix, derived on access (a third less memory written per column).
+     * mix, derived on access (a third fewer concentrations written per column).
      */
     private final double[] values;
 
