@@ -41,7 +41,8 @@ final class QuickBounds {
     }
 
     /**
-     * The OpenAPI 3.0 dialect with the two bounds and {@code items} ({@link QuickItems}) replaced,
+     * The OpenAPI 3.0 dialect with the two bounds, {@code items} ({@link QuickItems}) and
+     * {@code properties} ({@link QuickProperties}) replaced,
      * for schemas in {@code document}.
      */
     static Dialect openApi30(JsonNode document) {
@@ -49,6 +50,7 @@ final class QuickBounds {
                 .keyword(new Bound("minimum", true))
                 .keyword(new Bound("maximum", false))
                 .keyword(new QuickItems(document))
+                .keyword(new QuickProperties(document))
                 .build();
     }
 

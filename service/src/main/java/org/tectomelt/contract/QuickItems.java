@@ -23,7 +23,8 @@ import java.util.Set;
  * and nothing else (its keys among {@code type}, {@code additionalProperties: false},
  * {@code required}, {@code properties}, {@code description}, {@code example}; each field's among
  * {@code type: number}, {@code format}, {@code minimum}, {@code maximum}, OpenAPI 3.0's boolean
- * {@code exclusiveMinimum}/{@code exclusiveMaximum}, {@code description}, {@code example}), an array whose every item is such an object — only known fields, every
+ * {@code exclusiveMinimum}/{@code exclusiveMaximum}, {@code description}, {@code example}, {@code default},
+ * which the library does not check), an array whose every item is such an object — only known fields, every
  * required one, each a double or an int strictly inside its bounds — is passed at once. Any other
  * array, and any other item schema, goes to the library's own validator, which decides and words
  * every error.
@@ -40,7 +41,7 @@ final class QuickItems implements Keyword {
     private static final Set<String> ITEM_KEYS = Set.of("type", "additionalProperties", "required", "properties",
             "description", "example");
     private static final Set<String> FIELD_KEYS = Set.of("type", "format", "minimum", "maximum", "exclusiveMinimum",
-            "exclusiveMaximum", "description", "example");
+            "exclusiveMaximum", "description", "example", "default");
 
     /** The document the item schemas' local {@code $ref}s point into. */
     private final JsonNode document;
@@ -114,7 +115,7 @@ final class QuickItems implements Keyword {
     }
 
     /** {lower, upper} (NaN: none) of a plain bounded number schema, or null when it is not one. */
-    private static double[] bounds(JsonNode p) {
+    static double[] bounds(JsonNode p) {
         if (!p.isObject() || !"number".equals(p.path("type").asText())) {
             return null;
         }
@@ -122,6 +123,9 @@ final class QuickItems implements Keyword {
             if (!FIELD_KEYS.contains(k.next())) {
                 return null;
             }
+        }
+        if (p.has("format") && !"double".equals(p.get("format").asText())) {
+            return null;   // "float", "int32"…: a format the library may assert on the value
         }
         if (p.has("minimum") && !p.get("minimum").isNumber() || p.has("maximum") && !p.get("maximum").isNumber()
                 || p.has("exclusiveMinimum") && !p.get("exclusiveMinimum").isBoolean()
@@ -133,7 +137,7 @@ final class QuickItems implements Keyword {
     }
 
     /** True when {@code v} is a double or an int strictly inside {@code b} (see {@link QuickBounds}). */
-    private static boolean inside(JsonNode v, double[] b) {
+    static boolean inside(JsonNode v, double[] b) {
         if (!(v.isDouble() || v.isInt())) {
             return false;
         }

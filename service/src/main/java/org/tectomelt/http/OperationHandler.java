@@ -17,6 +17,7 @@ import java.util.Map;
 import java.util.Set;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
+import org.tectomelt.contract.RecordCsv;
 import org.tectomelt.operations.Cost;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;
@@ -251,7 +252,7 @@ final class OperationHandler {
         boolean first = true;
         for (String c : columns) {
             sb.append(first ? "" : ",");
-            cell(c, sb);
+            RecordCsv.cell(c, sb);
             first = false;
         }
         sb.append("\r\n");
@@ -267,26 +268,18 @@ final class OperationHandler {
                 if (v.isArray()) {
                     List<String> items = new ArrayList<>();
                     v.forEach(x -> items.add(x.asText()));
-                    cell(String.join("; ", items), sb);
+                    RecordCsv.cell(String.join("; ", items), sb);
                 } else if (v.isFloatingPointNumber()) {
                     // the shortest decimal that reads back as the same double (Jackson's writer)
                     sb.append(NumberOutput.toString(v.doubleValue(), true));
                 } else if (v.isNumber() || v.isBoolean()) {
                     sb.append(v.asText());
                 } else {
-                    cell(v.asText(), sb);
+                    RecordCsv.cell(v.asText(), sb);
                 }
             }
             sb.append("\r\n");
         }
         return sb.toString().getBytes(StandardCharsets.UTF_8);
-    }
-
-    static void cell(String s, StringBuilder sb) {
-        if (s.indexOf(',') < 0 && s.indexOf('"') < 0 && s.indexOf('\n') < 0 && s.indexOf('\r') < 0) {
-            sb.append(s);
-            return;
-        }
-        sb.append('"').append(s.replace("\"", "\"\"")).append('"');
     }
 }

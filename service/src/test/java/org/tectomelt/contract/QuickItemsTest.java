@@ -112,6 +112,8 @@ class QuickItemsTest {
         assertFalse(items.quickFor(doc.at("/components/schemas/notPlain/items")), "an enum is not a bound");
         assertFalse(items.quickFor(doc.at("/components/schemas/open/items")), "unknown fields allowed");
         assertTrue(items.quickFor(doc.at("/components/schemas/numbers/items")), "bounded numbers");
+        assertFalse(items.quickFor(JSON.readTree("{\"type\": \"number\", \"format\": \"float\", \"maximum\": 1}")),
+                "a float's range is the library's to check");
     }
 
     @Test

@@ -17,6 +17,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
+import org.tectomelt.contract.RecordCsv;
 import org.tectomelt.engine.Deadline;
 import org.tectomelt.operations.Operation;
 import org.tectomelt.operations.OperationException;

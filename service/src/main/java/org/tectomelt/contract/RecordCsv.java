@@ -1,4 +1,4 @@
-package org.tectomelt.http;
+package org.tectomelt.contract;
 
 import com.fasterxml.jackson.core.io.NumberOutput;
 import java.lang.invoke.MethodHandle;
@@ -15,7 +15,7 @@ import java.util.stream.IntStream;
 /**
  * The CSV of a result's rows for the columns a request names ({@code ?fields=}), written straight
  * from the row records instead of through a JSON tree of every row: the same bytes the tree way
- * writes ({@link OperationHandler}), at a fraction of its cost for a 10,000-row batch.
+ * writes (the skin's {@code OperationHandler}), at a fraction of its cost for a 10,000-row batch.
  *
  * <p>It serves only what it can write exactly as the tree way does, and answers null for the rest,
  * which then takes the tree way: rows that are plain records (no annotation on the record or its
@@ -26,7 +26,7 @@ import java.util.stream.IntStream;
  * reads back as the same double, a list of strings joined with {@code "; "}, cells quoted as RFC
  * 4180 asks.
  */
-final class RecordCsv {
+public final class RecordCsv {
 
     private RecordCsv() {
     }
@@ -54,7 +54,7 @@ final class RecordCsv {
      * @param rows    the dotted path of its row list ({@code results}, {@code column.profile})
      * @param columns the column names asked for, in order
      */
-    static byte[] write(Object result, String rows, List<String> columns) {
+    public static byte[] write(Object result, String rows, List<String> columns) {
         Object list = result;
         for (String part : rows.split("\\.")) {
             list = component(list, part);
@@ -80,7 +80,7 @@ final class RecordCsv {
         StringBuilder head = new StringBuilder();
         for (int c = 0; c < leaves.length; c++) {
             head.append(c == 0 ? "" : ",");
-            OperationHandler.cell(columns.get(c), head);
+            cell(columns.get(c), head);
         }
         head.append("\r\n");
         // a long table is written in blocks on every core, then joined in order
@@ -182,6 +182,15 @@ final class RecordCsv {
         return all.toString().getBytes(StandardCharsets.UTF_8);
     }
 
+    /** One CSV cell as RFC 4180 asks: quoted, inner quotes doubled, when it holds a comma, a quote or a line end. */
+    public static void cell(String s, StringBuilder sb) {
+        if (s.indexOf(',') < 0 && s.indexOf('"') < 0 && s.indexOf('\n') < 0 && s.indexOf('\r') < 0) {
+            sb.append(s);
+            return;
+        }
+        sb.append('"').append(s.replace("\"", "\"\"")).append('"');
+    }
+
     /** Writes one cell as the tree way does; false for a value it does not write (a non-finite double…). */
     private static boolean append(Object v, StringBuilder sb) {
         if (v instanceof Double d) {
@@ -192,7 +201,7 @@ final class RecordCsv {
         } else if (v instanceof Integer || v instanceof Long || v instanceof Boolean) {
             sb.append(v);
         } else if (v instanceof String s) {
-            OperationHandler.cell(s, sb);
+            cell(s, sb);
         } else if (v instanceof List<?> items) {
             StringBuilder joined = new StringBuilder();
             for (Object item : items) {
@@ -201,7 +210,7 @@ final class RecordCsv {
                 }
                 joined.append(joined.length() == 0 ? "" : "; ").append(s);
             }
-            OperationHandler.cell(joined.toString(), sb);
+            cell(joined.toString(), sb);
         } else {
             return false;
         }
