@@ -232,10 +232,11 @@ def main():
         per2 = jmh2["engineColumnsOf2000Points"]
         print(f"  the same with {cores} threads at once: {per2:.0f} ms per {n} columns per thread -> "
               f"{cores * n / (per2 / 1000):.0f} points/s together")
-        clean = abs(before - after) <= 0.1 * per and per2 <= 1.15 * per
+        load1 = os.getloadavg()[0]
+        clean = abs(before - after) <= 0.1 * per and per2 <= 1.15 * per and max(load0, load1) <= cores
         print(f"  clean go: {'yes' if clean else 'NO'} (the single-core times before and after within 10 % of each "
-              f"other, {cores} threads at once within 15 % of one thread; otherwise other work took the cores and "
-              f"the ratios below say little)")
+              f"other, {cores} threads at once within 15 % of one thread, the load average at most {cores} at the "
+              f"start and at the end; otherwise other work took the cores and the ratios below say little)")
         sweep = jmh1["sweepOf2000Points"]
         print(f"  a run's per-point path (request, operation, outputs as text; no database), 1 thread: {sweep:.0f} ms "
               f"per sweep -> {n / (sweep / 1000):.0f} points/s")
