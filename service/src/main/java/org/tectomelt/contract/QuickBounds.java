@@ -1,7 +1,6 @@
 package org.tectomelt.contract;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.networknt.schema.ExecutionContext;
 import com.networknt.schema.Schema;
 import com.networknt.schema.SchemaContext;
 import com.networknt.schema.SchemaLocation;
@@ -11,7 +10,6 @@ import com.networknt.schema.keyword.Keyword;
 import com.networknt.schema.keyword.KeywordValidator;
 import com.networknt.schema.keyword.MaximumValidator;
 import com.networknt.schema.keyword.MinimumValidator;
-import com.networknt.schema.path.NodePath;
 
 /**
  * networknt's {@code minimum} and {@code maximum} keywords with a quick accept in front: a number
@@ -71,37 +69,11 @@ final class QuickBounds {
     }
 
     /** One bound of one schema. */
-    private record Quick(KeywordValidator library, double bound, boolean lower) implements KeywordValidator {
+    private record Quick(KeywordValidator library, double bound, boolean lower) implements QuickAccept {
         @Override
-        public void validate(ExecutionContext context, JsonNode node, JsonNode root, NodePath location) {
-            if (node.isDouble() || node.isInt()) {
-                double v = node.doubleValue();
-                if (lower ? v > bound : v < bound) {
-                    return;   // strictly inside: the library would pass it too (see the class comment)
-                }
-            }
-            library.validate(context, node, root, location);
-        }
-
-        @Override
-        public void walk(ExecutionContext context, JsonNode node, JsonNode root, NodePath location,
-                         boolean shouldValidateSchema) {
-            library.walk(context, node, root, location, shouldValidateSchema);
-        }
-
-        @Override
-        public void preloadSchema() {
-            library.preloadSchema();
-        }
-
-        @Override
-        public String getKeyword() {
-            return library.getKeyword();
-        }
-
-        @Override
-        public SchemaLocation getSchemaLocation() {
-            return library.getSchemaLocation();
+        public boolean accepts(JsonNode node) {
+            // strictly inside: the library would pass it too (see the class comment)
+            return (node.isDouble() || node.isInt()) && (lower ? node.doubleValue() > bound : node.doubleValue() < bound);
         }
     }
 }

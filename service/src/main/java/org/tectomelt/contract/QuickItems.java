@@ -1,14 +1,12 @@
 package org.tectomelt.contract;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.networknt.schema.ExecutionContext;
 import com.networknt.schema.Schema;
 import com.networknt.schema.SchemaContext;
 import com.networknt.schema.SchemaLocation;
 import com.networknt.schema.keyword.ItemsLegacyValidator;
 import com.networknt.schema.keyword.Keyword;
 import com.networknt.schema.keyword.KeywordValidator;
-import com.networknt.schema.path.NodePath;
 import java.util.HashMap;
 import java.util.HashSet;
 import java.util.Iterator;
@@ -70,13 +68,7 @@ final class QuickItems implements Keyword {
     /** The fields of a plain point schema (name → {lower, upper}, NaN for none), or null when it is not one. */
     private Plain plain(JsonNode items) {
         JsonNode s = items;
-        if (s != null && s.has("$ref")) {
-            String ref = s.get("$ref").asText();
-            if (s.size() != 1 || !ref.startsWith("#/")) {
-                return null;
-            }
-            s = document.at(ref.substring(1));
-        }
+        s = local(document, s);
         if (s != null && s.isObject() && "number".equals(s.path("type").asText())) {
             double[] b = bounds(s);
             return b == null ? null : new Plain(null, null, b);
@@ -112,6 +104,18 @@ final class QuickItems implements Keyword {
             req.add(r.asText());
         }
         return new Plain(fields, req, null);
+    }
+
+    /**
+     * The schema itself, or what its lone local {@code $ref} points to in {@code document}; null for
+     * any other reference (a {@code $ref} with siblings, or to another document).
+     */
+    static JsonNode local(JsonNode document, JsonNode s) {
+        if (s == null || !s.has("$ref")) {
+            return s;
+        }
+        String ref = s.get("$ref").asText();
+        return s.size() != 1 || !ref.startsWith("#/") ? null : document.at(ref.substring(1));
     }
 
     /** {lower, upper} (NaN: none) of a plain bounded number schema, or null when it is not one. */
@@ -189,34 +193,11 @@ final class QuickItems implements Keyword {
     }
 
     /** The keyword of one schema: the quick accept, then the library. */
-    private record Quick(ItemsLegacyValidator library, Plain plain) implements KeywordValidator {
+    private record Quick(ItemsLegacyValidator library, Plain plain) implements QuickAccept {
         @Override
-        public void validate(ExecutionContext context, JsonNode node, JsonNode root, NodePath location) {
-            if (plain != null && node.isArray() && plain.accepts(node)) {
-                return;   // every item passes every check the library would make (see the class comment)
-            }
-            library.validate(context, node, root, location);
-        }
-
-        @Override
-        public void walk(ExecutionContext context, JsonNode node, JsonNode root, NodePath location,
-                         boolean shouldValidateSchema) {
-            library.walk(context, node, root, location, shouldValidateSchema);
-        }
-
-        @Override
-        public void preloadSchema() {
-            library.preloadSchema();
-        }
-
-        @Override
-        public String getKeyword() {
-            return library.getKeyword();
-        }
-
-        @Override
-        public SchemaLocation getSchemaLocation() {
-            return library.getSchemaLocation();
+        public boolean accepts(JsonNode node) {
+            // every item passes every check the library would make (see the class comment)
+            return plain != null && node.isArray() && plain.accepts(node);
         }
     }
 }

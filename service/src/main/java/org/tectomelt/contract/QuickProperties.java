@@ -1,14 +1,12 @@
 package org.tectomelt.contract;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.networknt.schema.ExecutionContext;
 import com.networknt.schema.Schema;
 import com.networknt.schema.SchemaContext;
 import com.networknt.schema.SchemaLocation;
 import com.networknt.schema.keyword.Keyword;
 import com.networknt.schema.keyword.KeywordValidator;
 import com.networknt.schema.keyword.PropertiesValidator;
-import com.networknt.schema.path.NodePath;
 import java.util.HashMap;
 import java.util.HashSet;
 import java.util.Iterator;
@@ -63,13 +61,7 @@ final class QuickProperties implements Keyword {
 
     /** The quick check of a member's schema, or null when it is not plain. */
     private Member member(JsonNode s) {
-        if (s != null && s.has("$ref")) {
-            String ref = s.get("$ref").asText();
-            if (s.size() != 1 || !ref.startsWith("#/")) {
-                return null;
-            }
-            s = document.at(ref.substring(1));
-        }
+        s = QuickItems.local(document, s);
         if (s == null || !s.isObject()) {
             return null;
         }
@@ -119,16 +111,13 @@ final class QuickProperties implements Keyword {
     }
 
     /** The keyword of one schema: the quick accept, then the library. */
-    private record Quick(PropertiesValidator library, Map<String, Member> members) implements KeywordValidator {
+    private record Quick(PropertiesValidator library, Map<String, Member> members) implements QuickAccept {
+        /** True when every member passes every check the library would make (see the class comment). */
         @Override
-        public void validate(ExecutionContext context, JsonNode node, JsonNode root, NodePath location) {
-            if (node.isObject() && accepts(node)) {
-                return;   // every member passes every check the library would make (see the class comment)
+        public boolean accepts(JsonNode node) {
+            if (!node.isObject()) {
+                return false;
             }
-            library.validate(context, node, root, location);
-        }
-
-        private boolean accepts(JsonNode node) {
             for (Iterator<Map.Entry<String, JsonNode>> it = node.fields(); it.hasNext(); ) {
                 Map.Entry<String, JsonNode> e = it.next();
                 Member m = members.get(e.getKey());
@@ -137,27 +126,6 @@ final class QuickProperties implements Keyword {
                 }
             }
             return true;
-        }
-
-        @Override
-        public void walk(ExecutionContext context, JsonNode node, JsonNode root, NodePath location,
-                         boolean shouldValidateSchema) {
-            library.walk(context, node, root, location, shouldValidateSchema);
-        }
-
-        @Override
-        public void preloadSchema() {
-            library.preloadSchema();
-        }
-
-        @Override
-        public String getKeyword() {
-            return library.getKeyword();
-        }
-
-        @Override
-        public SchemaLocation getSchemaLocation() {
-            return library.getSchemaLocation();
         }
     }
 }

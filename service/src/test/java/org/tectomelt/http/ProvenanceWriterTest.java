@@ -5,10 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.charset.StandardCharsets;
-import java.util.ArrayList;
-import java.util.Iterator;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.tectomelt.contract.Invoker;
@@ -29,7 +26,7 @@ class ProvenanceWriterTest {
     void oneWriteEqualsTheTreeWayForEveryDocumentedExample() {
         int compared = 0;
         for (Operation<?, ?> op : INVOKER.operations().list()) {
-            for (JsonNode example : examples(op)) {
+            for (JsonNode example : SpecExamples.of(INVOKER, op)) {
                 Record result = INVOKER.run(op, example.deepCopy(), Deadline.none());
                 String tree = new String(Json.write(Provenance.attach(Json.mapper().valueToTree(result))),
                         StandardCharsets.UTF_8);
@@ -51,22 +48,5 @@ class ProvenanceWriterTest {
         assertTrue(out.at("/provenance/models").isArray());
         assertEquals(0, out.at("/provenance/models").size());
         assertFalse(out.at("/provenance/version").asText().isEmpty());
-    }
-
-    /** The example or every named example of the operation's request body in the spec. */
-    private static List<JsonNode> examples(Operation<?, ?> op) {
-        JsonNode content = INVOKER.spec().document().at("/paths/" + op.path().replace("/", "~1")
-                + "/post/requestBody/content/application~1json");
-        List<JsonNode> out = new ArrayList<>();
-        if (content.has("example")) {
-            out.add(content.get("example"));
-        }
-        for (Iterator<JsonNode> it = content.path("examples").elements(); it.hasNext(); ) {
-            JsonNode value = it.next().get("value");
-            if (value instanceof ObjectNode) {
-                out.add(value);
-            }
-        }
-        return out;
     }
 }

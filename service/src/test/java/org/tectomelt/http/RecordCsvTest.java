@@ -7,11 +7,9 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Collections;
-import java.util.Iterator;
 import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
@@ -42,7 +40,7 @@ class RecordCsvTest {
         int direct = 0;
         List<Object[]> cases = new ArrayList<>();
         for (Operation<?, ?> op : INVOKER.operations().list()) {
-            for (JsonNode example : examples(op)) {
+            for (JsonNode example : SpecExamples.of(INVOKER, op)) {
                 cases.add(new Object[] {op, example});
             }
         }
@@ -117,22 +115,5 @@ class RecordCsvTest {
     @SuppressWarnings("unchecked")
     private static <R extends Record> String rows(Operation<?, R> op, Record result) {
         return op.rows((R) result);
-    }
-
-    /** The example or every named example of the operation's request body in the spec. */
-    private static List<JsonNode> examples(Operation<?, ?> op) {
-        JsonNode content = INVOKER.spec().document().at("/paths/" + op.path().replace("/", "~1")
-                + "/post/requestBody/content/application~1json");
-        List<JsonNode> out = new ArrayList<>();
-        if (content.has("example")) {
-            out.add(content.get("example"));
-        }
-        for (Iterator<JsonNode> it = content.path("examples").elements(); it.hasNext(); ) {
-            JsonNode value = it.next().get("value");
-            if (value instanceof ObjectNode) {
-                out.add(value);
-            }
-        }
-        return out;
     }
 }
