@@ -38,8 +38,6 @@ final class QuickItems implements Keyword {
 
     private static final Set<String> ITEM_KEYS = Set.of("type", "additionalProperties", "required", "properties",
             "description", "example");
-    private static final Set<String> FIELD_KEYS = Set.of("type", "format", "minimum", "maximum", "exclusiveMinimum",
-            "exclusiveMaximum", "description", "example", "default");
 
     /** The document the item schemas' local {@code $ref}s point into. */
     private final JsonNode document;
@@ -67,10 +65,9 @@ final class QuickItems implements Keyword {
 
     /** The fields of a plain point schema (name → {lower, upper}, NaN for none), or null when it is not one. */
     private Plain plain(JsonNode items) {
-        JsonNode s = items;
-        s = local(document, s);
+        JsonNode s = local(document, items);
         if (s != null && s.isObject() && "number".equals(s.path("type").asText())) {
-            double[] b = bounds(s);
+            double[] b = QuickBounds.bounds(s);
             return b == null ? null : new Plain(null, null, b);
         }
         if (s == null || !s.isObject() || !"object".equals(s.path("type").asText())
@@ -86,7 +83,7 @@ final class QuickItems implements Keyword {
         Map<String, double[]> fields = new HashMap<>();
         for (Iterator<Map.Entry<String, JsonNode>> it = s.get("properties").fields(); it.hasNext(); ) {
             Map.Entry<String, JsonNode> f = it.next();
-            double[] b = bounds(f.getValue());
+            double[] b = QuickBounds.bounds(f.getValue());
             if (b == null) {
                 return null;
             }
@@ -118,37 +115,6 @@ final class QuickItems implements Keyword {
         return s.size() != 1 || !ref.startsWith("#/") ? null : document.at(ref.substring(1));
     }
 
-    /** {lower, upper} (NaN: none) of a plain bounded number schema, or null when it is not one. */
-    static double[] bounds(JsonNode p) {
-        if (!p.isObject() || !"number".equals(p.path("type").asText())) {
-            return null;
-        }
-        for (Iterator<String> k = p.fieldNames(); k.hasNext(); ) {
-            if (!FIELD_KEYS.contains(k.next())) {
-                return null;
-            }
-        }
-        if (p.has("format") && !"double".equals(p.get("format").asText())) {
-            return null;   // "float", "int32"…: a format the library may assert on the value
-        }
-        if (p.has("minimum") && !p.get("minimum").isNumber() || p.has("maximum") && !p.get("maximum").isNumber()
-                || p.has("exclusiveMinimum") && !p.get("exclusiveMinimum").isBoolean()
-                || p.has("exclusiveMaximum") && !p.get("exclusiveMaximum").isBoolean()) {
-            return null;
-        }
-        return new double[] {p.has("minimum") ? p.get("minimum").doubleValue() : Double.NaN,
-                p.has("maximum") ? p.get("maximum").doubleValue() : Double.NaN};
-    }
-
-    /** True when {@code v} is a double or an int strictly inside {@code b} (see {@link QuickBounds}). */
-    static boolean inside(JsonNode v, double[] b) {
-        if (!(v.isDouble() || v.isInt())) {
-            return false;
-        }
-        double x = v.doubleValue();
-        return (Double.isNaN(b[0]) || x > b[0]) && (Double.isNaN(b[1]) || x < b[1]);
-    }
-
     /**
      * A plain point schema, or a plain bounded number.
      *
@@ -162,7 +128,7 @@ final class QuickItems implements Keyword {
         boolean accepts(JsonNode array) {
             if (number != null) {
                 for (int i = 0; i < array.size(); i++) {
-                    if (!inside(array.get(i), number)) {
+                    if (!QuickBounds.inside(array.get(i), number)) {
                         return false;
                     }
                 }
@@ -177,7 +143,7 @@ final class QuickItems implements Keyword {
                 for (Iterator<Map.Entry<String, JsonNode>> it = item.fields(); it.hasNext(); ) {
                     Map.Entry<String, JsonNode> e = it.next();
                     double[] b = fields.get(e.getKey());
-                    if (b == null || !inside(e.getValue(), b)) {
+                    if (b == null || !QuickBounds.inside(e.getValue(), b)) {
                         return false;
                     }
                     if (required.contains(e.getKey())) {

@@ -67,8 +67,8 @@ final class QuickProperties implements Keyword {
         }
         String type = s.path("type").asText();
         if ("number".equals(type)) {
-            double[] b = QuickItems.bounds(s);
-            return b == null ? null : new Member(b, null, false);
+            double[] b = QuickBounds.bounds(s);
+            return b == null ? null : new Member(b, null);
         }
         if (!"string".equals(type)) {
             return null;
@@ -78,11 +78,8 @@ final class QuickProperties implements Keyword {
                 return null;
             }
         }
-        if (s.has("format")) {
-            return null;   // a format the library may assert: its call
-        }
         if (!s.has("enum")) {
-            return new Member(null, null, true);
+            return new Member(null, null);
         }
         if (!s.get("enum").isArray()) {
             return null;
@@ -94,19 +91,19 @@ final class QuickProperties implements Keyword {
             }
             allowed.add(v.asText());
         }
-        return new Member(null, allowed, true);
+        return new Member(null, allowed);
     }
 
     /**
-     * A plain member: a bounded number ({@code bounds}) or a string ({@code text}, within
-     * {@code allowed} when not null).
+     * A plain member: a bounded number ({@code bounds}), or a string when {@code bounds} is null
+     * (within {@code allowed} when that is not null).
      */
-    private record Member(double[] bounds, Set<String> allowed, boolean text) {
+    private record Member(double[] bounds, Set<String> allowed) {
         boolean accepts(JsonNode v) {
-            if (text) {
+            if (bounds == null) {
                 return v.isTextual() && (allowed == null || allowed.contains(v.textValue()));
             }
-            return QuickItems.inside(v, bounds);
+            return QuickBounds.inside(v, bounds);
         }
     }
 
