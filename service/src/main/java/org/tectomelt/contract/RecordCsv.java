@@ -104,19 +104,22 @@ public final class RecordCsv {
                 return null;   // a column no row has: the tree way names it as unknown
             }
         }
-        int length = head.length();
-        for (StringBuilder part : parts) {
-            length += part.length();
+        List<StringBuilder> pieces = new java.util.ArrayList<>(parts.length + 1);
+        pieces.add(head);
+        pieces.addAll(List.of(parts));
+        int length = 0;
+        for (StringBuilder piece : pieces) {
+            length += piece.length();
         }
         byte[] out = new byte[length];
-        int at = ascii(head, out, 0);
-        for (StringBuilder part : parts) {
-            at = ascii(part, out, at);
+        int at = 0;
+        for (StringBuilder piece : pieces) {
+            at = ascii(piece, out, at);
             if (at < 0) {
-                return utf8(head, parts);
+                return utf8(pieces);   // a character beyond ASCII (in a column name or a text cell)
             }
         }
-        return at < 0 ? utf8(head, parts) : out;
+        return out;
     }
 
     /** Rows per block. */
@@ -174,11 +177,9 @@ public final class RecordCsv {
         return at;
     }
 
-    private static byte[] utf8(StringBuilder head, StringBuilder[] parts) {
-        StringBuilder all = new StringBuilder(head);
-        for (StringBuilder part : parts) {
-            all.append(part);
-        }
+    private static byte[] utf8(List<StringBuilder> pieces) {
+        StringBuilder all = new StringBuilder();
+        pieces.forEach(all::append);
         return all.toString().getBytes(StandardCharsets.UTF_8);
     }
 
