@@ -170,7 +170,8 @@ final class RunsRoutes {
 
     private static void list(Context ctx, Invoker invoker) {
         RunService runs = runs(ctx);
-        // status, limit and offset are read as the spec documents them (its enum, range and defaults)
+        // the filters and the page are read as the spec documents them (its enum, range and defaults;
+        // a blank value is absent)
         SpecContract.Query q = invoker.spec().query("get", "/v1/runs", ctx.queryParamMap());
         if (!q.violations().isEmpty()) {
             throw new OperationException(q.violations());
@@ -178,8 +179,7 @@ final class RunsRoutes {
         RunStatus status = q.text("status") == null ? null : RunStatus.fromWire(q.text("status"));
         int limit = (int) q.integer("limit");
         int offset = (int) Math.min(q.integer("offset"), Integer.MAX_VALUE); // past the last run: an empty page
-        RunStore.Filter f = new RunStore.Filter(status, blankToNull(ctx.queryParam("owner")),
-                blankToNull(ctx.queryParam("operation")));
+        RunStore.Filter f = new RunStore.Filter(status, q.text("owner"), q.text("operation"));
         ObjectNode o = Json.mapper().createObjectNode();
         ArrayNode items = o.putArray("runs");
         List<RunRecord> page = runs.list(f, limit, offset);
@@ -434,9 +434,5 @@ final class RunsRoutes {
         } catch (IOException e) {
             throw new IllegalStateException("stored JSON is unreadable", e);
         }
-    }
-
-    private static String blankToNull(String s) {
-        return s == null || s.isBlank() ? null : s.trim();
     }
 }

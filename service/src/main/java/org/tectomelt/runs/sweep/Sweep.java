@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
+import java.util.function.Predicate;
 import org.tectomelt.contract.Invoker;
 import org.tectomelt.contract.Json;
 import org.tectomelt.contract.SpecContract;
@@ -160,15 +161,17 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
         if (!(body instanceof ObjectNode b)) {
             throw new OperationException("(body)", "must be a JSON object with operation, request, sweep and outputs");
         }
-        List<Violation> v = new ArrayList<>(invoker.spec().check(SPEC_PATH, b, axisCaps(b, maxPoints)));
-        if (v.stream().anyMatch(x -> SpecContract.BEYOND_DOUBLE.equals(x.message()))) {
-            throw new OperationException(v); // the schema was not applied: nothing else can be read safely
+        List<Violation> spec = invoker.spec().check(SPEC_PATH, b, axisCaps(b, maxPoints));
+        if (spec.stream().anyMatch(x -> SpecContract.BEYOND_DOUBLE.equals(x.message()))) {
+            throw new OperationException(spec); // the schema was not applied: nothing else can be read safely
         }
-        Set<String> refused = new java.util.HashSet<>();
-        v.forEach(x -> refused.add(x.field().split("[.\\[]", 2)[0]));
+        // a part the spec refused (the field or anything under it) is not read further
+        Predicate<String> refused = f -> spec.stream().anyMatch(x -> x.field().equals(f)
+                || x.field().startsWith(f + ".") || x.field().startsWith(f + "["));
+        List<Violation> v = new ArrayList<>(spec);
         Operation<?, ?> op = null;
         List<String> known = invoker.operations().list().stream().map(Operation::name).toList();
-        if (!refused.contains("operation")) {
+        if (!refused.test("operation")) {
             String name = b.get("operation").asText();
             op = invoker.operations().named(name).orElse(null);
             if (op == null) {
@@ -184,7 +187,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
             v.add(new Violation("operation", "is required: the name of an operation, one of " + known));
         }
         ObjectNode request = b.get("request") instanceof ObjectNode o ? o : Json.mapper().createObjectNode();
-        String label = b.hasNonNull("label") && !refused.contains("label") ? b.get("label").asText() : null;
+        String label = b.hasNonNull("label") && !refused.test("label") ? b.get("label").asText() : null;
         boolean withStudy = StudyRequest.FIELDS.stream().anyMatch(b::hasNonNull);
         StudyRequest study = null;
         if (withStudy) {
@@ -203,7 +206,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
             v.add(new Violation("sweep", "is required: an object of at least one swept field, each "
                     + "{\"values\": [...]} or {\"from\": a, \"to\": b, \"steps\": n}"));
             sweepNode = Json.mapper().createObjectNode();
-        } else if (!(sweepNode instanceof ObjectNode) || v.stream().anyMatch(x -> x.field().equals("sweep"))) {
+        } else if (!(sweepNode instanceof ObjectNode) || spec.stream().anyMatch(x -> x.field().equals("sweep"))) {
             sweepNode = Json.mapper().createObjectNode();
         } else if (op != null) {
             Set<String> sweepable = new LinkedHashSet<>();
@@ -217,7 +220,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
                             : "is not a field of " + op.name()) + "; sweepable fields: " + sweepable));
                     continue;
                 }
-                if (v.stream().anyMatch(x -> x.field().equals(field) || x.field().startsWith(field + "."))) {
+                if (refused.test(field)) {
                     continue; // the spec refused this axis's shape
                 }
                 List<Double> values = axis(field, (ObjectNode) e.getValue(), v);
@@ -236,7 +239,7 @@ public record Sweep(String operation, ObjectNode request, ObjectNode sweep, Map<
             }
         }
         List<String> outputs = new ArrayList<>();
-        if (!refused.contains("outputs")) {
+        if (!refused.test("outputs")) {
             outputs(op, b.get("outputs"), outputs, v);
         }
         if (!v.isEmpty()) {
