@@ -37,7 +37,8 @@ import org.tectomelt.RunsConfig;
  * the same run, a chunk held by an instance that stopped sending heartbeats is taken over by
  * another, and a restarted instance finds its queue where it left it.
  *
- * <p>A chunk is a contiguous range of point indexes. It computes the points not yet stored,
+ * <p>A chunk is a contiguous range of positions of the run's {@link ChunkLayout}, which spreads
+ * each chunk over the whole sweep so that its chunks cost alike. It computes the points not yet stored,
  * saving them (with the run's counters, in one transaction) at least every
  * {@link #SAVE_EVERY_NANOS}, so an interrupted chunk loses at most that much work and a re-run
  * chunk never counts a point twice. Before each point the worker gives way to interactive requests
@@ -254,22 +255,22 @@ final class RunExecutor implements AutoCloseable {
             cancelChunks(run);
             return;
         }
-        int from = chunk * run.chunkSize();
-        int to = Math.min(from + run.chunkSize(), run.totalPoints());
-        BitSet have = store.computed(runId, from, to);
+        ChunkLayout layout = run.layout();
+        int[] indexes = layout.indexes(chunk);
+        BitSet have = store.computed(runId, layout, chunk);
         List<PointResult> batch = new ArrayList<>();
         Set<String> modelsRecorded = modelsRecordedFor(runId);
         long computing = System.nanoTime();
         long lastSave = computing;
         long saving = 0;
         long yielded = 0;
-        for (int i = from; i < to; i++) {
-            if (have.get(i - from)) {
+        for (int index : indexes) {
+            if (have.get(index)) {
                 continue;
             }
             yielded += load.yieldToInteractive();
-            PointResult p = prepared.evaluate(i);
-            batch.add(new PointResult(i, p.inputs(), p.outputs(), p.problem(), config.instanceName(), p.models()));
+            PointResult p = prepared.evaluate(index);
+            batch.add(new PointResult(index, p.inputs(), p.outputs(), p.problem(), config.instanceName(), p.models()));
             if (System.nanoTime() - lastSave > SAVE_EVERY_NANOS) {
                 long t = System.nanoTime();
                 if (!save(runId, batch, modelsRecorded)) {
@@ -280,11 +281,11 @@ final class RunExecutor implements AutoCloseable {
             }
         }
         long t = System.nanoTime();
-        if (!batch.isEmpty() || have.cardinality() == to - from) {
+        if (!batch.isEmpty() || have.cardinality() == indexes.length) {
             save(runId, batch, modelsRecorded);
         }
         long end = System.nanoTime();
-        int computed = to - from - have.cardinality();
+        int computed = indexes.length - have.cardinality();
         if (computed > 0) {
             long perPoint = Math.max(1, (t - computing - saving - yielded) / computed);
             if (nanosPerPoint.size() > 1_000) {
@@ -394,11 +395,11 @@ final class RunExecutor implements AutoCloseable {
      */
     void reconcile() {
         for (RunRecord run : store.active()) {
-            Map<Integer, Integer> have = store.computedPerChunk(run.id(), run.chunkSize());
+            ChunkLayout layout = run.layout();
+            Map<Integer, Integer> have = store.computedPerChunk(run.id(), layout);
             int missing = 0;
             for (int k = 0; k < run.chunks(); k++) {
-                int size = Math.min(run.chunkSize(), run.totalPoints() - k * run.chunkSize());
-                if (have.getOrDefault(k, 0) < size
+                if (have.getOrDefault(k, 0) < layout.to(k) - layout.from(k)
                         && scheduler.scheduleIfNotExists(chunkTask.schedulableInstance(run.id() + ":" + k))) {
                     missing++;
                 }

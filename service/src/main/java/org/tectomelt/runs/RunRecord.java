@@ -31,4 +31,9 @@ public record RunRecord(String id, String kind, String operation, String owner, 
     public int chunks() {
         return (totalPoints + chunkSize - 1) / chunkSize;
     }
+
+    /** Which points each chunk holds. */
+    ChunkLayout layout() {
+        return new ChunkLayout(totalPoints, chunkSize);
+    }
 }

@@ -196,18 +196,21 @@ public final class RunStore {
                 ps -> setTime(ps, 1, cutoff));
     }
 
-    /** Indexes in {@code [from, to)} already computed. */
-    BitSet computed(String runId, int from, int to) {
+    /** The indexes of chunk {@code chunk} (of {@code layout}) whose points are stored already. */
+    BitSet computed(String runId, ChunkLayout layout, int chunk) {
         return run(c -> {
             BitSet out = new BitSet();
-            try (PreparedStatement ps = c.prepareStatement(
-                    "select idx from run_points where run_id = ? and idx >= ? and idx < ?")) {
+            String position = ChunkLayout.positionSql("idx");
+            try (PreparedStatement ps = c.prepareStatement("select idx from run_points where run_id = ? and "
+                    + position + " >= ? and " + position + " < ?")) {
                 ps.setString(1, runId);
-                ps.setInt(2, from);
-                ps.setInt(3, to);
+                layout.bindPosition(ps, 2);
+                ps.setLong(4, layout.from(chunk));
+                layout.bindPosition(ps, 5);
+                ps.setLong(7, layout.to(chunk));
                 try (ResultSet rs = ps.executeQuery()) {
                     while (rs.next()) {
-                        out.set(rs.getInt(1) - from);
+                        out.set(rs.getInt(1));
                     }
                 }
             }
@@ -215,18 +218,15 @@ public final class RunStore {
         });
     }
 
-    /** Computed points per chunk number, for the runs whose chunks are checked. */
-    Map<Integer, Integer> computedPerChunk(String runId, int chunkSize) {
+    /** Stored points per chunk number of {@code layout}, for the runs whose chunks are checked. */
+    Map<Integer, Integer> computedPerChunk(String runId, ChunkLayout layout) {
         return run(c -> {
             Map<Integer, Integer> out = new HashMap<>();
-            try (PreparedStatement ps = c.prepareStatement(
-                    "select idx / ?, count(*) from run_points where run_id = ? group by idx / ?")) {
-                ps.setInt(1, chunkSize);
-                ps.setString(2, runId);
-                ps.setInt(3, chunkSize);
+            try (PreparedStatement ps = c.prepareStatement("select idx from run_points where run_id = ?")) {
+                ps.setString(1, runId);
                 try (ResultSet rs = ps.executeQuery()) {
                     while (rs.next()) {
-                        out.put(rs.getInt(1), rs.getInt(2));
+                        out.merge(layout.chunkOf(rs.getInt(1)), 1, Integer::sum);
                     }
                 }
             }

@@ -11,6 +11,7 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.BitSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -212,6 +213,46 @@ class RunServiceTest {
             assertEquals(before, by.get("first"), "points stored before the stop are kept, not recomputed");
             assertEquals(600 - before, by.get("second"));
             assertEquals(600, allPoints(s, id).size());
+        }
+    }
+
+    @ParameterizedTest(name = "[{0}]")
+    @MethodSource("backends")
+    void aRunPartlyStoredUnderAnotherLayoutIsCompletedOncePerPoint(String backend) throws Exception {
+        // an earlier release cut runs into contiguous ranges of indexes: a run it left half done
+        // (indexes 0..299 of 600 stored) is resumed by this one, whose chunks are spread
+        try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0));
+             Database db = Database.open(Backends.sameDatabase(s.config(), "earlier"), 2)) {
+            RunRecord r = s.submit(run("ana", 600));
+            RunStore store = new RunStore(db.dataSource(), "test");
+            List<PointResult> stored = new ArrayList<>();
+            for (int i = 0; i < 300; i++) {
+                stored.add(new PointResult(i, "{\"i\":" + i + "}", "{\"y\":" + ((long) i * i) + "}", null, "earlier"));
+            }
+            assertEquals(RunStore.Saved.STORED, store.save(r.id(), stored, Instant.now()));
+            ChunkLayout layout = r.layout();
+            int held = 0;
+            for (int k = 0; k < layout.chunks(); k++) {
+                BitSet have = store.computed(r.id(), layout, k);
+                for (int i : layout.indexes(k)) {
+                    assertEquals(i < 300, have.get(i), "index " + i);
+                }
+                int chunk = k;
+                assertEquals(0, have.stream().filter(i -> layout.chunkOf(i) != chunk).count(), "only the chunk's own");
+                held += have.cardinality();
+                assertEquals(have.cardinality(), store.computedPerChunk(r.id(), layout).getOrDefault(k, 0));
+            }
+            assertEquals(300, held, "the stored points, found through the database's reckoning of positions");
+            s.start();
+            RunRecord done = await(s, r.id(), x -> !x.status().active(), Duration.ofSeconds(60));
+            assertEquals(RunStatus.SUCCEEDED, done.status());
+            assertEquals(600, done.donePoints() + done.failedPoints(), "each point counted once");
+            assertEquals(Map.of("earlier", 300, "solo", 300), s.pointsByInstance(r.id()));
+            List<PointResult> all = allPoints(s, r.id());
+            assertEquals(600, all.size());
+            for (int i = 0; i < 600; i++) {
+                assertEquals(i, all.get(i).index());
+            }
         }
     }
 
