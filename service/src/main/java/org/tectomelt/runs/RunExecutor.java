@@ -56,8 +56,12 @@ final class RunExecutor implements AutoCloseable {
     static final int CHUNKS_PER_THREAD = 8;
     /** Longest time computed points wait in memory before being saved. */
     static final long SAVE_EVERY_NANOS = 500_000_000L;
-    /** Chunks per worker thread a run of cheap points is still cut into at least. */
-    static final int MIN_CHUNKS_PER_THREAD = 2;
+    /**
+     * Chunks per worker thread a run of cheap points is still cut into at least: one, since the
+     * {@link ChunkLayout} makes a run's chunks cost alike (with contiguous chunks it was two, so
+     * that a thread done with a cheap chunk took another while the dear one computed).
+     */
+    static final int MIN_CHUNKS_PER_THREAD = 1;
     /** Work a chunk of cheap points holds at least. */
     static final long CHUNK_WORK_NANOS = 100_000_000L;
     /** A chunk failing this many times in a row for a reason other than the database fails its run. */

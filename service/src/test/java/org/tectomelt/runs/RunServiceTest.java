@@ -450,18 +450,23 @@ class RunServiceTest {
     void cheapPointsAreGatheredIntoFewerChunksStillSharedByTheThreads() {
         // unknown cost: as before
         assertEquals(125, RunExecutor.chunkSize(2_000, 2, null));
-        // 100 µs a point: 0.1 s of work a chunk would be 1,000 points, but at least two chunks per thread
-        assertEquals(500, RunExecutor.chunkSize(2_000, 2, 100_000L));
+        // 100 µs a point: 0.1 s of work a chunk is 1,000 points, which still leaves one chunk per thread
+        assertEquals(1_000, RunExecutor.chunkSize(2_000, 2, 100_000L));
+        // 20 µs a point: 0.1 s of work would be 5,000 points, but at least one chunk per thread
+        assertEquals(1_000, RunExecutor.chunkSize(2_000, 2, 20_000L));
+        assertEquals(667, RunExecutor.chunkSize(2_000, 3, 20_000L));
         // a large cheap run: chunks of 0.1 s of work, many of them
         assertEquals(1_000, RunExecutor.chunkSize(50_000, 2, 100_000L));
         // dear points (9 ms): the chunks stay as small as without an estimate
         assertEquals(RunExecutor.chunkSize(1_200, 1), RunExecutor.chunkSize(1_200, 1, 9_000_000L));
         assertEquals(RunExecutor.chunkSize(50_000, 2), RunExecutor.chunkSize(50_000, 2, 9_000_000L));
-        // free points: never fewer than two chunks per thread
+        // free points: never fewer than one chunk per thread
         for (int total : new int[] {1, 3, 31, 2_000, 50_000}) {
-            int size = RunExecutor.chunkSize(total, 2, 1L);
-            int chunks = (total + size - 1) / size;
-            assertEquals(Math.min(total, 4), chunks, "chunks of " + total + " points");
+            for (int threads : new int[] {1, 2, 4}) {
+                int size = RunExecutor.chunkSize(total, threads, 1L);
+                int chunks = (total + size - 1) / size;
+                assertEquals(Math.min(total, threads), chunks, "chunks of " + total + " points, " + threads + " threads");
+            }
         }
     }
 
