@@ -7,6 +7,7 @@ import com.fasterxml.jackson.core.StreamReadFeature;
 import com.fasterxml.jackson.core.StreamWriteFeature;
 import com.fasterxml.jackson.core.exc.StreamReadException;
 import com.fasterxml.jackson.core.exc.StreamConstraintsException;
+import com.fasterxml.jackson.core.io.JsonStringEncoder;
 import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.JsonMappingException;
 import com.fasterxml.jackson.databind.MapperFeature;
@@ -48,6 +49,8 @@ public final class Json {
 
     /** Deepest nesting accepted in a request body. */
     public static final int MAX_NESTING_DEPTH = 32;
+
+    private static final JsonStringEncoder QUOTER = JsonStringEncoder.getInstance();
 
     private static final ObjectMapper MAPPER = build();
 
@@ -203,6 +206,31 @@ public final class Json {
         } catch (JsonProcessingException e) {
             throw new IllegalStateException("response could not be serialised: " + e.getOriginalMessage(), e);
         }
+    }
+
+    /**
+     * A flat object of numbers, {@code {"name":1.5,...}} in the map's order, a null or non-finite
+     * value as {@code null}: the very text {@link com.fasterxml.jackson.databind.node.ObjectNode#toString()} gives for it (JSON-quoted
+     * names, {@link Double#toString(double)} numbers), written without building the tree; a run
+     * stores a point's inputs and outputs in this form.
+     */
+    public static String numbers(Map<String, Double> values) {
+        StringBuilder sb = new StringBuilder(32 * values.size() + 2).append('{');
+        for (Map.Entry<String, Double> e : values.entrySet()) {
+            if (sb.length() > 1) {
+                sb.append(',');
+            }
+            sb.append('"');
+            QUOTER.quoteAsString(e.getKey(), sb);
+            sb.append("\":");
+            Double v = e.getValue();
+            if (v == null || !Double.isFinite(v)) {
+                sb.append("null");
+            } else {
+                sb.append(v.doubleValue());
+            }
+        }
+        return sb.append('}').toString();
     }
 
     /** The JSON path of a mapping failure: {@code lithosphere.ageMyr}, {@code points[2].depthKm}. */

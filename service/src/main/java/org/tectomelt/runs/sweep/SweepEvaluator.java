@@ -77,7 +77,7 @@ public final class SweepEvaluator implements Evaluator {
     /** One block of the study of a sweep point: point {@code index} is block {@code index % blocks} of it. */
     private PointResult evaluateStudy(Sweep sweep, StudyRun study, int index) {
         int point = index / sweep.blocks();
-        String inputs = json(sweep.inputs(point));
+        String inputs = Json.numbers(sweep.inputs(point));
         try {
             StudyRun.Block block = study.evaluateBlock(sweep.pointRequest(point), index % sweep.blocks(),
                     Deadline.after(pointBudget));
@@ -90,12 +90,12 @@ public final class SweepEvaluator implements Evaluator {
     }
 
     private PointResult evaluate(Sweep sweep, Operation<?, ?> op, ObjectNode filled, int index) {
-        String inputs = json(sweep.inputs(index));
+        String inputs = Json.numbers(sweep.inputs(index));
         try {
             Record result = (filled == null ? invoker.prepare(op, sweep.pointRequest(index))
                     : bound(op, sweep.pointRequest(filled, index))).run(Deadline.after(pointBudget));
             Map<String, Double> out = invoker.outputs(op.name(), result, sweep.outputs());
-            return new PointResult(index, inputs, json(out), null, null, Invoker.models(result));
+            return new PointResult(index, inputs, Json.numbers(out), null, null, Invoker.models(result));
         } catch (EngineException e) {
             return problem(index, inputs, 400, "outside-model-range", "Outside what the model can compute", e.getMessage(),
                     null);
@@ -126,17 +126,5 @@ public final class SweepEvaluator implements Evaluator {
             }
         }
         return new PointResult(index, inputs, null, p.toString(), null);
-    }
-
-    private static String json(Map<String, Double> values) {
-        ObjectNode o = Json.mapper().createObjectNode();
-        values.forEach((k, v) -> {
-            if (v == null || !Double.isFinite(v)) {
-                o.putNull(k);
-            } else {
-                o.put(k, v);
-            }
-        });
-        return o.toString();
     }
 }
