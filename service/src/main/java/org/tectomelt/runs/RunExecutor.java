@@ -323,7 +323,7 @@ final class RunExecutor implements AutoCloseable {
      */
     private boolean save(String runId, List<PointResult> batch, Set<String> modelsRecorded) {
         store.recordModels(runId, batch, modelsRecorded);
-        RunStore.Saved saved = store.save(runId, batch, Instant.now());
+        RunStore.Saved saved = store.save(runId, batch);
         long n = batch.size();
         batch.clear();
         if (saved == RunStore.Saved.GONE) {
@@ -412,7 +412,7 @@ final class RunExecutor implements AutoCloseable {
                 LOG.warn("runs: run {} had {} chunk(s) missing from the queue; queued again", run.id(), missing);
             }
             if (have.values().stream().mapToInt(Integer::intValue).sum() >= run.totalPoints()) {
-                store.save(run.id(), List.of(), Instant.now());
+                store.save(run.id(), List.of());
             }
         }
     }

@@ -254,14 +254,15 @@ public final class RunStore {
      * missing); when the primary key refuses one because another writer stored it meanwhile (two
      * executions of one chunk: one revived after its heartbeats went stale while the first still
      * ran), the transaction is rolled back and tried again point by point, skipping the stored
-     * ones. That is not a database failure.
+     * ones. That is not a database failure. A save that completes the run stamps its
+     * {@code finished_at} once the points are inserted, just before the commit.
      */
-    Saved save(String runId, List<PointResult> points, Instant now) {
+    Saved save(String runId, List<PointResult> points) {
         return run(c -> {
             c.setAutoCommit(false);
             for (int attempt = 1; ; attempt++) {
                 try {
-                    Saved saved = saveOnce(c, runId, points, now, attempt > 1);
+                    Saved saved = saveOnce(c, runId, points, attempt > 1);
                     c.commit();
                     return saved;
                 } catch (SQLException e) {
@@ -295,8 +296,8 @@ public final class RunStore {
      * One attempt of {@link #save}, in the caller's transaction (GONE rolls back itself): a batch
      * of plain inserts, or with {@code skipStored} one insert per point that skips a stored point.
      */
-    private static Saved saveOnce(Connection c, String runId, List<PointResult> points, Instant now,
-                                  boolean skipStored) throws SQLException {
+    private static Saved saveOnce(Connection c, String runId, List<PointResult> points, boolean skipStored)
+            throws SQLException {
         int done = 0;
         int failed = 0;
         if (!skipStored) {
@@ -351,7 +352,7 @@ public final class RunStore {
                 + "status_reason = case when done_points = 0 then 'every point recorded a problem' "
                 + "else status_reason end, finished_at = ? "
                 + "where id = ? and status in ('queued', 'running') and done_points + failed_points >= total_points")) {
-            setTime(ps, 1, now);
+            setTime(ps, 1, Instant.now());   // the last points are in: the run's finishing moment
             ps.setString(2, runId);
             finished = ps.executeUpdate();
         }

@@ -229,7 +229,7 @@ class RunServiceTest {
             for (int i = 0; i < 300; i++) {
                 stored.add(new PointResult(i, "{\"i\":" + i + "}", "{\"y\":" + ((long) i * i) + "}", null, "earlier"));
             }
-            assertEquals(RunStore.Saved.STORED, store.save(r.id(), stored, Instant.now()));
+            assertEquals(RunStore.Saved.STORED, store.save(r.id(), stored));
             ChunkLayout layout = r.layout();
             int held = 0;
             for (int k = 0; k < layout.chunks(); k++) {
@@ -297,7 +297,7 @@ class RunServiceTest {
                 for (int w = 0; w < 8; w++) {
                     writers.add(pool.submit(() -> {
                         go.await();
-                        return store.save(r.id(), points, Instant.now());
+                        return store.save(r.id(), points);
                     }));
                 }
                 int finished = 0;
