@@ -28,7 +28,11 @@
    (createdAt → finishedAt, stored by the service: from accepting the run to saving its last
    point). The service's process CPU time per run is read from /proc.
 Prints the medians per jar: seconds and points/s, ratios, the run's share of the engine rate by
-both measures, health p50/p99 while runs computed. The machine is shared: read ratios, not times.
+both measures, health p50/p99 while runs computed, and whether the go was clean: the JMH figures
+steady and, from /proc/stat, the CPU time the whole machine spent during the go less what this
+script and its children (the services, JMH, Maven) spent, with the hypervisor's stolen time, at
+most 5 % of the cores (the load average used before counted the go's own services and JMH). The
+machine is shared: read ratios, not times.
 """
 import argparse
 import datetime
@@ -170,6 +174,20 @@ def as_run(port, pid, poll_s):
     return elapsed, own, cpu, latencies
 
 
+def machine_cpu():
+    """(busy, steal) CPU seconds of the whole machine so far, from /proc/stat."""
+    f = [int(x) for x in open("/proc/stat").readline().split()[1:]]
+    user, nice, system, idle, iowait, irq, softirq, steal = (f + [0] * 8)[:8]
+    tick = os.sysconf("SC_CLK_TCK")
+    return (user + nice + system + irq + softirq) / tick, steal / tick
+
+
+def own_cpu():
+    """CPU seconds of this script and of every child it has waited for (services, JMH, Maven)."""
+    t = os.times()
+    return t.user + t.system + t.children_user + t.children_system
+
+
 def quantile(xs, q):
     xs = sorted(xs)
     return xs[min(len(xs) - 1, int(q * len(xs)))]
@@ -186,6 +204,8 @@ def main():
     a = ap.parse_args()
     cores = os.cpu_count()
     load0 = os.getloadavg()[0]
+    busy0, steal0 = machine_cpu()
+    own0, wall0 = own_cpu(), time.time()
     jmh1 = jmh2 = None
     if not a.no_jmh:
         jmh1, jmh2 = jmh(1), jmh(cores, "engineColumnsOf2000Points")
@@ -232,11 +252,17 @@ def main():
         per2 = jmh2["engineColumnsOf2000Points"]
         print(f"  the same with {cores} threads at once: {per2:.0f} ms per {n} columns per thread -> "
               f"{cores * n / (per2 / 1000):.0f} points/s together")
-        load1 = os.getloadavg()[0]
-        clean = abs(before - after) <= 0.1 * per and per2 <= 1.15 * per and max(load0, load1) <= cores
+        busy1, steal1 = machine_cpu()
+        span = (time.time() - wall0) * cores
+        others = max(0.0, (busy1 - busy0) - (own_cpu() - own0)) / span
+        stolen = (steal1 - steal0) / span
+        print(f"  other work on the machine during the go: {100 * others:.1f} % of its cores (all CPU time in "
+              f"/proc/stat less this script's and its children's), {100 * stolen:.1f} % stolen by the hypervisor")
+        clean = abs(before - after) <= 0.1 * per and per2 <= 1.15 * per and others + stolen <= 0.05
         print(f"  clean go: {'yes' if clean else 'NO'} (the single-core times before and after within 10 % of each "
-              f"other, {cores} threads at once within 15 % of one thread, the load average at most {cores} at the "
-              f"start and at the end; otherwise other work took the cores and the ratios below say little)")
+              f"other, {cores} threads at once within 15 % of one thread, other work and stolen time together at "
+              f"most 5 % of the cores during the go; otherwise other work took the cores and the ratios below say "
+              f"little)")
         sweep = jmh1["sweepOf2000Points"]
         print(f"  a run's per-point path (request, operation, outputs as text; no database), 1 thread: {sweep:.0f} ms "
               f"per sweep -> {n / (sweep / 1000):.0f} points/s")
