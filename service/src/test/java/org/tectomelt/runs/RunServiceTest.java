@@ -201,7 +201,15 @@ class RunServiceTest {
             RunRecord partial = await(s, id, x -> x.donePoints() > 20, Duration.ofSeconds(30));
             assertTrue(partial.status().active());
         }
-        try (RunService s = RunService.open(Backends.sameDatabase(cfg, "second"), squares(0))) {
+        java.util.concurrent.atomic.AtomicInteger evaluated = new java.util.concurrent.atomic.AtomicInteger();
+        Evaluator counting = r -> {
+            Evaluator.Prepared p = squares(0).prepare(r);
+            return i -> {
+                evaluated.incrementAndGet();
+                return p.evaluate(i);
+            };
+        };
+        try (RunService s = RunService.open(Backends.sameDatabase(cfg, "second"), counting)) {
             RunRecord stopped = s.find(id).orElseThrow();
             before = stopped.donePoints() + stopped.failedPoints();
             assertTrue(before < 600, "stopped part-way: " + before);
@@ -210,8 +218,9 @@ class RunServiceTest {
             assertEquals(RunStatus.SUCCEEDED, done.status());
             assertEquals(600, done.donePoints() + done.failedPoints());
             Map<String, Integer> by = s.pointsByInstance(id);
-            assertEquals(before, by.get("first"), "points stored before the stop are kept, not recomputed");
+            assertEquals(before, by.get("first"), "points stored before the stop are kept");
             assertEquals(600 - before, by.get("second"));
+            assertEquals(600 - before, evaluated.get(), "stored points are not computed again");
             assertEquals(600, allPoints(s, id).size());
         }
     }
@@ -253,6 +262,49 @@ class RunServiceTest {
             for (int i = 0; i < 600; i++) {
                 assertEquals(i, all.get(i).index());
             }
+        }
+    }
+
+    @Test
+    void aChunkAKilledProcessHeldPartlyStoredIsResumedWithoutComputingItsStoredPointsAgain() throws Exception {
+        // a process killed in the middle of a chunk leaves it picked on the embedded file, with the
+        // points of its earlier saves stored; the next process frees it and computes only the rest
+        RunsConfig cfg = Backends.fresh("h2", dir, "first");
+        String id;
+        ChunkLayout layout;
+        try (RunService s = RunService.open(cfg, squares(0));
+             Database db = Database.open(Backends.sameDatabase(cfg, "killed"), 2)) {
+            RunRecord r = s.submit(run("ana", 400));   // queued, not started: nothing picked yet
+            id = r.id();
+            layout = r.layout();
+            List<PointResult> saved = new ArrayList<>();
+            int[] chunk0 = layout.indexes(0);
+            for (int j = 0; j < chunk0.length / 2; j++) {
+                int i = chunk0[j];
+                saved.add(new PointResult(i, "{\"i\":" + i + "}", "{\"y\":" + ((long) i * i) + "}", null, "killed"));
+            }
+            new RunStore(db.dataSource(), "test").save(id, saved);
+            try (java.sql.Connection c = db.dataSource().getConnection(); java.sql.Statement st = c.createStatement()) {
+                assertEquals(1, st.executeUpdate("update scheduled_tasks set picked = true, picked_by = 'killed', "
+                        + "last_heartbeat = current_timestamp, version = version + 1 where task_instance = '" + id + ":0'"));
+            }
+        }
+        java.util.concurrent.atomic.AtomicInteger evaluated = new java.util.concurrent.atomic.AtomicInteger();
+        Evaluator counting = r -> {
+            Evaluator.Prepared p = squares(0).prepare(r);
+            return i -> {
+                evaluated.incrementAndGet();
+                return p.evaluate(i);
+            };
+        };
+        try (RunService s = RunService.open(Backends.sameDatabase(cfg, "second"), counting)) {
+            s.start();
+            RunRecord done = await(s, id, x -> !x.status().active(), Duration.ofSeconds(30));
+            assertEquals(RunStatus.SUCCEEDED, done.status());
+            assertEquals(400, done.donePoints() + done.failedPoints(), "each point counted once");
+            int stored = layout.indexes(0).length / 2;
+            assertEquals(400 - stored, evaluated.get(), "the interrupted chunk's stored points are not computed again");
+            assertEquals(Map.of("killed", stored, "second", 400 - stored), s.pointsByInstance(id));
         }
     }
 
