@@ -251,6 +251,7 @@ final class RunExecutor implements AutoCloseable {
      *                     after its instance fell silent): some of its points may be stored
      */
     private void executeChunk(String instanceId, boolean failedBefore) {
+        boolean freedAtStart = interrupted.remove(instanceId);
         int colon = instanceId.lastIndexOf(':');
         String runId = instanceId.substring(0, colon);
         int chunk = Integer.parseInt(instanceId.substring(colon + 1));
@@ -279,8 +280,7 @@ final class RunExecutor implements AutoCloseable {
         // of the run's rows (a chunk's points are spread over the run), 5 ms on PostgreSQL for a
         // 50,000-point run; a chunk re-queued by reconcile() is fresh to db-scheduler, and should
         // it hold stored points after all, the save skips them (RunStore.save)
-        boolean runBefore = failedBefore || interrupted.remove(instanceId);
-        BitSet have = runBefore && run.donePoints() + run.failedPoints() > 0
+        BitSet have = (failedBefore || freedAtStart) && run.donePoints() + run.failedPoints() > 0
                 ? store.computed(runId, layout, chunk) : new BitSet();
         List<PointResult> batch = new ArrayList<>();
         Set<String> modelsRecorded = modelsRecordedFor(runId);
