@@ -59,6 +59,17 @@ class RunServiceTest {
         };
     }
 
+    /** {@code inner}, counting in {@code evaluated} every point it computes. */
+    static Evaluator counted(Evaluator inner, java.util.concurrent.atomic.AtomicInteger evaluated) {
+        return run -> {
+            Evaluator.Prepared p = inner.prepare(run);
+            return i -> {
+                evaluated.incrementAndGet();
+                return p.evaluate(i);
+            };
+        };
+    }
+
     static NewRun run(String owner, int points) {
         return new NewRun("sweep", "test-squares", owner, "squares", "{\"n\":" + points + "}", "{\"v\":\"test\"}", points);
     }
@@ -202,13 +213,7 @@ class RunServiceTest {
             assertTrue(partial.status().active());
         }
         java.util.concurrent.atomic.AtomicInteger evaluated = new java.util.concurrent.atomic.AtomicInteger();
-        Evaluator counting = r -> {
-            Evaluator.Prepared p = squares(0).prepare(r);
-            return i -> {
-                evaluated.incrementAndGet();
-                return p.evaluate(i);
-            };
-        };
+        Evaluator counting = counted(squares(0), evaluated);
         try (RunService s = RunService.open(Backends.sameDatabase(cfg, "second"), counting)) {
             RunRecord stopped = s.find(id).orElseThrow();
             before = stopped.donePoints() + stopped.failedPoints();
@@ -290,13 +295,7 @@ class RunServiceTest {
             }
         }
         java.util.concurrent.atomic.AtomicInteger evaluated = new java.util.concurrent.atomic.AtomicInteger();
-        Evaluator counting = r -> {
-            Evaluator.Prepared p = squares(0).prepare(r);
-            return i -> {
-                evaluated.incrementAndGet();
-                return p.evaluate(i);
-            };
-        };
+        Evaluator counting = counted(squares(0), evaluated);
         try (RunService s = RunService.open(Backends.sameDatabase(cfg, "second"), counting)) {
             s.start();
             RunRecord done = await(s, id, x -> !x.status().active(), Duration.ofSeconds(30));
