@@ -18,14 +18,16 @@ import java.util.Arrays;
  * four chunks of 500 points of the benchmark's ridge sweep, potential temperature the outer axis,
  * took 21, 30, 31–55 and 53–65 ms) and the thread holding the dear one finishes the run alone. Multiplication by {@code a} is a bijection of {@code 0..n-1} (a and n
  * coprime), and the multiples of a golden-ratio fraction spread evenly over the circle at every
- * length (the three-distance theorem: Sós 1958, Świerczkowski 1958; from memory), so every chunk samples every axis across its whole range,
- * and the partial results of a running run fill the whole sweep coarsely instead of one end of it.
+ * length (the three-distance theorem: Sós 1958, Świerczkowski 1958; from memory), so every
+ * chunk samples every axis across its whole range, and the partial results of a running run fill
+ * the whole sweep coarsely instead of one end of it.
  *
  * <p>The layout is a function of the run's stored {@code total_points} and {@code chunk_size}
- * alone. Any such layout is a partition of the indexes, and a chunk computes only the indexes it
- * finds unstored, so a run queued under another layout (an earlier release's contiguous ranges)
- * is still completed exactly once per point; a point stored twice at the same moment is refused
- * by the primary key and skipped ({@link RunStore#save}).
+ * alone. Any such layout is a partition of the indexes, and the save skips a point already stored
+ * (the primary key refuses it; {@link RunStore#save}), so a run queued under another layout (an
+ * earlier release's contiguous ranges) is still completed exactly once per point; a chunk that
+ * db-scheduler had not run before computes again, once, the points of its range that the earlier
+ * chunks stored.
  */
 final class ChunkLayout {
 

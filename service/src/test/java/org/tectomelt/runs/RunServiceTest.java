@@ -234,7 +234,8 @@ class RunServiceTest {
     @MethodSource("backends")
     void aRunPartlyStoredUnderAnotherLayoutIsCompletedOncePerPoint(String backend) throws Exception {
         // an earlier release cut runs into contiguous ranges of indexes: a run it left half done
-        // (indexes 0..299 of 600 stored) is resumed by this one, whose chunks are spread
+        // (indexes 0..299 of 600 stored) is resumed by this one, whose chunks are spread (fresh to
+        // db-scheduler, they compute the stored points again and the save skips them)
         try (RunService s = RunService.open(Backends.fresh(backend, dir, "solo"), squares(0));
              Database db = Database.open(Backends.sameDatabase(s.config(), "earlier"), 2)) {
             RunRecord r = s.submit(run("ana", 600));
